@@ -1,0 +1,106 @@
+/**
+ * createApp(deps): middleware, routers, the JSON 404 under /api, the single-page client for
+ * every other GET, and the one error handler. main.ts is the only file that listens.
+ */
+import fs from "node:fs";
+import path from "node:path";
+import express, { type Express } from "express";
+import session from "express-session";
+import helmet from "helmet";
+import { pinoHttp } from "pino-http";
+import { csrfSync } from "csrf-sync";
+import type { PassportStatic } from "passport";
+import { createServices, type AppDeps, type Ctx } from "./context";
+import { DbSessionStore } from "./auth/session-store";
+import { createPassport } from "./auth/passport";
+import { createAuthRouter } from "./routes/auth.router";
+import { apiRouters } from "./routes";
+import { apiNotFound, errorHandler } from "./middleware/problem";
+
+/** Paths that a foreign service calls without a browser session, so they carry no CSRF token. */
+const CSRF_EXEMPT = [/^\/api\/webhooks\//];
+
+export interface CreatedApp {
+  app: Express;
+  ctx: Ctx;
+  sessionStore: DbSessionStore;
+}
+
+export function createApp(deps: AppDeps): CreatedApp {
+  const ctx: Ctx = { ...deps, services: createServices(deps), now: () => deps.clock.now() };
+  const app = express();
+  const secureCookies = deps.config.PUBLIC_URL.startsWith("https://");
+
+  app.disable("x-powered-by");
+  app.set("trust proxy", "loopback");
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          "default-src": ["'self'"],
+          "img-src": ["'self'", "data:", "blob:"],
+          "media-src": ["'self'", "blob:"],
+          // FullCalendar and React set inline styles at run time.
+          "style-src": ["'self'", "'unsafe-inline'"],
+          "script-src": ["'self'"],
+          "connect-src": ["'self'"],
+          "font-src": ["'self'"],
+          "frame-ancestors": ["'none'"],
+          "upgrade-insecure-requests": secureCookies ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      hsts: secureCookies,
+    }),
+  );
+  app.use(
+    pinoHttp({
+      level: deps.quiet ? "silent" : deps.config.LOG_LEVEL,
+      redact: ["req.headers.cookie", "req.headers['x-csrf-token']", "res.headers['set-cookie']"],
+      autoLogging: { ignore: (req) => req.url === "/api/health" },
+    }),
+  );
+
+  // Raw body for signed webhooks (the signature covers the exact bytes); JSON everywhere else.
+  app.use("/api/webhooks", express.raw({ type: "*/*", limit: "1mb" }));
+  app.use("/api", express.json({ limit: "200kb" }));
+
+  // Session expiry follows the wall clock, not the app clock that tests fix.
+  const sessionStore = new DbSessionStore(deps.ds);
+  app.use(
+    session({
+      name: "phasebook.sid",
+      secret: deps.config.SESSION_SECRET,
+      store: sessionStore,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: "lax", secure: secureCookies, maxAge: 12 * 60 * 60 * 1000 },
+    }),
+  );
+  const passport = createPassport(ctx.services);
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  const csrf = csrfSync({
+    getTokenFromRequest: (req) => req.get("x-csrf-token"),
+    skipCsrfProtection: (req) => CSRF_EXEMPT.some((re) => re.test(req.originalUrl)),
+    errorConfig: { statusCode: 403, code: "csrf_invalid", message: "CSRF token missing or stale" },
+  });
+  app.use("/api", csrf.csrfSynchronisedProtection);
+
+  app.use("/api/auth", createAuthRouter(ctx, passport as unknown as PassportStatic, (req) => csrf.generateToken(req as express.Request)));
+  for (const { path: p, router } of apiRouters(ctx)) app.use(`/api${p}`, router);
+  app.use("/api", apiNotFound);
+
+  const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
+  if (staticDir && fs.existsSync(path.join(staticDir, "index.html"))) {
+    app.use(express.static(staticDir, { index: false, maxAge: "1h" }));
+    app.get("/{*splat}", (_req, res) => {
+      res.sendFile(path.join(staticDir, "index.html"));
+    });
+  }
+
+  app.use(errorHandler);
+  return { app, ctx, sessionStore };
+}

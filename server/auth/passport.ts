@@ -1,0 +1,25 @@
+/** passport-local over our user service; the session keeps only the user id. */
+import { Passport } from "passport";
+import { Strategy as LocalStrategy } from "passport-local";
+import type { Services } from "../context";
+import { presentUser } from "../presenters/user.presenter";
+
+export function createPassport(services: Services): InstanceType<typeof Passport> {
+  const passport = new Passport();
+  passport.use(
+    new LocalStrategy({ usernameField: "email", passwordField: "password", session: true }, (email, password, done) => {
+      services.users
+        .verifyCredentials(email, password)
+        .then((u) => done(null, u ? presentUser(u) : false))
+        .catch(done);
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, (user as Express.User).id));
+  passport.deserializeUser((id: number, done) => {
+    services.users
+      .findById(id)
+      .then((u) => done(null, u && u.active ? presentUser(u) : false))
+      .catch(done);
+  });
+  return passport;
+}

@@ -1,0 +1,79 @@
+/**
+ * express-session store over our sessions table, so a restart keeps people signed in and a
+ * deactivated person's sessions can be ended by user id.
+ */
+import session from "express-session";
+import type { DataSource } from "typeorm";
+import { SessionRow } from "../entities";
+
+type Cb<T = void> = (err?: unknown, value?: T) => void;
+
+export class DbSessionStore extends session.Store {
+  private sweeper?: NodeJS.Timeout;
+
+  constructor(
+    private readonly ds: DataSource,
+    private readonly now: () => Date = () => new Date(),
+  ) {
+    super();
+  }
+
+  private get repo() {
+    return this.ds.getRepository(SessionRow);
+  }
+
+  get(sid: string, cb: Cb<session.SessionData | null>): void {
+    this.repo
+      .findOneBy({ sid })
+      .then((row) => {
+        if (!row || row.expiresAtMs <= this.now().getTime()) return cb(null, null);
+        cb(null, JSON.parse(row.data) as session.SessionData);
+      })
+      .catch(cb);
+  }
+
+  set(sid: string, sess: session.SessionData, cb?: Cb): void {
+    const userId = (sess as { passport?: { user?: number } }).passport?.user ?? null;
+    this.repo
+      .upsert({ sid, userId, expiresAtMs: this.expiry(sess), data: JSON.stringify(sess) }, ["sid"])
+      .then(() => cb?.())
+      .catch((e) => cb?.(e));
+  }
+
+  touch(sid: string, sess: session.SessionData, cb?: Cb): void {
+    this.repo
+      .update({ sid }, { expiresAtMs: this.expiry(sess) })
+      .then(() => cb?.())
+      .catch((e) => cb?.(e));
+  }
+
+  destroy(sid: string, cb?: Cb): void {
+    this.repo
+      .delete({ sid })
+      .then(() => cb?.())
+      .catch((e) => cb?.(e));
+  }
+
+  /** Removes expired rows now and then; expired sessions are already refused by get(). */
+  startSweeping(everyMs = 60 * 60 * 1000): void {
+    this.sweeper = setInterval(() => {
+      void this.ds.query(`DELETE FROM sessions WHERE expiresAtMs <= ?`, [this.now().getTime()]);
+    }, everyMs);
+    this.sweeper.unref();
+  }
+
+  stopSweeping(): void {
+    if (this.sweeper) clearInterval(this.sweeper);
+  }
+
+  private expiry(sess: session.SessionData): number {
+    const exp = sess.cookie?.expires ? new Date(sess.cookie.expires).getTime() : NaN;
+    return Number.isFinite(exp) ? exp : this.now().getTime() + 24 * 60 * 60 * 1000;
+  }
+}
+
+/** Ends every session of a person, except optionally the one making the request. */
+export async function endSessionsOf(ds: DataSource, userId: number, exceptSid?: string): Promise<void> {
+  if (exceptSid) await ds.query(`DELETE FROM sessions WHERE userId = ? AND sid <> ?`, [userId, exceptSid]);
+  else await ds.query(`DELETE FROM sessions WHERE userId = ?`, [userId]);
+}

@@ -1,0 +1,39 @@
+/** What routers and jobs share: data source, configuration, clock, services and integrations. */
+import type { DataSource } from "typeorm";
+import type Stripe from "stripe";
+import type { Config } from "./config";
+import type { Clock } from "./clock";
+import type { Mailer } from "./integrations/mailer";
+import { createUserService } from "./services/user.service";
+
+export interface AppDeps {
+  ds: DataSource;
+  config: Config;
+  clock: Clock;
+  mailer: Mailer;
+  payments?: Stripe;
+  /** HTTP address of the local fake mailbox, shown to admins in development. */
+  mailboxUrl?: string;
+  /** Sign-in attempts allowed per address and e-mail in the window (tests lower the window). */
+  loginRateLimit?: { windowMs: number; limit: number };
+  /** bcrypt cost; tests may lower it for speed, never below 10. */
+  bcryptCost?: number;
+  /** Folder of the built client; null to serve the API only. */
+  staticDir?: string | null;
+  /** Silence request logs (tests). */
+  quiet?: boolean;
+}
+
+export function createServices(deps: AppDeps) {
+  const now = () => deps.clock.now();
+  return {
+    users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
+  };
+}
+
+export type Services = ReturnType<typeof createServices>;
+
+export interface Ctx extends AppDeps {
+  services: Services;
+  now: () => Date;
+}

@@ -1,0 +1,5 @@
+// Every migration in order. Migrations are never edited after they land: add a new one
+// (npm run db:migration -- <name>) and list it here.
+import { InitialSchema1796173192009 } from "./1796173192009-initial-schema";
+
+export const migrations = [InitialSchema1796173192009];

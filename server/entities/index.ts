@@ -1,0 +1,26 @@
+import { Account } from "./account.entity";
+import { AccountMember } from "./account-member.entity";
+import { AuditEntry } from "./audit-entry.entity";
+import { Chemical } from "./chemical.entity";
+import { Container } from "./container.entity";
+import { Department } from "./department.entity";
+import { Instrument } from "./instrument.entity";
+import { Location } from "./location.entity";
+import { OutboundMail } from "./outbound-mail.entity";
+import { PasswordReset } from "./password-reset.entity";
+import { ResearchGroup } from "./research-group.entity";
+import { SessionRow } from "./session.entity";
+import { Setting } from "./setting.entity";
+import { TrainingRecord } from "./training-record.entity";
+import { User } from "./user.entity";
+import { UserRole } from "./user-role.entity";
+
+export {
+  Account, AccountMember, AuditEntry, Chemical, Container, Department, Instrument, Location,
+  OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+};
+
+export const entities = [
+  Account, AccountMember, AuditEntry, Chemical, Container, Department, Instrument, Location,
+  OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+];

@@ -1,0 +1,51 @@
+/**
+ * Timed jobs inside the server process: each runs on its own interval, never overlaps itself,
+ * and logs rather than crashes on failure. Later work adds reminders, no-shows and expiries.
+ */
+import type { DataSource } from "typeorm";
+import type { Clock } from "../clock";
+import type { Config } from "../config";
+import type { Mailer } from "../integrations/mailer";
+import { deliverDueMail } from "../services/mail.service";
+
+export interface JobDeps {
+  ds: DataSource;
+  mailer: Mailer;
+  clock: Clock;
+  config: Config;
+}
+
+export interface Job {
+  name: string;
+  everyMs: number;
+  run(deps: JobDeps): Promise<unknown>;
+}
+
+export const jobs: Job[] = [
+  {
+    name: "deliver-mail",
+    everyMs: 5_000,
+    run: (d) => deliverDueMail(d.ds, d.mailer, d.clock.now(), d.config.MAIL_FROM),
+  },
+];
+
+export function startScheduler(deps: JobDeps, list: Job[] = jobs): { stop(): void } {
+  const timers = list.map((job) => {
+    let running = false;
+    const tick = async () => {
+      if (running) return;
+      running = true;
+      try {
+        await job.run(deps);
+      } catch (e) {
+        console.error(`job ${job.name} failed:`, (e as Error).message);
+      } finally {
+        running = false;
+      }
+    };
+    const t = setInterval(() => void tick(), job.everyMs);
+    t.unref();
+    return t;
+  });
+  return { stop: () => timers.forEach(clearInterval) };
+}

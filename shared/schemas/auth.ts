@@ -1,0 +1,52 @@
+import { z } from "zod";
+
+export const ROLES = ["member", "group_lead", "manager", "safety_officer", "admin"] as const;
+export const role = z.enum(ROLES);
+export type Role = z.infer<typeof role>;
+
+export const ROLE_LABELS: Record<Role, string> = {
+  member: "Member",
+  group_lead: "Group lead",
+  manager: "Facility manager",
+  safety_officer: "Safety officer",
+  admin: "Administrator",
+};
+
+export const PASSWORD_MIN = 10;
+const password = z
+  .string({ message: "Enter a password" })
+  .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters`)
+  .max(200, "Use at most 200 characters");
+
+export const loginInput = z.object({
+  email: z.string({ message: "Enter your e-mail address" }).trim().min(1, "Enter your e-mail address").max(254),
+  password: z.string({ message: "Enter your password" }).min(1, "Enter your password").max(200),
+});
+export type LoginInput = z.infer<typeof loginInput>;
+
+export const changePasswordInput = z.object({
+  currentPassword: z.string({ message: "Enter your current password" }).min(1, "Enter your current password"),
+  newPassword: password,
+});
+export type ChangePasswordInput = z.infer<typeof changePasswordInput>;
+
+export const resetRequestInput = z.object({
+  email: z.email({ message: "Enter a valid e-mail address" }).max(254),
+});
+export type ResetRequestInput = z.infer<typeof resetRequestInput>;
+
+export const resetConfirmInput = z.object({
+  token: z.string().min(20, "This reset link is incomplete").max(200),
+  newPassword: password,
+});
+export type ResetConfirmInput = z.infer<typeof resetConfirmInput>;
+
+export const userDto = z.object({
+  id: z.number(),
+  email: z.string(),
+  name: z.string(),
+  roles: z.array(role),
+});
+export type UserDto = z.infer<typeof userDto>;
+
+export { password as passwordSchema };

@@ -1,0 +1,52 @@
+import { z } from "zod";
+import { role, passwordSchema } from "./auth";
+import { pageQuery } from "./common";
+
+export const userAdminDto = z.object({
+  id: z.number(),
+  email: z.string(),
+  name: z.string(),
+  roles: z.array(role),
+  active: z.boolean(),
+  departmentId: z.number().nullable(),
+  groupId: z.number().nullable(),
+  createdAt: z.string(),
+});
+export type UserAdminDto = z.infer<typeof userAdminDto>;
+
+export const userListQuery = pageQuery.extend({
+  q: z.string().trim().max(100).optional(),
+});
+export type UserListQuery = z.infer<typeof userListQuery>;
+
+export const createUserInput = z.object({
+  email: z.email({ message: "Enter a valid e-mail address" }).max(254).transform((e) => e.toLowerCase()),
+  name: z.string().trim().min(1, "Enter the person's name").max(120),
+  roles: z.array(role).min(1, "Give at least one role"),
+  password: passwordSchema.optional(),
+  departmentId: z.number().int().positive().nullable().optional(),
+  groupId: z.number().int().positive().nullable().optional(),
+});
+export type CreateUserInput = z.infer<typeof createUserInput>;
+
+export const updateUserInput = z
+  .object({
+    name: z.string().trim().min(1, "Enter the person's name").max(120),
+    roles: z.array(role).min(1, "Give at least one role"),
+    active: z.boolean(),
+    departmentId: z.number().int().positive().nullable(),
+    groupId: z.number().int().positive().nullable(),
+  })
+  .partial();
+export type UpdateUserInput = z.infer<typeof updateUserInput>;
+
+export const departmentDto = z.object({ id: z.number(), name: z.string(), code: z.string() });
+export type DepartmentDto = z.infer<typeof departmentDto>;
+
+export const groupDto = z.object({
+  id: z.number(),
+  name: z.string(),
+  departmentId: z.number(),
+  leadId: z.number().nullable(),
+});
+export type GroupDto = z.infer<typeof groupDto>;
