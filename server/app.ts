@@ -14,7 +14,7 @@ import { createServices, type AppDeps, type Ctx } from "./context";
 import { DbSessionStore } from "./auth/session-store";
 import { createPassport } from "./auth/passport";
 import { createAuthRouter } from "./routes/auth.router";
-import { apiRouters } from "./routes";
+import { apiRouters, listRoutes } from "./routes";
 import { apiNotFound, errorHandler } from "./middleware/problem";
 
 /** Paths that a foreign service calls without a browser session, so they carry no CSRF token. */
@@ -24,6 +24,8 @@ export interface CreatedApp {
   app: Express;
   ctx: Ctx;
   sessionStore: DbSessionStore;
+  /** "METHOD /api/path" of every API route, for the role-matrix test. */
+  routes: string[];
 }
 
 export function createApp(deps: AppDeps): CreatedApp {
@@ -89,8 +91,11 @@ export function createApp(deps: AppDeps): CreatedApp {
   });
   app.use("/api", csrf.csrfSynchronisedProtection);
 
-  app.use("/api/auth", createAuthRouter(ctx, passport as unknown as PassportStatic, (req) => csrf.generateToken(req as express.Request)));
-  for (const { path: p, router } of apiRouters(ctx)) app.use(`/api${p}`, router);
+  const mounts = [
+    { path: "/auth", router: createAuthRouter(ctx, passport as unknown as PassportStatic, (req) => csrf.generateToken(req as express.Request)) },
+    ...apiRouters(ctx),
+  ];
+  for (const { path: p, router } of mounts) app.use(`/api${p}`, router);
   app.use("/api", apiNotFound);
 
   const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
@@ -102,5 +107,5 @@ export function createApp(deps: AppDeps): CreatedApp {
   }
 
   app.use(errorHandler);
-  return { app, ctx, sessionStore };
+  return { app, ctx, sessionStore, routes: listRoutes(mounts) };
 }

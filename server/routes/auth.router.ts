@@ -1,6 +1,6 @@
 /** Session routes of the HTTP contract: csrf, login, logout, me; plus password change and reset. */
 import { Router, type RequestHandler } from "express";
-import { rateLimit } from "express-rate-limit";
+import { ipKeyGenerator, rateLimit } from "express-rate-limit";
 import {
   changePasswordInput,
   loginInput,
@@ -25,14 +25,14 @@ export function createAuthRouter(ctx: Ctx, passport: import("passport").Passport
     limit,
     standardHeaders: "draft-8",
     legacyHeaders: false,
-    keyGenerator: (req) => `${req.ip}|${String(req.body?.email ?? "").toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? "")}|${String(req.body?.email ?? "").toLowerCase()}`,
     handler: (_req, res) => sendProblem(res, 429, "too_many_attempts", "Too many sign-in attempts; wait a few minutes and try again."),
   });
   const resetLimiter = rateLimit({
     windowMs: 60 * 60 * 1000,
     limit: 5,
     legacyHeaders: false,
-    keyGenerator: (req) => `${req.ip}|${String(req.body?.email ?? "").toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? "")}|${String(req.body?.email ?? "").toLowerCase()}`,
     handler: (_req, res) => sendProblem(res, 429, "too_many_attempts", "Too many reset requests; wait an hour and try again."),
   });
 

@@ -26,6 +26,7 @@ export interface TestApp {
   sent: OutgoingMail[];
   dir: string;
   sessionStore: DbSessionStore;
+  routes: string[];
   close(): Promise<void>;
 }
 
@@ -48,7 +49,7 @@ export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>
     },
     close() {},
   };
-  const { app, ctx, sessionStore } = createApp({
+  const { app, ctx, sessionStore, routes } = createApp({
     ds,
     config,
     clock,
@@ -70,6 +71,7 @@ export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>
     sent,
     dir,
     sessionStore,
+    routes,
     async close() {
       await new Promise((r) => server.close(r));
       await ds.destroy();
