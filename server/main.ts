@@ -35,19 +35,17 @@ async function main(): Promise<void> {
   const fakes =
     needMailFake || needPayFake
       ? await startFakes({
-          mailbox: needMailFake,
-          payments: needPayFake,
           dataDir: path.join(config.dataDir, "fakes"),
           webhookSecret,
           webhookUrl: `http://127.0.0.1:${config.PORT}/api/webhooks/stripe`,
         })
       : null;
-  const smtpUrl = config.SMTP_URL ?? fakes?.mailbox?.smtpUrl;
+  const smtpUrl = config.SMTP_URL ?? (needMailFake ? fakes?.mailbox.smtpUrl : undefined);
   if (!smtpUrl) {
     console.error("SMTP_URL is not set and the fake mailbox is off (START_FAKES=false): set SMTP_URL.");
     process.exit(2);
   }
-  const apiBase = config.STRIPE_API_BASE ?? fakes?.payments?.url;
+  const apiBase = config.STRIPE_API_BASE ?? (needPayFake ? fakes?.payments.url : undefined);
   const payments =
     config.STRIPE_SECRET_KEY || apiBase
       ? createPaymentsClient({ secretKey: config.STRIPE_SECRET_KEY ?? "sk_test_phasebook_local", apiBase, webhookSecret })
@@ -64,7 +62,7 @@ async function main(): Promise<void> {
     clock: systemClock,
     mailer,
     payments,
-    mailboxUrl: fakes?.mailbox?.httpUrl,
+    mailboxUrl: needMailFake ? fakes?.mailbox.httpUrl : undefined,
   });
   sessionStore.startSweeping();
   const scheduler = startScheduler({ ds, mailer, clock: systemClock, config });
@@ -74,8 +72,8 @@ async function main(): Promise<void> {
       "",
       `Phasebook is running at ${config.PUBLIC_URL}`,
       `  database: ${path.resolve(config.DATABASE_PATH)}${seeded ? " (demo scenario seeded)" : ""}`,
-      `  mail: ${fakes?.mailbox ? `fake mailbox ${fakes.mailbox.httpUrl}/messages (also Admin › Mailbox)` : "SMTP_URL"}`,
-      `  payments: ${fakes?.payments ? `fake payment API ${fakes.payments.url}` : payments ? "configured endpoint" : "not configured"}`,
+      `  mail: ${needMailFake && fakes ? `fake mailbox ${fakes.mailbox.httpUrl}/messages (also Admin › Mailbox)` : "SMTP_URL"}`,
+      `  payments: ${needPayFake && fakes ? `fake payment API ${fakes.payments.url}` : payments ? "configured endpoint" : "not configured"}`,
     ];
     if (config.DEMO_SEED) {
       lines.push(
