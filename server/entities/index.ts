@@ -1,7 +1,10 @@
 import { Account } from "./account.entity";
 import { AccountMember } from "./account-member.entity";
 import { AuditEntry } from "./audit-entry.entity";
+import { Booking } from "./booking.entity";
+import { BookingInstrument } from "./booking-instrument.entity";
 import { Chemical } from "./chemical.entity";
+import { ContainerUsage } from "./container-usage.entity";
 import { Container } from "./container.entity";
 import { Department } from "./department.entity";
 import { Instrument } from "./instrument.entity";
@@ -16,11 +19,11 @@ import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
 
 export {
-  Account, AccountMember, AuditEntry, Chemical, Container, Department, Instrument, Location,
+  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
 };
 
 export const entities = [
-  Account, AccountMember, AuditEntry, Chemical, Container, Department, Instrument, Location,
+  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
 ];

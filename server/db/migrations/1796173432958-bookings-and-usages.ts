@@ -1,0 +1,101 @@
+import type { MigrationInterface, QueryRunner } from "typeorm";
+
+export class BookingsAndUsages1796173432958 implements MigrationInterface {
+  name = "BookingsAndUsages1796173432958";
+
+  async up(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`CREATE TABLE "bookings" ("id" integer PRIMARY KEY AUTOINCREMENT NOT NULL, "userId" integer NOT NULL, "accountId" integer NOT NULL, "purpose" text NOT NULL DEFAULT (''), "status" text NOT NULL, "startsAt" text NOT NULL, "endsAt" text NOT NULL, "startMs" integer NOT NULL, "endMs" integer NOT NULL, "checkedInAt" text, "checkedOutAt" text, "seriesId" text, "declineReason" text, "cancelReason" text, "cancelledAt" text, "cancelledById" integer, "lateCancel" boolean NOT NULL DEFAULT (0), "decidedById" integer, "reminderSentAt" text, "createdAt" text NOT NULL, "updatedAt" text NOT NULL)`);
+    await queryRunner.query(`CREATE INDEX "IDX_38a69a58a323647f2e75eb994d" ON "bookings" ("userId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_2a8b47bfae3349a1869e6ed726" ON "bookings" ("accountId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_48b267d894e32a25ebde4b207a" ON "bookings" ("status") `);
+    await queryRunner.query(`CREATE INDEX "IDX_89cd9c5974fd75ee9a533dc39e" ON "bookings" ("seriesId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_58593db73548fbbcdf836d63aa" ON "bookings" ("startMs", "endMs") `);
+    await queryRunner.query(`CREATE TABLE "booking_instruments" ("bookingId" integer NOT NULL, "instrumentId" integer NOT NULL, PRIMARY KEY ("bookingId", "instrumentId"))`);
+    await queryRunner.query(`CREATE INDEX "IDX_d32233e4aa28b6719b773e02d7" ON "booking_instruments" ("instrumentId", "bookingId") `);
+    await queryRunner.query(`CREATE TABLE "container_usages" ("id" integer PRIMARY KEY AUTOINCREMENT NOT NULL, "containerId" integer NOT NULL, "userId" integer NOT NULL, "bookingId" integer, "accountId" integer, "amount" real NOT NULL, "unit" text NOT NULL, "amountInContainerUnit" real NOT NULL, "costCents" integer, "note" text NOT NULL DEFAULT (''), "at" text NOT NULL)`);
+    await queryRunner.query(`CREATE INDEX "IDX_db90315b51a0e733e050a9909b" ON "container_usages" ("containerId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_d56d1d0e2ff82c04942c9ffdaa" ON "container_usages" ("userId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_cf9f1f046f0b803ec6aa26e444" ON "container_usages" ("bookingId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_d207f241e2659ca330565662a1" ON "container_usages" ("at") `);
+    await queryRunner.query(`DROP INDEX "IDX_38a69a58a323647f2e75eb994d"`);
+    await queryRunner.query(`DROP INDEX "IDX_2a8b47bfae3349a1869e6ed726"`);
+    await queryRunner.query(`DROP INDEX "IDX_48b267d894e32a25ebde4b207a"`);
+    await queryRunner.query(`DROP INDEX "IDX_89cd9c5974fd75ee9a533dc39e"`);
+    await queryRunner.query(`DROP INDEX "IDX_58593db73548fbbcdf836d63aa"`);
+    await queryRunner.query(`CREATE TABLE "temporary_bookings" ("id" integer PRIMARY KEY AUTOINCREMENT NOT NULL, "userId" integer NOT NULL, "accountId" integer NOT NULL, "purpose" text NOT NULL DEFAULT (''), "status" text NOT NULL, "startsAt" text NOT NULL, "endsAt" text NOT NULL, "startMs" integer NOT NULL, "endMs" integer NOT NULL, "checkedInAt" text, "checkedOutAt" text, "seriesId" text, "declineReason" text, "cancelReason" text, "cancelledAt" text, "cancelledById" integer, "lateCancel" boolean NOT NULL DEFAULT (0), "decidedById" integer, "reminderSentAt" text, "createdAt" text NOT NULL, "updatedAt" text NOT NULL, CONSTRAINT "FK_38a69a58a323647f2e75eb994de" FOREIGN KEY ("userId") REFERENCES "users" ("id") ON DELETE RESTRICT ON UPDATE NO ACTION, CONSTRAINT "FK_2a8b47bfae3349a1869e6ed7264" FOREIGN KEY ("accountId") REFERENCES "accounts" ("id") ON DELETE RESTRICT ON UPDATE NO ACTION)`);
+    await queryRunner.query(`INSERT INTO "temporary_bookings"("id", "userId", "accountId", "purpose", "status", "startsAt", "endsAt", "startMs", "endMs", "checkedInAt", "checkedOutAt", "seriesId", "declineReason", "cancelReason", "cancelledAt", "cancelledById", "lateCancel", "decidedById", "reminderSentAt", "createdAt", "updatedAt") SELECT "id", "userId", "accountId", "purpose", "status", "startsAt", "endsAt", "startMs", "endMs", "checkedInAt", "checkedOutAt", "seriesId", "declineReason", "cancelReason", "cancelledAt", "cancelledById", "lateCancel", "decidedById", "reminderSentAt", "createdAt", "updatedAt" FROM "bookings"`);
+    await queryRunner.query(`DROP TABLE "bookings"`);
+    await queryRunner.query(`ALTER TABLE "temporary_bookings" RENAME TO "bookings"`);
+    await queryRunner.query(`CREATE INDEX "IDX_38a69a58a323647f2e75eb994d" ON "bookings" ("userId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_2a8b47bfae3349a1869e6ed726" ON "bookings" ("accountId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_48b267d894e32a25ebde4b207a" ON "bookings" ("status") `);
+    await queryRunner.query(`CREATE INDEX "IDX_89cd9c5974fd75ee9a533dc39e" ON "bookings" ("seriesId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_58593db73548fbbcdf836d63aa" ON "bookings" ("startMs", "endMs") `);
+    await queryRunner.query(`DROP INDEX "IDX_d32233e4aa28b6719b773e02d7"`);
+    await queryRunner.query(`CREATE TABLE "temporary_booking_instruments" ("bookingId" integer NOT NULL, "instrumentId" integer NOT NULL, CONSTRAINT "FK_28f3a9eee513538aca8a654ce8e" FOREIGN KEY ("bookingId") REFERENCES "bookings" ("id") ON DELETE CASCADE ON UPDATE NO ACTION, CONSTRAINT "FK_30018ab78932beff01f128f6bcb" FOREIGN KEY ("instrumentId") REFERENCES "instruments" ("id") ON DELETE RESTRICT ON UPDATE NO ACTION, PRIMARY KEY ("bookingId", "instrumentId"))`);
+    await queryRunner.query(`INSERT INTO "temporary_booking_instruments"("bookingId", "instrumentId") SELECT "bookingId", "instrumentId" FROM "booking_instruments"`);
+    await queryRunner.query(`DROP TABLE "booking_instruments"`);
+    await queryRunner.query(`ALTER TABLE "temporary_booking_instruments" RENAME TO "booking_instruments"`);
+    await queryRunner.query(`CREATE INDEX "IDX_d32233e4aa28b6719b773e02d7" ON "booking_instruments" ("instrumentId", "bookingId") `);
+    await queryRunner.query(`DROP INDEX "IDX_db90315b51a0e733e050a9909b"`);
+    await queryRunner.query(`DROP INDEX "IDX_d56d1d0e2ff82c04942c9ffdaa"`);
+    await queryRunner.query(`DROP INDEX "IDX_cf9f1f046f0b803ec6aa26e444"`);
+    await queryRunner.query(`DROP INDEX "IDX_d207f241e2659ca330565662a1"`);
+    await queryRunner.query(`CREATE TABLE "temporary_container_usages" ("id" integer PRIMARY KEY AUTOINCREMENT NOT NULL, "containerId" integer NOT NULL, "userId" integer NOT NULL, "bookingId" integer, "accountId" integer, "amount" real NOT NULL, "unit" text NOT NULL, "amountInContainerUnit" real NOT NULL, "costCents" integer, "note" text NOT NULL DEFAULT (''), "at" text NOT NULL, CONSTRAINT "FK_db90315b51a0e733e050a9909b3" FOREIGN KEY ("containerId") REFERENCES "containers" ("id") ON DELETE RESTRICT ON UPDATE NO ACTION, CONSTRAINT "FK_d56d1d0e2ff82c04942c9ffdaaa" FOREIGN KEY ("userId") REFERENCES "users" ("id") ON DELETE RESTRICT ON UPDATE NO ACTION, CONSTRAINT "FK_cf9f1f046f0b803ec6aa26e4445" FOREIGN KEY ("bookingId") REFERENCES "bookings" ("id") ON DELETE SET NULL ON UPDATE NO ACTION, CONSTRAINT "FK_1ac237a10b2f995f6c2e80bfe1f" FOREIGN KEY ("accountId") REFERENCES "accounts" ("id") ON DELETE SET NULL ON UPDATE NO ACTION)`);
+    await queryRunner.query(`INSERT INTO "temporary_container_usages"("id", "containerId", "userId", "bookingId", "accountId", "amount", "unit", "amountInContainerUnit", "costCents", "note", "at") SELECT "id", "containerId", "userId", "bookingId", "accountId", "amount", "unit", "amountInContainerUnit", "costCents", "note", "at" FROM "container_usages"`);
+    await queryRunner.query(`DROP TABLE "container_usages"`);
+    await queryRunner.query(`ALTER TABLE "temporary_container_usages" RENAME TO "container_usages"`);
+    await queryRunner.query(`CREATE INDEX "IDX_db90315b51a0e733e050a9909b" ON "container_usages" ("containerId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_d56d1d0e2ff82c04942c9ffdaa" ON "container_usages" ("userId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_cf9f1f046f0b803ec6aa26e444" ON "container_usages" ("bookingId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_d207f241e2659ca330565662a1" ON "container_usages" ("at") `);
+  }
+
+  async down(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`DROP INDEX "IDX_d207f241e2659ca330565662a1"`);
+    await queryRunner.query(`DROP INDEX "IDX_cf9f1f046f0b803ec6aa26e444"`);
+    await queryRunner.query(`DROP INDEX "IDX_d56d1d0e2ff82c04942c9ffdaa"`);
+    await queryRunner.query(`DROP INDEX "IDX_db90315b51a0e733e050a9909b"`);
+    await queryRunner.query(`ALTER TABLE "container_usages" RENAME TO "temporary_container_usages"`);
+    await queryRunner.query(`CREATE TABLE "container_usages" ("id" integer PRIMARY KEY AUTOINCREMENT NOT NULL, "containerId" integer NOT NULL, "userId" integer NOT NULL, "bookingId" integer, "accountId" integer, "amount" real NOT NULL, "unit" text NOT NULL, "amountInContainerUnit" real NOT NULL, "costCents" integer, "note" text NOT NULL DEFAULT (''), "at" text NOT NULL)`);
+    await queryRunner.query(`INSERT INTO "container_usages"("id", "containerId", "userId", "bookingId", "accountId", "amount", "unit", "amountInContainerUnit", "costCents", "note", "at") SELECT "id", "containerId", "userId", "bookingId", "accountId", "amount", "unit", "amountInContainerUnit", "costCents", "note", "at" FROM "temporary_container_usages"`);
+    await queryRunner.query(`DROP TABLE "temporary_container_usages"`);
+    await queryRunner.query(`CREATE INDEX "IDX_d207f241e2659ca330565662a1" ON "container_usages" ("at") `);
+    await queryRunner.query(`CREATE INDEX "IDX_cf9f1f046f0b803ec6aa26e444" ON "container_usages" ("bookingId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_d56d1d0e2ff82c04942c9ffdaa" ON "container_usages" ("userId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_db90315b51a0e733e050a9909b" ON "container_usages" ("containerId") `);
+    await queryRunner.query(`DROP INDEX "IDX_d32233e4aa28b6719b773e02d7"`);
+    await queryRunner.query(`ALTER TABLE "booking_instruments" RENAME TO "temporary_booking_instruments"`);
+    await queryRunner.query(`CREATE TABLE "booking_instruments" ("bookingId" integer NOT NULL, "instrumentId" integer NOT NULL, PRIMARY KEY ("bookingId", "instrumentId"))`);
+    await queryRunner.query(`INSERT INTO "booking_instruments"("bookingId", "instrumentId") SELECT "bookingId", "instrumentId" FROM "temporary_booking_instruments"`);
+    await queryRunner.query(`DROP TABLE "temporary_booking_instruments"`);
+    await queryRunner.query(`CREATE INDEX "IDX_d32233e4aa28b6719b773e02d7" ON "booking_instruments" ("instrumentId", "bookingId") `);
+    await queryRunner.query(`DROP INDEX "IDX_58593db73548fbbcdf836d63aa"`);
+    await queryRunner.query(`DROP INDEX "IDX_89cd9c5974fd75ee9a533dc39e"`);
+    await queryRunner.query(`DROP INDEX "IDX_48b267d894e32a25ebde4b207a"`);
+    await queryRunner.query(`DROP INDEX "IDX_2a8b47bfae3349a1869e6ed726"`);
+    await queryRunner.query(`DROP INDEX "IDX_38a69a58a323647f2e75eb994d"`);
+    await queryRunner.query(`ALTER TABLE "bookings" RENAME TO "temporary_bookings"`);
+    await queryRunner.query(`CREATE TABLE "bookings" ("id" integer PRIMARY KEY AUTOINCREMENT NOT NULL, "userId" integer NOT NULL, "accountId" integer NOT NULL, "purpose" text NOT NULL DEFAULT (''), "status" text NOT NULL, "startsAt" text NOT NULL, "endsAt" text NOT NULL, "startMs" integer NOT NULL, "endMs" integer NOT NULL, "checkedInAt" text, "checkedOutAt" text, "seriesId" text, "declineReason" text, "cancelReason" text, "cancelledAt" text, "cancelledById" integer, "lateCancel" boolean NOT NULL DEFAULT (0), "decidedById" integer, "reminderSentAt" text, "createdAt" text NOT NULL, "updatedAt" text NOT NULL)`);
+    await queryRunner.query(`INSERT INTO "bookings"("id", "userId", "accountId", "purpose", "status", "startsAt", "endsAt", "startMs", "endMs", "checkedInAt", "checkedOutAt", "seriesId", "declineReason", "cancelReason", "cancelledAt", "cancelledById", "lateCancel", "decidedById", "reminderSentAt", "createdAt", "updatedAt") SELECT "id", "userId", "accountId", "purpose", "status", "startsAt", "endsAt", "startMs", "endMs", "checkedInAt", "checkedOutAt", "seriesId", "declineReason", "cancelReason", "cancelledAt", "cancelledById", "lateCancel", "decidedById", "reminderSentAt", "createdAt", "updatedAt" FROM "temporary_bookings"`);
+    await queryRunner.query(`DROP TABLE "temporary_bookings"`);
+    await queryRunner.query(`CREATE INDEX "IDX_58593db73548fbbcdf836d63aa" ON "bookings" ("startMs", "endMs") `);
+    await queryRunner.query(`CREATE INDEX "IDX_89cd9c5974fd75ee9a533dc39e" ON "bookings" ("seriesId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_48b267d894e32a25ebde4b207a" ON "bookings" ("status") `);
+    await queryRunner.query(`CREATE INDEX "IDX_2a8b47bfae3349a1869e6ed726" ON "bookings" ("accountId") `);
+    await queryRunner.query(`CREATE INDEX "IDX_38a69a58a323647f2e75eb994d" ON "bookings" ("userId") `);
+    await queryRunner.query(`DROP INDEX "IDX_d207f241e2659ca330565662a1"`);
+    await queryRunner.query(`DROP INDEX "IDX_cf9f1f046f0b803ec6aa26e444"`);
+    await queryRunner.query(`DROP INDEX "IDX_d56d1d0e2ff82c04942c9ffdaa"`);
+    await queryRunner.query(`DROP INDEX "IDX_db90315b51a0e733e050a9909b"`);
+    await queryRunner.query(`DROP TABLE "container_usages"`);
+    await queryRunner.query(`DROP INDEX "IDX_d32233e4aa28b6719b773e02d7"`);
+    await queryRunner.query(`DROP TABLE "booking_instruments"`);
+    await queryRunner.query(`DROP INDEX "IDX_58593db73548fbbcdf836d63aa"`);
+    await queryRunner.query(`DROP INDEX "IDX_89cd9c5974fd75ee9a533dc39e"`);
+    await queryRunner.query(`DROP INDEX "IDX_48b267d894e32a25ebde4b207a"`);
+    await queryRunner.query(`DROP INDEX "IDX_2a8b47bfae3349a1869e6ed726"`);
+    await queryRunner.query(`DROP INDEX "IDX_38a69a58a323647f2e75eb994d"`);
+    await queryRunner.query(`DROP TABLE "bookings"`);
+  }
+}
