@@ -5,6 +5,8 @@ import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
 import { createUserService } from "./services/user.service";
+import { createLabelService } from "./services/label.service";
+import { createScanActionService } from "./services/scan-action.service";
 
 export interface AppDeps {
   ds: DataSource;
@@ -28,6 +30,8 @@ export function createServices(deps: AppDeps) {
   const now = () => deps.clock.now();
   return {
     users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
+    labels: createLabelService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityTz: deps.config.FACILITY_TZ }),
+    scanActions: createScanActionService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
   };
 }
 

@@ -7,6 +7,8 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
+import { createLabelsPdfRouter, createLabelsRouter } from "./labels.router";
+import { createScanActionsRouter, createScanRouter } from "./scan.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -17,6 +19,10 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/departments", router: createDepartmentsRouter(ctx) },
     { path: "/groups", router: createGroupsRouter(ctx) },
     { path: "/instruments", router: createInstrumentsRouter(ctx) },
+    { path: "/scan", router: createScanRouter(ctx) },
+    { path: "/scan-actions", router: createScanActionsRouter(ctx) },
+    { path: "/labels.pdf", router: createLabelsPdfRouter(ctx) },
+    { path: "/labels", router: createLabelsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
   ];
