@@ -45,6 +45,12 @@ export function createScanActionsRouter(ctx: Ctx): Router {
   const labels = () => ctx.services.labels;
   const id = (req: Express.Request) => params<{ id: number }>(req).id;
 
+  // The places a container can be moved to, as "building › room › cabinet", for the move action.
+  r.get("/locations", requireAuth, async (_req, res) => {
+    const items = await labels().locationChoices();
+    res.json({ items, total: items.length });
+  });
+
   r.post("/containers/:id/problem", requireAuth, validate({ params: idParam, body: reportProblemInput }), async (req, res) => {
     const user = currentUser(req);
     await svc().reportContainerProblem(user, id(req), body<ReportProblemInput>(req).note);

@@ -307,7 +307,14 @@ export function createLabelService(deps: LabelServiceDeps) {
     return { pdf, count };
   }
 
-  return { resolve, describeContainer, describeInstrument, reissue, history, listStocks, addStock, labelsPdf };
+  /** Every location with its full path, sorted by path, for pick lists. */
+  async function locationChoices(): Promise<{ id: number; path: string }[]> {
+    const where = await locationPaths(ds);
+    const all = await ds.getRepository(Location).find();
+    return all.map((l) => ({ id: l.id, path: where(l.id)! })).sort((a, b) => a.path.localeCompare(b.path));
+  }
+
+  return { resolve, locationChoices, describeContainer, describeInstrument, reissue, history, listStocks, addStock, labelsPdf };
 }
 
 export type LabelService = ReturnType<typeof createLabelService>;

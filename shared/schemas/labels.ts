@@ -168,3 +168,6 @@ export type ReportFaultInput = z.infer<typeof reportFaultInput>;
 export function recordPath(type: LabelledTypeName, id: number): string {
   return type === "container" ? `/stockroom/containers/${id}` : `/instruments/${id}`;
 }
+
+export const locationChoiceDto = z.object({ id: z.number(), path: z.string() });
+export type LocationChoiceDto = z.infer<typeof locationChoiceDto>;

@@ -182,6 +182,12 @@ describe("container quick actions", () => {
     expect((await safety.post(`/api/scan-actions/containers/${c.id}/move`, { locationId: cabinet.id })).status).toBe(200);
   });
 
+  it("offers every location by its full path to move to", async () => {
+    const r = await member.get("/api/scan-actions/locations");
+    expect(r.status).toBe(200);
+    expect(r.body.items).toContainEqual({ id: cabinet.id, path: expect.stringMatching(/› Room 214 › Flammables cabinet F1$/) });
+  });
+
   it("answers 422 for a location that does not exist", async () => {
     const c = await makeContainer(t.ds, { chemicalId: chem.id });
     expect((await member.post(`/api/scan-actions/containers/${c.id}/move`, { locationId: 999999 })).status).toBe(422);

@@ -27,6 +27,7 @@ export const ROLE_MATRIX: Record<string, Who> = {
   "GET /api/instruments": SIGNED_IN,
   "GET /api/instruments/:id": SIGNED_IN,
   "GET /api/scan/:labelToken": SIGNED_IN,
+  "GET /api/scan-actions/locations": SIGNED_IN,
   "POST /api/scan-actions/containers/:id/problem": SIGNED_IN,
   "POST /api/scan-actions/containers/:id/move": SIGNED_IN,
   "POST /api/scan-actions/containers/:id/empty": SIGNED_IN,
