@@ -99,15 +99,15 @@ function drawPictogram(doc: PDFKit.PDFDocument, code: GhsPictogram, x: number, y
     .polygon([x + h, y], [x + side, y + h], [x + h, y + side], [x, y + h])
     .lineWidth(Math.max(0.6, side / 14))
     .fillAndStroke("#ffffff", "#d00000");
-  doc.fillColor("#000000").font("Helvetica-Bold").fontSize(side / 4.2);
-  doc.text(code, x, y + h - side / 8.4, { width: side, align: "center", lineBreak: false });
+  doc.fillColor("#000000").font("Helvetica-Bold").fontSize(side / 5.5);
+  doc.text(code, x, y + h - side / 11, { width: side, align: "center", lineBreak: false });
   doc.restore();
 }
 
 function drawLabel(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: number, w: number, h: number): void {
   const qr = labelQr(label.url);
   const pad = Math.min(w, h) * 0.05;
-  const qrSide = Math.min(h - 2 * pad, w * (label.size === "vial" ? 0.5 : 0.45));
+  const qrSide = Math.min(h - 2 * pad, w * (label.size === "vial" ? 0.5 : 0.42));
   drawQr(doc, qr, x + pad, y + (h - qrSide) / 2, qrSide);
   doc.link(x + pad, y + (h - qrSide) / 2, qrSide, qrSide, label.url);
 
@@ -116,7 +116,8 @@ function drawLabel(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: n
   let ty = y + pad;
   const bottom = y + h - pad;
   // Font sizes follow the label's height so one design serves every stock.
-  const base = Math.max(4, Math.min(9, h / (label.size === "vial" ? 5.2 : 11)));
+  const vial = label.size === "vial";
+  const base = vial ? Math.max(3.5, Math.min(6.5, h / 8.5)) : Math.max(4, Math.min(7.5, h / 18));
   const line = (text: string, size: number, bold = false) => {
     if (!text || ty + size > bottom + 0.5) return;
     doc.font(bold ? "Helvetica-Bold" : "Helvetica").fontSize(size).fillColor("#000000");
@@ -127,13 +128,13 @@ function drawLabel(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: n
     ty += Math.min(used, bottom - ty) + size * 0.15;
   };
 
-  line(label.title, base * 1.25, true);
-  if (label.size === "bottle") line(label.subtitle, base);
+  line(label.title, base * (vial ? 1.1 : 1.3), true);
+  if (!vial) line(label.subtitle, base);
   if (label.signalWord || label.hCodes.length) {
     line([label.signalWord, label.hCodes.join(" ")].filter(Boolean).join(": "), base, Boolean(label.signalWord));
   }
   if (label.size === "bottle" && label.pictograms.length) {
-    const side = Math.min(base * 3.2, (tw - 2) / Math.max(1, label.pictograms.length) - 1);
+    const side = Math.min(base * 3.4, (tw - 2) / Math.max(1, label.pictograms.length) - 1);
     if (ty + side <= bottom - base * 2) {
       label.pictograms.forEach((p, i) => drawPictogram(doc, p, tx + i * (side + 1), ty, side));
       ty += side + base * 0.3;

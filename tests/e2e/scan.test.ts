@@ -8,6 +8,9 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import Database from "better-sqlite3";
 import { chromium, type Browser, type Page } from "playwright-core";
+import fs from "node:fs";
+import jsQR from "jsqr";
+import { PNG } from "pngjs";
 import { labelUrl } from "@shared/domain/labels";
 import { CHROMIUM, DEMO_PASSWORD, launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
 import { ApiClient } from "../support/http-client";
@@ -98,6 +101,46 @@ describe("the Scan page", () => {
       await page.fill('[data-testid="scan-code-input"]', `${server.url}/s/${"Z".repeat(32)}`);
       await page.click('[data-testid="scan-code-submit"]');
       await expect.poll(() => page.locator('[data-testid="scan-problem-notice"]').textContent()).toMatch(/No record carries this label/);
+    } finally {
+      await context.close();
+    }
+  });
+});
+
+describe("a printed label", () => {
+  it("renders in Chromium's PDF viewer to a QR code that jsqr reads as the label URL, and that photo opens the record", async () => {
+    const manager = new ApiClient(server.url);
+    await manager.login("manager@kestrelbay.example", DEMO_PASSWORD);
+    const res = await fetch(`${server.url}/api/labels.pdf?containerIds=${bottle.id}`, { headers: { cookie: manager.cookieHeader } });
+    expect(res.status).toBe(200);
+    const pdfFile = path.join(server.dir, "label.pdf");
+    fs.writeFileSync(pdfFile, Buffer.from(await res.arrayBuffer()));
+
+    const viewer = await browser.newPage({ viewport: { width: 1000, height: 700 } });
+    const shot = path.join(server.dir, "label-printed.png");
+    let read: string | null = null;
+    try {
+      await viewer.goto(`file://${pdfFile}#zoom=200`);
+      // The viewer draws the page a moment after it loads; look until the code reads.
+      for (let i = 0; i < 20 && !read; i++) {
+        await viewer.waitForTimeout(500);
+        await viewer.screenshot({ path: shot });
+        const png = PNG.sync.read(fs.readFileSync(shot));
+        read = jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data ?? null;
+      }
+    } finally {
+      await viewer.close();
+    }
+    expect(read).toBe(labelUrl(server.url, bottle.labelToken));
+
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    try {
+      await signIn(page, server.url, MEMBER);
+      await page.goto(`${server.url}/scan`);
+      await page.setInputFiles('[data-testid="scan-photo"]', shot);
+      await page.waitForURL((u) => u.pathname === `/s/${bottle.labelToken}`, { timeout: 15_000 });
+      await expect.poll(() => recordName(page).textContent()).toBe(bottle.name);
     } finally {
       await context.close();
     }
