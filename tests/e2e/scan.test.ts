@@ -122,7 +122,7 @@ describe("a printed label", () => {
     try {
       await viewer.goto(`file://${pdfFile}#zoom=200`);
       // The viewer draws the page a moment after it loads; look until the code reads.
-      for (let i = 0; i < 20 && !read; i++) {
+      for (let i = 0; i < 50 && !read; i++) {
         await viewer.waitForTimeout(500);
         await viewer.screenshot({ path: shot });
         const png = PNG.sync.read(fs.readFileSync(shot));
