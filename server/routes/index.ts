@@ -7,11 +7,12 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
-import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
+import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
     { path: "/health", router: createHealthRouter(ctx) },
+    { path: "/facility", router: createFacilityRouter(ctx) },
     { path: "/dashboard", router: createDashboardRouter(ctx) },
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },
