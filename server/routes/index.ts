@@ -9,11 +9,12 @@ import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
 import { createLabelsPdfRouter, createLabelsRouter } from "./labels.router";
 import { createScanActionsRouter, createScanRouter } from "./scan.router";
-import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
+import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
     { path: "/health", router: createHealthRouter(ctx) },
+    { path: "/facility", router: createFacilityRouter(ctx) },
     { path: "/dashboard", router: createDashboardRouter(ctx) },
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },

@@ -18,7 +18,8 @@ function greeting(now: Date): string {
 export function HomeRoute() {
   const { data: user } = useUser();
   const dashboard = useDashboard();
-  const firstName = user?.name.split(" ")[0] ?? "";
+  // Skip an honorific so "Dr. Callum Ferreira" is greeted as Callum.
+  const firstName = (user?.name ?? "").split(/\s+/).find((w) => !/^(dr|prof|mr|mrs|ms|mx)\.?$/i.test(w)) ?? "";
 
   return (
     <>
