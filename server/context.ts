@@ -5,6 +5,7 @@ import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
 import { createUserService } from "./services/user.service";
+import { createStockServices } from "./services/stock-services";
 
 export interface AppDeps {
   ds: DataSource;
@@ -28,6 +29,7 @@ export function createServices(deps: AppDeps) {
   const now = () => deps.clock.now();
   return {
     users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
+    ...createStockServices({ ds: deps.ds, now, dataDir: deps.config.dataDir, tz: deps.config.FACILITY_TZ }),
   };
 }
 

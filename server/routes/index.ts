@@ -7,6 +7,11 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
+import { createChemicalsRouter } from "./chemicals.router";
+import { createContainersRouter } from "./containers.router";
+import { createLocationsRouter } from "./locations.router";
+import { createSafetyRouter, createSdsRouter } from "./safety.router";
+import { createSolutionsRouter } from "./solutions.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -18,6 +23,12 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/groups", router: createGroupsRouter(ctx) },
     { path: "/instruments", router: createInstrumentsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
+    { path: "/chemicals", router: createChemicalsRouter(ctx) },
+    { path: "/containers", router: createContainersRouter(ctx) },
+    { path: "/solutions", router: createSolutionsRouter(ctx) },
+    { path: "/locations", router: createLocationsRouter(ctx) },
+    { path: "/safety", router: createSafetyRouter(ctx) },
+    { path: "/sds", router: createSdsRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
   ];
 }
