@@ -35,7 +35,8 @@ export function csvText(req: Request): string {
   throw new UnsupportedMedia("Send the CSV file as text/csv (or JSON { csv }).", "csv");
 }
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: SDS_MAX_BYTES, files: 1, fields: 10, parts: 12 } }).single("file");
+// preservePath: see the name as sent, so one with folder parts is refused rather than silently cut down.
+const upload = multer({ storage: multer.memoryStorage(), preservePath: true, limits: { fileSize: SDS_MAX_BYTES, files: 1, fields: 10, parts: 12 } }).single("file");
 
 /** multer as a promise, its errors turned into problems that name the file field. */
 function receiveFile(req: Request, res: express.Response): Promise<void> {
