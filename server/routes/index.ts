@@ -12,11 +12,12 @@ import { createContainersRouter } from "./containers.router";
 import { createLocationsRouter } from "./locations.router";
 import { createSafetyRouter, createSdsRouter } from "./safety.router";
 import { createSolutionsRouter } from "./solutions.router";
-import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
+import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
     { path: "/health", router: createHealthRouter(ctx) },
+    { path: "/facility", router: createFacilityRouter(ctx) },
     { path: "/dashboard", router: createDashboardRouter(ctx) },
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },
