@@ -112,6 +112,7 @@ export function createContainerService(deps: ContainerServiceDeps) {
     }
     const whereSql = where.length ? `WHERE ${where.join(" AND ")}` : "";
     const dir = q.dir === "desc" ? "DESC" : "ASC";
+    if (q.sort === "chemical" || q.sort === "location") return listByGroup(q.sort, whereSql, where, args, q, dir);
     // The count needs no joins; only the page joins names, for its few rows.
     const [{ n }] = (await ds.query(`SELECT COUNT(*) AS n FROM containers c ${whereSql}`, args)) as { n: number }[];
     const items = (await ds.query(
@@ -119,6 +120,56 @@ export function createContainerService(deps: ContainerServiceDeps) {
       [...args, q.limit, q.offset],
     )) as ContainerRow[];
     return { items, total: Number(n) };
+  }
+
+  /**
+   * Sorting 20 000 containers by their chemical's (or location's) name would make SQLite sort
+   * every matching row for each page. Chemicals and locations are few, so instead: count the
+   * matches per chemical (an index-only GROUP BY), order those groups by name here, and read
+   * only the one to three groups the page falls in, each by its own index. The total is the
+   * sum of the counts.
+   */
+  async function listByGroup(
+    by: "chemical" | "location",
+    whereSql: string,
+    where: string[],
+    args: unknown[],
+    q: ContainerListQuery,
+    dir: "ASC" | "DESC",
+  ): Promise<{ items: ContainerRow[]; total: number }> {
+    const key = by === "chemical" ? "c.chemicalId" : "c.locationId";
+    const groups = (await ds.query(`SELECT ${key} AS id, COUNT(*) AS n FROM containers c ${whereSql} GROUP BY ${key}`, args)) as { id: number | null; n: number }[];
+    const names = new Map(
+      ((await ds.query(`SELECT id, name FROM ${by === "chemical" ? "chemicals" : "locations"}`)) as { id: number; name: string }[]).map((r) => [r.id, r.name]),
+    );
+    const sign = dir === "DESC" ? -1 : 1;
+    // SQLite sorts NULL first ascending; containers without a location do the same here.
+    const nameOf = (id: number | null) => (id === null ? "" : (names.get(id) ?? ""));
+    groups.sort((a, b) => sign * (nameOf(a.id) < nameOf(b.id) ? -1 : nameOf(a.id) > nameOf(b.id) ? 1 : (a.id ?? 0) - (b.id ?? 0)));
+    const total = groups.reduce((sum, g) => sum + Number(g.n), 0);
+    let skip = q.offset;
+    let need = q.limit;
+    const items: ContainerRow[] = [];
+    for (const g of groups) {
+      if (need <= 0) break;
+      const n = Number(g.n);
+      if (skip >= n) {
+        skip -= n;
+        continue;
+      }
+      const take = Math.min(n - skip, need);
+      const groupWhere = `WHERE ${[...where, g.id === null ? `${key} IS NULL` : `${key} = ?`].join(" AND ")}`;
+      const rows = (await ds.query(`SELECT ${ROW_COLUMNS} ${ROW_FROM} ${groupWhere} ORDER BY c.id ${dir} LIMIT ? OFFSET ?`, [
+        ...args,
+        ...(g.id === null ? [] : [g.id]),
+        take,
+        skip,
+      ])) as ContainerRow[];
+      items.push(...rows);
+      need -= take;
+      skip = 0;
+    }
+    return { items, total };
   }
 
   async function row(em: EntityManager, id: number): Promise<ContainerRow> {

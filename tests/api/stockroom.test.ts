@@ -314,3 +314,20 @@ describe("GET /api/safety/locations", () => {
     expect((await member.get("/api/safety/locations")).status).toBe(403);
   });
 });
+
+describe("GET /api/containers sorted by chemical", () => {
+  it("pages by chemical name, in either direction, without losing or repeating a container across chemicals", async () => {
+    for (const dir of ["asc", "desc"]) {
+      const all = (await member.get(`/api/containers?sort=chemical&dir=${dir}&limit=500`)).body;
+      const names = all.items.map((c: { chemicalName: string }) => c.chemicalName);
+      expect(names).toEqual([...names].sort((a: string, b: string) => (dir === "asc" ? a.localeCompare(b) : b.localeCompare(a))));
+      const paged: number[] = [];
+      for (let offset = 0; offset < all.total; offset += 3) {
+        const page = await member.get(`/api/containers?sort=chemical&dir=${dir}&limit=3&offset=${offset}`);
+        expect(page.body.total).toBe(all.total);
+        paged.push(...page.body.items.map((c: { id: number }) => c.id));
+      }
+      expect(paged).toEqual(all.items.map((c: { id: number }) => c.id));
+    }
+  });
+});
