@@ -7,6 +7,7 @@ import type { Mailer } from "./integrations/mailer";
 import { createUserService } from "./services/user.service";
 import { createLabelService } from "./services/label.service";
 import { createScanActionService } from "./services/scan-action.service";
+import { createStockServices } from "./services/stock-services";
 
 export interface AppDeps {
   ds: DataSource;
@@ -32,6 +33,7 @@ export function createServices(deps: AppDeps) {
     users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
     labels: createLabelService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityTz: deps.config.FACILITY_TZ }),
     scanActions: createScanActionService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
+    ...createStockServices({ ds: deps.ds, now, dataDir: deps.config.dataDir, tz: deps.config.FACILITY_TZ }),
   };
 }
 

@@ -16,12 +16,12 @@ export class Container {
   @Index() @Column("integer", { nullable: true }) locationId: number | null;
   @Index() @Column("text", { default: "sealed" }) status: ContainerStatus;
   @Column("text", { nullable: true }) openedAt: string | null;
-  @Column("text", { nullable: true }) expiresAt: string | null;
+  @Index() @Column("text", { nullable: true }) expiresAt: string | null;
   @Column("text", { nullable: true }) retestAt: string | null;
   @Column("integer", { nullable: true }) groupId: number | null;
   @Index({ unique: true }) @Column("text") labelToken: string;
   @Column("text", { default: "" }) supplier: string;
-  @Column("text", { default: "" }) lot: string;
+  @Index() @Column("text", { default: "" }) lot: string;
   @Column("integer", { nullable: true }) priceCents: number | null;
   /** Prepared solutions: concentration in mol/L. */
   @Column("real", { nullable: true }) concentrationMolPerL: number | null;

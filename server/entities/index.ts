@@ -6,6 +6,7 @@ import { BookingInstrument } from "./booking-instrument.entity";
 import { Chemical } from "./chemical.entity";
 import { ContainerUsage } from "./container-usage.entity";
 import { Container } from "./container.entity";
+import { ContainerMovement } from "./container-movement.entity";
 import { Department } from "./department.entity";
 import { Instrument } from "./instrument.entity";
 import { LabelHistory } from "./label-history.entity";
@@ -14,8 +15,11 @@ import { Location } from "./location.entity";
 import { OutboundMail } from "./outbound-mail.entity";
 import { PasswordReset } from "./password-reset.entity";
 import { ResearchGroup } from "./research-group.entity";
+import { SafetyDataSheet } from "./safety-data-sheet.entity";
 import { SessionRow } from "./session.entity";
 import { Setting } from "./setting.entity";
+import { SolutionComponent } from "./solution-component.entity";
+import { StockAlert } from "./stock-alert.entity";
 import { TrainingRecord } from "./training-record.entity";
 import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
@@ -24,8 +28,11 @@ export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
 };
+// Stockroom and safety review.
+export { ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert };
 
 export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+  ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert,
 ];

@@ -7,6 +7,7 @@ import type { Clock } from "../clock";
 import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../services/mail.service";
+import { runStockAlerts } from "../services/stock-alerts.service";
 
 export interface JobDeps {
   ds: DataSource;
@@ -26,6 +27,12 @@ export const jobs: Job[] = [
     name: "deliver-mail",
     everyMs: 5_000,
     run: (d) => deliverDueMail(d.ds, d.mailer, d.clock.now(), d.config.MAIL_FROM),
+  },
+  {
+    // Reorder points, expiry within 30 days, locations over their limit; each subject at most weekly.
+    name: "stock-alerts",
+    everyMs: 60 * 60_000,
+    run: (d) => runStockAlerts(d.ds, d.clock.now(), { tz: d.config.FACILITY_TZ, publicUrl: d.config.PUBLIC_URL }),
   },
 ];
 

@@ -9,6 +9,11 @@ import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
 import { createLabelsPdfRouter, createLabelsRouter } from "./labels.router";
 import { createScanActionsRouter, createScanRouter } from "./scan.router";
+import { createChemicalsRouter } from "./chemicals.router";
+import { createContainersRouter } from "./containers.router";
+import { createLocationsRouter } from "./locations.router";
+import { createSafetyRouter, createSdsRouter } from "./safety.router";
+import { createSolutionsRouter } from "./solutions.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -25,6 +30,12 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/labels.pdf", router: createLabelsPdfRouter(ctx) },
     { path: "/labels", router: createLabelsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
+    { path: "/chemicals", router: createChemicalsRouter(ctx) },
+    { path: "/containers", router: createContainersRouter(ctx) },
+    { path: "/solutions", router: createSolutionsRouter(ctx) },
+    { path: "/locations", router: createLocationsRouter(ctx) },
+    { path: "/safety", router: createSafetyRouter(ctx) },
+    { path: "/sds", router: createSdsRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
   ];
 }

@@ -4,6 +4,7 @@
  */
 import type { Ctx } from "../context";
 import type { AuthUser } from "../middleware/auth";
+import { safetyLocationTotals } from "./safety.service";
 
 export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager: boolean; safety: boolean }) {
   const now = ctx.now();
@@ -28,7 +29,12 @@ export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager
         [today],
       ),
       onHold: await one(`SELECT COUNT(*) n FROM containers WHERE status = 'on_hold'`),
-      locationsOverLimit: 0,
+      locationsOverLimit: (await safetyLocationTotals(ctx.ds)).filter((l) => l.overLimit).length,
+      expiringSoon: await one(
+        `SELECT COUNT(*) n FROM containers WHERE status NOT IN ('empty','disposed') AND expiresAt IS NOT NULL AND expiresAt >= ? AND expiresAt <= ?`,
+        [today, soon.slice(0, 10)],
+      ),
+      chemicalsOnHold: await one(`SELECT COUNT(*) n FROM chemicals WHERE onHoldReason IS NOT NULL`),
     };
   }
   void user;

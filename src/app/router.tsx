@@ -62,6 +62,10 @@ export function createAppRouter() {
         screen(paths.myBookings.path, () => import("./routes/my-bookings").then((m) => ({ Component: m.MyBookingsRoute }))),
         screen(paths.instruments.path, () => import("./routes/instruments").then((m) => ({ Component: m.InstrumentsRoute }))),
         screen(paths.stockroom.path, () => import("./routes/stockroom").then((m) => ({ Component: m.StockroomRoute }))),
+        screen(paths.stockroomChemicals.path, () => import("./routes/stockroom").then((m) => ({ Component: m.ChemicalsRoute }))),
+        screen(paths.chemical.path, () => import("./routes/stockroom-chemical").then((m) => ({ Component: m.ChemicalRoute }))),
+        screen(paths.container.path, () => import("./routes/stockroom-container").then((m) => ({ Component: m.ContainerRoute }))),
+        screen(paths.prepareSolution.path, () => import("./routes/stockroom-prepare").then((m) => ({ Component: m.PrepareSolutionRoute }))),
         screen(paths.scan.path, () => import("./routes/scan").then((m) => ({ Component: m.ScanRoute }))),
         screen(paths.scanToken.path, () => import("./routes/scan-token").then((m) => ({ Component: m.ScanTokenRoute }))),
         screen(paths.profile.path, () => import("./routes/profile").then((m) => ({ Component: m.ProfileRoute }))),
@@ -73,6 +77,8 @@ export function createAppRouter() {
         ]),
         restricted(AREA_ROLES.safety, [
           screen(paths.safety.path, () => import("./routes/safety").then((m) => ({ Component: m.SafetyRoute }))),
+          screen(paths.safetyLocations.path, () => import("./routes/safety").then((m) => ({ Component: m.SafetyLocationsRoute }))),
+          screen(paths.receive.path, () => import("./routes/stockroom-receive").then((m) => ({ Component: m.ReceiveRoute }))),
         ]),
         restricted(AREA_ROLES.admin, [
           screen(paths.admin.people.path, () => import("./routes/admin/people").then((m) => ({ Component: m.PeopleRoute }))),

@@ -3,5 +3,11 @@
 import { InitialSchema1796173192009 } from "./1796173192009-initial-schema";
 import { BookingsAndUsages1796173432958 } from "./1796173432958-bookings-and-usages";
 import { LabelsAndStocks1796173796292 } from "./1796173796292-labels-and-stocks";
+import { StockroomAndSafety1796173804700 } from "./1796173804700-stockroom-and-safety";
 
-export const migrations = [InitialSchema1796173192009, BookingsAndUsages1796173432958, LabelsAndStocks1796173796292];
+export const migrations = [
+  InitialSchema1796173192009,
+  BookingsAndUsages1796173432958,
+  LabelsAndStocks1796173796292,
+  StockroomAndSafety1796173804700,
+];

@@ -29,6 +29,7 @@ import { hashPassword, newToken } from "../../services/user.service";
 import { DEMO_ACCOUNTS } from "./demo-accounts";
 import { type ChemicalKey, DEMO_CHEMICALS } from "./demo-chemicals";
 import { DEMO_CONTAINERS } from "./demo-containers";
+import { seedStockHistory } from "./demo-stock-history";
 import { DEMO_INSTRUMENTS, DEMO_TRAINING, type InstrumentKey } from "./demo-instruments";
 import { DEMO_LOCATIONS, type LocationKey } from "./demo-locations";
 import { DEMO_DEPARTMENTS, DEMO_GROUPS, DEMO_PASSWORD, DEMO_PEOPLE, type DepartmentCode, type GroupKey, type PersonKey } from "./demo-people";
@@ -236,6 +237,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
     }
 
     const safetyId = lookup(people, "safety");
+    const containerIds: number[] = [];
     for (const c of DEMO_CONTAINERS) {
       // Received a week before it was first opened (or a month ago if still sealed).
       const receivedDays = (c.openedDays ?? -23) - 7;
@@ -259,10 +261,19 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
         holdReason: c.holdReason ?? null,
         createdAt: isoAfter(now, receivedDays),
       });
+      containerIds.push(id);
       if (c.status === "on_hold") {
         await audit(em, new Date(isoAfter(now, -2)), safetyId, "container.held", "container", id, { reason: c.holdReason });
       }
     }
+
+    await seedStockHistory(em, now, {
+      containers: DEMO_CONTAINERS,
+      ids: containerIds,
+      locationIdOf: (c) => lookup(locations, c.location),
+      memberId: lookup(people, "member"),
+      receiverId: managerId,
+    });
 
     await em.insert(Setting, { key: DEMO_SEEDED_KEY, value: JSON.stringify({ at: nowIso }) });
     await audit(em, now, null, "demo.seeded", "setting", null, { key: DEMO_SEEDED_KEY });

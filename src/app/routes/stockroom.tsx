@@ -1,10 +1,55 @@
-/** Stockroom (placeholder until the stock work lands). */
-import { PlannedScreen } from "@/components/planned-screen";
+/** Stockroom: the containers table (default) and the chemicals table, with links to receive and prepare. */
+import { Link, NavLink } from "react-router-dom";
+import { paths } from "@/config/paths";
+import { hasRole, useUser } from "@/lib/auth";
+import { cn } from "@/lib/cn";
+import { buttonClasses } from "@/components/ui/button";
+import { PageHeader } from "@/components/ui/page-header";
+import { ContainersTable } from "@/features/stockroom/components/containers-table";
+import { ChemicalsTable } from "@/features/stockroom/components/chemicals-table";
+
+function StockroomHeader() {
+  const { data: user } = useUser();
+  return (
+    <>
+      <PageHeader
+        title="Stockroom"
+        description="Every container's quantity, place and state, and the chemicals with their hazard data."
+        actions={
+          <>
+            <Link to={paths.prepareSolution.getHref()} className={buttonClasses("primary")} data-testid="prepare-solution-link">Prepare a solution</Link>
+            {hasRole(user, "manager", "safety_officer") && <Link to={paths.receive.getHref()} className={buttonClasses("secondary")}>Receive a delivery</Link>}
+          </>
+        }
+      />
+      <nav className="mb-3 flex gap-1 text-sm" aria-label="Stockroom tables">
+        {[
+          { to: paths.stockroom.getHref(), label: "Containers" },
+          { to: paths.stockroomChemicals.getHref(), label: "Chemicals" },
+        ].map((t) => (
+          <NavLink key={t.to} to={t.to} end className={({ isActive }) => cn("rounded px-2.5 py-1 no-underline", isActive ? "bg-aqueous-50 font-medium text-aqueous-900" : "text-grey-700 hover:bg-grey-100")}>
+            {t.label}
+          </NavLink>
+        ))}
+      </nav>
+    </>
+  );
+}
 
 export function StockroomRoute() {
   return (
-    <PlannedScreen title="Stockroom">
-      Chemicals with their hazard data and every container's quantity, location and expiry; prepared solutions and logging what a run used.
-    </PlannedScreen>
+    <>
+      <StockroomHeader />
+      <ContainersTable />
+    </>
+  );
+}
+
+export function ChemicalsRoute() {
+  return (
+    <>
+      <StockroomHeader />
+      <ChemicalsTable />
+    </>
   );
 }

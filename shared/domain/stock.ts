@@ -1,0 +1,175 @@
+/**
+ * Stock arithmetic on top of units.ts: what a logged amount takes from a container (bottles
+ * through density and molar mass, prepared solutions through their concentration), what it
+ * costs at the chemical's unit cost, and how many litres a container holds for the safety
+ * review's totals. Pure: the services call these inside their transactions, the UI for previews.
+ */
+import { convertAmount, parseUnit, unitDimension, UnitError, MAX_QUANTITY } from "./units";
+
+export interface StockChemical {
+  densityGPerMl: number | null;
+  molarMass: number | null;
+}
+
+export interface StockContainer {
+  unit: string;
+  kind: string;
+  /** mol/L, for prepared solutions. */
+  concentrationMolPerL: number | null;
+}
+
+/**
+ * The amount to deduct from a container, in the container's own unit. A bottle converts
+ * through its chemical's density (mass ↔ volume) and molar mass (↔ amount of substance).
+ * A prepared solution is kept as a volume of solution: an amount of its solute converts
+ * through the concentration (V = n ÷ c); a mass of solution would need the solution's
+ * density, which Phasebook does not know, so it is refused. Throws UnitError.
+ */
+export function amountInContainerUnit(amount: number, unit: string, container: StockContainer, chemical: StockChemical): number {
+  if (typeof amount !== "number" || !Number.isFinite(amount)) throw new UnitError("invalid_amount", "amount", "The amount must be a finite number.");
+  if (amount <= 0) throw new UnitError("invalid_amount", "amount", `The amount must be above zero (got ${amount}).`);
+  if (amount > MAX_QUANTITY) throw new UnitError("invalid_amount", "amount", `The amount of ${amount} is larger than Phasebook accepts.`);
+  const from = parseUnit(unit, "from");
+  if (container.kind === "solution" && container.concentrationMolPerL) {
+    const target = parseUnit(container.unit, "to");
+    const fromDim = unitDimension(from);
+    if (fromDim === "mass") {
+      throw new UnitError(
+        "needs_density",
+        "from",
+        "A prepared solution is measured by volume or by the amount of its solute; a mass of solution needs its density, which Phasebook does not keep. Log mL or mmol.",
+      );
+    }
+    if (fromDim === "amount") {
+      const mol = convertAmount({ amount, from, to: "mol" });
+      const litres = mol / container.concentrationMolPerL;
+      return convertAmount({ amount: litres, from: "L", to: target });
+    }
+    return convertAmount({ amount, from, to: target });
+  }
+  return convertAmount({
+    amount,
+    from,
+    to: container.unit,
+    densityGPerMl: chemical.densityGPerMl,
+    molarMassGPerMol: chemical.molarMass,
+  });
+}
+
+/**
+ * Cost in whole cents of an amount at the chemical's unit cost (cents per costUnit), rounded
+ * half up to the cent. Null when the chemical has no unit cost or the amount cannot be
+ * expressed in the cost unit (e.g. a solid priced per g, logged in mL without a density).
+ */
+export function usageCostCents(
+  amount: number,
+  unit: string,
+  chemical: StockChemical & { unitCostCents: number | null; costUnit: string | null },
+): number | null {
+  if (chemical.unitCostCents === null || chemical.costUnit === null) return null;
+  try {
+    const inCostUnit = convertAmount({
+      amount,
+      from: unit,
+      to: chemical.costUnit,
+      densityGPerMl: chemical.densityGPerMl,
+      molarMassGPerMol: chemical.molarMass,
+    });
+    // Round the product once, after a tiny nudge so 0.5-cent products computed as 0.49999… round up.
+    return Math.round(inCostUnit * chemical.unitCostCents + 1e-9);
+  } catch (e) {
+    if (e instanceof UnitError) return null;
+    throw e;
+  }
+}
+
+/**
+ * Litres of liquid in a container, for storage totals: volumes directly, masses through the
+ * density. Null when the quantity cannot be a volume (a solid without density, an amount).
+ */
+export function containerLitres(quantity: number, unit: string, densityGPerMl: number | null): number | null {
+  try {
+    return convertAmount({ amount: Math.max(0, quantity), from: unit, to: "L", densityGPerMl });
+  } catch (e) {
+    if (e instanceof UnitError) return null;
+    throw e;
+  }
+}
+
+export interface TotalsLocation {
+  id: number;
+  parentId: number | null;
+  flammableLimitLitres: number | null;
+  combustibleLimitLitres: number | null;
+}
+
+export interface TotalsItem {
+  locationId: number | null;
+  /** GHS flammable-liquid category 1–4, or null for anything else. */
+  category: 1 | 2 | 3 | 4 | null;
+  litres: number | null;
+}
+
+export interface LocationTotals {
+  litresByCategory: { "1": number; "2": number; "3": number; "4": number };
+  flammableLitres: number;
+  combustibleLitres: number;
+  flammableOverLimit: boolean;
+  combustibleOverLimit: boolean;
+  overLimit: boolean;
+  containerCount: number;
+}
+
+/** Totals come out rounded to the millilitre: a limit check must not flip on float noise. */
+const roundMl = (litres: number) => Math.round(litres * 1000) / 1000;
+
+/**
+ * Totals per location of flammable (GHS category 1–3) and combustible (category 4) liquid,
+ * each location counting everything inside it (a room includes its cabinets, a building its
+ * rooms), against the limits set on that location. A total exactly at the limit is within it;
+ * only more than the limit is over.
+ */
+export function locationTotals(locations: readonly TotalsLocation[], items: readonly TotalsItem[]): Map<number, LocationTotals> {
+  const own = new Map<number, { byCat: number[]; count: number }>();
+  for (const l of locations) own.set(l.id, { byCat: [0, 0, 0, 0, 0], count: 0 });
+  for (const item of items) {
+    if (item.locationId === null) continue;
+    const slot = own.get(item.locationId);
+    if (!slot) continue;
+    slot.count += 1;
+    if (item.category !== null && item.litres !== null) slot.byCat[item.category] += item.litres;
+  }
+  const parentOf = new Map(locations.map((l) => [l.id, l.parentId]));
+  const rolled = new Map<number, { byCat: number[]; count: number }>();
+  for (const l of locations) rolled.set(l.id, { byCat: [0, 0, 0, 0, 0], count: 0 });
+  for (const [id, slot] of own) {
+    // Walk up the tree; the seen set guards against a cycle in bad data.
+    const seen = new Set<number>();
+    let at: number | null = id;
+    while (at !== null && !seen.has(at) && rolled.has(at)) {
+      seen.add(at);
+      const r = rolled.get(at)!;
+      for (let c = 1; c <= 4; c++) r.byCat[c] += slot.byCat[c];
+      r.count += slot.count;
+      at = parentOf.get(at) ?? null;
+    }
+  }
+  const out = new Map<number, LocationTotals>();
+  for (const l of locations) {
+    const r = rolled.get(l.id)!;
+    const flammableLitres = roundMl(r.byCat[1] + r.byCat[2] + r.byCat[3]);
+    const combustibleLitres = roundMl(r.byCat[4]);
+    const flammableOverLimit = l.flammableLimitLitres !== null && flammableLitres > l.flammableLimitLitres;
+    const combustibleOverLimit = l.combustibleLimitLitres !== null && combustibleLitres > l.combustibleLimitLitres;
+    out.set(l.id, {
+      litresByCategory: { "1": roundMl(r.byCat[1]), "2": roundMl(r.byCat[2]), "3": roundMl(r.byCat[3]), "4": roundMl(r.byCat[4]) },
+      flammableLitres,
+      combustibleLitres,
+      flammableOverLimit,
+      combustibleOverLimit,
+      overLimit: flammableOverLimit || combustibleOverLimit,
+      containerCount: r.count,
+    });
+  }
+  return out;
+}

@@ -1,0 +1,363 @@
+/**
+ * The Stockroom's contract between client and server: chemicals, containers, usage, solution
+ * preparation, locations and the safety review. Inputs validate shape and sane ranges here;
+ * rules that need the database or a domain computation (CAS check digit, formula, stock left,
+ * unit conversion) are checked by the services and answered 422 naming the field.
+ */
+import { z } from "zod";
+import { isoDate, pageQuery } from "./common";
+
+export const CONTAINER_STATUSES = ["sealed", "in_use", "on_hold", "empty", "disposed"] as const;
+export const containerStatus = z.enum(CONTAINER_STATUSES);
+export type ContainerStatusValue = z.infer<typeof containerStatus>;
+export const CONTAINER_STATUS_LABELS: Record<ContainerStatusValue, string> = {
+  sealed: "Sealed",
+  in_use: "In use",
+  on_hold: "On hold",
+  empty: "Empty",
+  disposed: "Disposed",
+};
+
+export const CONTAINER_KINDS = ["bottle", "vial", "solution", "waste"] as const;
+export const containerKind = z.enum(CONTAINER_KINDS);
+export const CONTAINER_KIND_LABELS: Record<(typeof CONTAINER_KINDS)[number], string> = {
+  bottle: "Bottle",
+  vial: "Vial",
+  solution: "Prepared solution",
+  waste: "Waste container",
+};
+
+export const LOCATION_TYPES = ["general", "flammable_cabinet", "corrosives_cabinet", "fridge", "bench", "fume_hood", "waste_area"] as const;
+export const locationType = z.enum(LOCATION_TYPES);
+export const LOCATION_TYPE_LABELS: Record<(typeof LOCATION_TYPES)[number], string> = {
+  general: "General",
+  flammable_cabinet: "Flammable cabinet",
+  corrosives_cabinet: "Corrosives cabinet",
+  fridge: "Fridge",
+  bench: "Bench",
+  fume_hood: "Fume hood",
+  waste_area: "Waste area",
+};
+export const LOCATION_LEVELS = ["building", "room", "cabinet", "shelf"] as const;
+export const locationLevel = z.enum(LOCATION_LEVELS);
+
+/** Units a person may log or receive in (see shared/domain/units.ts for the aliases it reads). */
+export const STOCK_UNITS = ["mg", "g", "kg", "µL", "mL", "L", "mmol", "mol"] as const;
+
+const finite = (what: string) => z.number({ message: `Enter the ${what} as a number` }).refine(Number.isFinite, `The ${what} must be a finite number`);
+const optionalNumber = (what: string, min: number, max: number) =>
+  finite(what).min(min, `The ${what} must be at least ${min}`).max(max, `The ${what} must be at most ${max}`).nullable().optional();
+
+// ---------------------------------------------------------------- chemicals
+
+export const chemicalDto = z.object({
+  id: z.number(),
+  name: z.string(),
+  synonyms: z.array(z.string()),
+  casNumber: z.string(),
+  formula: z.string().nullable(),
+  molarMass: z.number().nullable(),
+  molarMassOverridden: z.boolean(),
+  hazardStatements: z.array(z.string()),
+  pictograms: z.array(z.string()),
+  signalWord: z.enum(["Danger", "Warning"]).nullable(),
+  precautions: z.string(),
+  flashPointC: z.number().nullable(),
+  boilingPointC: z.number().nullable(),
+  densityGPerMl: z.number().nullable(),
+  ghsFlammableCategory: z.union([z.literal(1), z.literal(2), z.literal(3), z.literal(4)]).nullable(),
+  nfpaClass: z.enum(["IA", "IB", "IC", "II", "IIIA", "IIIB"]).nullable(),
+  carcinogen: z.boolean(),
+  acuteToxic: z.boolean(),
+  halogenated: z.boolean(),
+  storageGroup: z.string(),
+  reorderPoint: z.number().nullable(),
+  reorderUnit: z.string().nullable(),
+  unitCostCents: z.number().nullable(),
+  costUnit: z.string().nullable(),
+  onHoldReason: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type ChemicalDto = z.infer<typeof chemicalDto>;
+
+export const CHEMICAL_SORTS = ["name", "casNumber", "flashPointC", "createdAt"] as const;
+export const chemicalListQuery = pageQuery.extend({
+  q: z.string().trim().max(100).optional(),
+  sort: z.enum(CHEMICAL_SORTS).default("name"),
+  dir: z.enum(["asc", "desc"]).default("asc"),
+  onHold: z.enum(["true", "false"]).optional(),
+});
+export type ChemicalListQuery = z.infer<typeof chemicalListQuery>;
+
+export const chemicalInput = z.object({
+  name: z.string({ message: "Enter the chemical's name" }).trim().min(1, "Enter the chemical's name").max(200),
+  synonyms: z.array(z.string().trim().min(1).max(200)).max(20).optional(),
+  // Shape only: the CAS check digit is a rule, checked by the service (422).
+  casNumber: z.string({ message: "Enter the CAS number" }).trim().min(1, "Enter the CAS number").max(20),
+  formula: z.string().trim().max(200).nullable().optional(),
+  molarMass: optionalNumber("molar mass", 0.5, 1e6),
+  hazardStatements: z.array(z.string().trim().max(30)).max(60).optional(),
+  signalWord: z.enum(["Danger", "Warning"]).nullable().optional(),
+  precautions: z.string().max(4000).optional(),
+  flashPointC: optionalNumber("flash point", -273, 1000),
+  boilingPointC: optionalNumber("boiling point", -273, 6000),
+  densityGPerMl: optionalNumber("density", 0.0001, 25),
+  carcinogen: z.boolean().optional(),
+  acuteToxic: z.boolean().optional(),
+  storageGroup: z.string().max(120).optional(),
+  reorderPoint: optionalNumber("reorder point", 0, 1e9),
+  reorderUnit: z.enum(STOCK_UNITS).nullable().optional(),
+  unitCostCents: z.number().int("Give the unit cost in whole cents").min(0).max(1e9).nullable().optional(),
+  costUnit: z.enum(STOCK_UNITS).nullable().optional(),
+});
+export type ChemicalInput = z.infer<typeof chemicalInput>;
+export const chemicalUpdate = chemicalInput.partial();
+export type ChemicalUpdate = z.infer<typeof chemicalUpdate>;
+
+export const holdInput = z.object({
+  reason: z.string({ message: "Say why it is on hold" }).trim().min(3, "Say why it is on hold (at least 3 characters)").max(1000),
+});
+export type HoldInput = z.infer<typeof holdInput>;
+
+// ---------------------------------------------------------------- containers
+
+export const containerDto = z.object({
+  id: z.number(),
+  chemicalId: z.number(),
+  chemicalName: z.string(),
+  casNumber: z.string(),
+  kind: containerKind,
+  quantity: z.number(),
+  initialQuantity: z.number(),
+  unit: z.string(),
+  locationId: z.number().nullable(),
+  locationName: z.string().nullable(),
+  status: containerStatus,
+  openedAt: z.string().nullable(),
+  expiresAt: z.string().nullable(),
+  retestAt: z.string().nullable(),
+  groupId: z.number().nullable(),
+  labelToken: z.string(),
+  supplier: z.string(),
+  lot: z.string(),
+  priceCents: z.number().nullable(),
+  concentrationMolPerL: z.number().nullable(),
+  holdReason: z.string().nullable(),
+  /** The chemical's hold, which applies to every container of it. */
+  chemicalHoldReason: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type ContainerDto = z.infer<typeof containerDto>;
+
+export const CONTAINER_SORTS = ["id", "chemical", "quantity", "status", "expiresAt", "location", "lot"] as const;
+export const containerListQuery = pageQuery.extend({
+  chemicalId: z.coerce.number().int().positive().optional(),
+  locationId: z.coerce.number().int().positive().optional(),
+  /** One status or several separated by commas. */
+  status: z
+    .string()
+    .optional()
+    .transform((s) => (s ? s.split(",").map((x) => x.trim()).filter(Boolean) : undefined))
+    .pipe(z.array(containerStatus).optional()),
+  kind: containerKind.optional(),
+  /** Chemical name, synonym or CAS number; a lot number or label token exactly. */
+  q: z.string().trim().max(100).optional(),
+  /** Include containers in the location's sub-locations too. */
+  within: z.enum(["true", "false"]).optional(),
+  sort: z.enum(CONTAINER_SORTS).default("chemical"),
+  dir: z.enum(["asc", "desc"]).default("asc"),
+});
+export type ContainerListQuery = z.infer<typeof containerListQuery>;
+
+export const usageInput = z.object({
+  // Type only: zero, negative and absurd amounts are rules (422), checked with the stock left.
+  amount: z.number({ message: "Enter the amount as a number" }),
+  unit: z.string({ message: "Choose a unit" }).trim().min(1, "Choose a unit").max(10),
+  bookingId: z.number().int().positive().nullable().optional(),
+  note: z.string().max(500).optional(),
+});
+export type UsageInput = z.infer<typeof usageInput>;
+
+export const receiveInput = z.object({
+  chemicalId: z.number({ message: "Choose the chemical" }).int().positive(),
+  count: z.number({ message: "Enter how many containers came" }).int("Whole containers only").min(1, "At least one container").max(100, "At most 100 containers per delivery"),
+  quantity: finite("size of each container").positive("The size must be above zero").max(1e9),
+  unit: z.enum(STOCK_UNITS, { message: "Choose a unit" }),
+  kind: z.enum(["bottle", "vial", "waste"]).default("bottle"),
+  locationId: z.number().int().positive().nullable().optional(),
+  supplier: z.string().trim().max(200).default(""),
+  lot: z.string().trim().max(200).default(""),
+  priceCents: z.number().int("Give the price in whole cents").min(0).max(1e9).nullable().optional(),
+  expiresAt: isoDate.nullable().optional(),
+  retestAt: isoDate.nullable().optional(),
+  groupId: z.number().int().positive().nullable().optional(),
+});
+export type ReceiveInput = z.infer<typeof receiveInput>;
+
+export const moveInput = z.object({
+  locationId: z.number({ message: "Choose where it goes" }).int().positive(),
+  note: z.string().max(500).optional(),
+});
+export type MoveInput = z.infer<typeof moveInput>;
+
+export const disposeInput = z.object({ reason: z.string().trim().max(1000).optional() });
+export type DisposeInput = z.infer<typeof disposeInput>;
+
+export const movementDto = z.object({
+  id: z.number(),
+  kind: z.string(),
+  fromLocationId: z.number().nullable(),
+  fromLocationName: z.string().nullable(),
+  toLocationId: z.number().nullable(),
+  toLocationName: z.string().nullable(),
+  userName: z.string().nullable(),
+  note: z.string(),
+  at: z.string(),
+});
+export type MovementDto = z.infer<typeof movementDto>;
+
+export const usageDto = z.object({
+  id: z.number(),
+  amount: z.number(),
+  unit: z.string(),
+  amountInContainerUnit: z.number(),
+  costCents: z.number().nullable(),
+  bookingId: z.number().nullable(),
+  accountId: z.number().nullable(),
+  userName: z.string().nullable(),
+  note: z.string(),
+  at: z.string(),
+});
+export type UsageDto = z.infer<typeof usageDto>;
+
+export const lineageDto = z.object({
+  containerId: z.number(),
+  chemicalName: z.string(),
+  role: z.enum(["solute", "solvent"]),
+  amount: z.number(),
+  unit: z.string(),
+});
+export type LineageDto = z.infer<typeof lineageDto>;
+
+export const containerDetailDto = z.object({
+  container: containerDto,
+  chemical: chemicalDto,
+  locationPath: z.string().nullable(),
+  movements: z.array(movementDto),
+  usages: z.array(usageDto),
+  /** Parents this container was prepared from. */
+  parents: z.array(lineageDto),
+  /** Solutions prepared from this container. */
+  children: z.array(lineageDto),
+});
+export type ContainerDetailDto = z.infer<typeof containerDetailDto>;
+
+// ---------------------------------------------------------------- solutions
+
+export const solutionPlanInput = z.object({
+  soluteChemicalId: z.number({ message: "Choose the solute" }).int().positive(),
+  concentrationMolPerL: finite("concentration").positive("The concentration must be above zero").max(100, "The concentration must be at most 100 mol/L"),
+  volumeMl: finite("volume").positive("The volume must be above zero").max(1e6, "The volume must be at most 1 000 000 mL"),
+  purityPercent: finite("purity").gt(0, "The purity must be above 0 %").max(100, "The purity must be at most 100 %").optional(),
+});
+export type SolutionPlanInput = z.infer<typeof solutionPlanInput>;
+
+export const solutionPlanDto = z.object({
+  soluteChemicalId: z.number(),
+  molarMassGPerMol: z.number(),
+  soluteMassG: z.number(),
+  pureSoluteMassG: z.number(),
+  soluteAmountMol: z.number(),
+  finalVolumeMl: z.number(),
+  solventVolumeMl: z.number(),
+  solventVolumeApproximate: z.boolean(),
+  purityPercent: z.number(),
+});
+export type SolutionPlanDto = z.infer<typeof solutionPlanDto>;
+
+export const prepareSolutionInput = z.object({
+  soluteContainerId: z.number({ message: "Choose the solute container" }).int().positive(),
+  solventContainerId: z.number({ message: "Choose the solvent container" }).int().positive(),
+  concentrationMolPerL: solutionPlanInput.shape.concentrationMolPerL,
+  volumeMl: solutionPlanInput.shape.volumeMl,
+  purityPercent: solutionPlanInput.shape.purityPercent,
+  /** What the balance showed; the planned mass when left out. */
+  massWeighedG: finite("weighed mass").positive("The weighed mass must be above zero").max(1e6).optional(),
+  locationId: z.number().int().positive().nullable().optional(),
+  expiresAt: isoDate.nullable().optional(),
+  label: z.string().trim().max(200).optional(),
+  bookingId: z.number().int().positive().nullable().optional(),
+});
+export type PrepareSolutionInput = z.infer<typeof prepareSolutionInput>;
+
+// ---------------------------------------------------------------- locations
+
+export const locationDto = z.object({
+  id: z.number(),
+  parentId: z.number().nullable(),
+  level: locationLevel,
+  name: z.string(),
+  path: z.string(),
+  type: locationType,
+  flammableLimitLitres: z.number().nullable(),
+  combustibleLimitLitres: z.number().nullable(),
+  limitNote: z.string(),
+});
+export type LocationDto = z.infer<typeof locationDto>;
+
+export const locationInput = z.object({
+  parentId: z.number().int().positive().nullable().optional(),
+  level: locationLevel,
+  name: z.string({ message: "Enter the location's name" }).trim().min(1, "Enter the location's name").max(200),
+  type: locationType.default("general"),
+  flammableLimitLitres: optionalNumber("flammable-liquid limit", 0, 1e6),
+  combustibleLimitLitres: optionalNumber("combustible-liquid limit", 0, 1e6),
+  limitNote: z.string().max(1000).default(""),
+});
+export type LocationInput = z.infer<typeof locationInput>;
+export const locationUpdate = locationInput.partial();
+export type LocationUpdate = z.infer<typeof locationUpdate>;
+
+// ---------------------------------------------------------------- safety review
+
+export const locationTotalsDto = z.object({
+  id: z.number(),
+  parentId: z.number().nullable(),
+  name: z.string(),
+  path: z.string(),
+  level: locationLevel,
+  type: locationType,
+  /** Litres by GHS flammable-liquid category, this location and everything inside it. */
+  litresByCategory: z.object({ "1": z.number(), "2": z.number(), "3": z.number(), "4": z.number() }),
+  /** Categories 1–3 together: what flammable-liquid limits count. */
+  flammableLitres: z.number(),
+  /** Category 4. */
+  combustibleLitres: z.number(),
+  flammableLimitLitres: z.number().nullable(),
+  combustibleLimitLitres: z.number().nullable(),
+  limitNote: z.string(),
+  flammableOverLimit: z.boolean(),
+  combustibleOverLimit: z.boolean(),
+  overLimit: z.boolean(),
+  containerCount: z.number(),
+});
+export type LocationTotalsDto = z.infer<typeof locationTotalsDto>;
+
+export const sdsDto = z.object({
+  id: z.number(),
+  chemicalId: z.number(),
+  chemicalName: z.string().optional(),
+  originalName: z.string(),
+  sizeBytes: z.number(),
+  supplier: z.string(),
+  reviewedOn: z.string(),
+  uploadedAt: z.string(),
+  /** The review period has passed since reviewedOn. */
+  due: z.boolean(),
+});
+export type SdsDto = z.infer<typeof sdsDto>;
+
+export const sdsUploadFields = z.object({
+  reviewedOn: isoDate,
+  supplier: z.string().trim().max(200).default(""),
+});

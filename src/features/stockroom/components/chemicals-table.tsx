@@ -1,0 +1,127 @@
+/** The chemicals table: name, CAS, formula and the hazard classes Phasebook computes; sorted and paged on the server. */
+import { useEffect, useState } from "react";
+import { Link } from "react-router-dom";
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { CHEMICAL_SORTS, type ChemicalDto } from "@shared/schemas/stock";
+import { paths } from "@/config/paths";
+import { describeError } from "@/lib/forms";
+import { Alert } from "@/components/ui/alert";
+import { Badge } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
+import { Input } from "@/components/ui/input";
+import { SortableTh, TBody, THead, Table, TableMessage, Td, Th, Tr } from "@/components/ui/table";
+import { useChemicals } from "../api/get-chemicals";
+
+const PAGE = 50;
+const col = createColumnHelper<ChemicalDto>();
+const SORTABLE = new Set<string>(CHEMICAL_SORTS);
+
+const columns = [
+  col.accessor("name", { header: "Name", cell: (c) => <Link to={paths.chemical.getHref(c.row.original.id)} className="font-medium">{c.getValue()}</Link> }),
+  col.accessor("casNumber", { header: "CAS", cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
+  col.accessor("formula", { header: "Formula", cell: (c) => <span className="font-mono text-xs">{c.getValue() ?? "–"}</span> }),
+  col.accessor("molarMass", { header: "M (g/mol)", cell: (c) => <span className="font-mono text-xs">{c.getValue()?.toFixed(2) ?? "–"}</span> }),
+  col.accessor("flashPointC", { header: "Flash point", cell: (c) => (c.getValue() === null ? "–" : `${c.getValue()} °C`) }),
+  col.display({
+    id: "classes",
+    header: "Flammability",
+    cell: (c) =>
+      c.row.original.ghsFlammableCategory ? `GHS cat. ${c.row.original.ghsFlammableCategory} · NFPA ${c.row.original.nfpaClass}` : "Not a flammable liquid",
+  }),
+  col.display({
+    id: "flags",
+    header: "Flags",
+    cell: (c) => (
+      <span className="flex flex-wrap gap-1">
+        {c.row.original.carcinogen && <Badge tone="danger">Carcinogen</Badge>}
+        {c.row.original.acuteToxic && <Badge tone="danger">Acutely toxic</Badge>}
+        {c.row.original.halogenated && <Badge tone="organic">Halogenated</Badge>}
+        {c.row.original.onHoldReason && <Badge tone="warning">On hold</Badge>}
+      </span>
+    ),
+  }),
+];
+
+export function ChemicalsTable() {
+  const [text, setText] = useState("");
+  const [q, setQ] = useState("");
+  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
+  const [page, setPage] = useState(0);
+  useEffect(() => {
+    const t = setTimeout(() => {
+      setQ(text.trim());
+      setPage(0);
+    }, 250);
+    return () => clearTimeout(t);
+  }, [text]);
+  const sort = sorting[0];
+  const chemicals = useChemicals({
+    q: q || undefined,
+    sort: (sort && SORTABLE.has(sort.id) ? sort.id : "name") as (typeof CHEMICAL_SORTS)[number],
+    dir: sort?.desc ? "desc" : "asc",
+    limit: PAGE,
+    offset: page * PAGE,
+  });
+  const total = chemicals.data?.total ?? 0;
+  const table = useReactTable({
+    data: chemicals.data?.items ?? [],
+    columns,
+    state: { sorting },
+    onSortingChange: (u) => {
+      setSorting(u);
+      setPage(0);
+    },
+    manualSorting: true,
+    manualPagination: true,
+    enableSortingRemoval: false,
+    rowCount: total,
+    getCoreRowModel: getCoreRowModel(),
+  });
+
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="flex flex-wrap items-end gap-2">
+        <Input label="Search" placeholder="Name, synonym, CAS number or formula" value={text} onChange={(e) => setText(e.target.value)} fieldClassName="w-72" />
+        <a href="/api/chemicals/export.csv" className="ml-auto text-sm" download>
+          Export CSV
+        </a>
+      </div>
+      {chemicals.isError && <Alert tone="danger">{describeError(chemicals.error)}</Alert>}
+      <Table caption="Chemicals">
+        <THead>
+          {table.getHeaderGroups().map((hg) => (
+            <tr key={hg.id}>
+              {hg.headers.map((h) =>
+                SORTABLE.has(h.column.id) ? (
+                  <SortableTh key={h.id} direction={h.column.getIsSorted()} onToggle={h.column.getToggleSortingHandler()}>
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                  </SortableTh>
+                ) : (
+                  <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
+                ),
+              )}
+            </tr>
+          ))}
+        </THead>
+        <TBody>
+          {chemicals.isPending && <TableMessage colSpan={columns.length}>Loading chemicals…</TableMessage>}
+          {chemicals.data?.items.length === 0 && <TableMessage colSpan={columns.length}>No chemical matches.</TableMessage>}
+          {table.getRowModel().rows.map((row) => (
+            <Tr key={row.id}>
+              {row.getVisibleCells().map((cell) => (
+                <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
+              ))}
+            </Tr>
+          ))}
+        </TBody>
+      </Table>
+      <div className="flex items-center justify-between text-xs text-grey-600">
+        <span>{total === 0 ? "No chemicals" : `${page * PAGE + 1}–${Math.min(total, (page + 1) * PAGE)} of ${total}`}</span>
+        <div className="flex gap-2">
+          <Button size="sm" disabled={page === 0} onClick={() => setPage((p) => p - 1)}>Previous</Button>
+          <Button size="sm" disabled={(page + 1) * PAGE >= total} onClick={() => setPage((p) => p + 1)}>Next</Button>
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,161 @@
+/**
+ * The Stockroom's container table: sorting, filtering and paging happen on the server (the
+ * facility may hold 20 000 containers), TanStack Table only lays out the page it gets.
+ */
+import { useEffect, useMemo, useState } from "react";
+import { Link } from "react-router-dom";
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { CONTAINER_SORTS, CONTAINER_STATUSES, CONTAINER_STATUS_LABELS, type ContainerDto } from "@shared/schemas/stock";
+import { paths } from "@/config/paths";
+import { describeError } from "@/lib/forms";
+import { formatDate } from "@/lib/format";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { Input, Select } from "@/components/ui/input";
+import { SortableTh, TBody, THead, Table, TableMessage, Td, Th, Tr } from "@/components/ui/table";
+import { useContainers } from "../api/get-containers";
+import { useLocations } from "../api/get-locations";
+import { StatusBadge, formatQuantity } from "./stock-format";
+
+const PAGE = 50;
+const col = createColumnHelper<ContainerDto>();
+const SORTABLE = new Set<string>(CONTAINER_SORTS);
+
+const columns = [
+  col.accessor("id", { header: "No.", cell: (c) => <Link to={paths.container.getHref(c.getValue())} className="font-mono text-xs">#{c.getValue()}</Link> }),
+  col.accessor("chemicalName", {
+    id: "chemical",
+    header: "Chemical",
+    cell: (c) => (
+      <span>
+        <Link to={paths.container.getHref(c.row.original.id)} className="font-medium text-grey-900">{c.getValue()}</Link>
+        <span className="ml-1 font-mono text-xs text-grey-500">{c.row.original.casNumber}</span>
+        {c.row.original.kind === "solution" && <span className="block text-xs text-grey-600">{c.row.original.lot}</span>}
+      </span>
+    ),
+  }),
+  col.accessor("quantity", { header: "Left", cell: (c) => <span className="font-mono text-xs">{formatQuantity(c.getValue(), c.row.original.unit)}</span> }),
+  col.accessor("status", { header: "Status", cell: (c) => <StatusBadge status={c.getValue()} chemicalHold={c.row.original.chemicalHoldReason} /> }),
+  col.accessor("locationName", { id: "location", header: "Location", cell: (c) => c.getValue() ?? <span className="text-warning-800">No location</span> }),
+  col.accessor("expiresAt", { header: "Expires", cell: (c) => (c.getValue() ? formatDate(c.getValue()!) : "–") }),
+  col.accessor("lot", { header: "Lot", cell: (c) => (c.row.original.kind === "solution" ? "–" : <span className="text-xs">{c.getValue()}</span>) }),
+];
+
+export function ContainersTable({ chemicalId }: { chemicalId?: number }) {
+  const [text, setText] = useState("");
+  const [q, setQ] = useState("");
+  const [status, setStatus] = useState("sealed,in_use,on_hold");
+  const [locationId, setLocationId] = useState("");
+  const [sorting, setSorting] = useState<SortingState>([{ id: "chemical", desc: false }]);
+  const [page, setPage] = useState(0);
+  const locations = useLocations();
+
+  // Typing settles for a moment before the server is asked, so each key press is not a request.
+  useEffect(() => {
+    const t = setTimeout(() => {
+      setQ(text.trim());
+      setPage(0);
+    }, 250);
+    return () => clearTimeout(t);
+  }, [text]);
+
+  const sort = sorting[0];
+  const query = useMemo(
+    () => ({
+      q: q || undefined,
+      status: status || undefined,
+      locationId: locationId ? Number(locationId) : undefined,
+      within: locationId ? ("true" as const) : undefined,
+      chemicalId,
+      sort: (sort && SORTABLE.has(sort.id) ? sort.id : "chemical") as (typeof CONTAINER_SORTS)[number],
+      dir: sort?.desc ? ("desc" as const) : ("asc" as const),
+      limit: PAGE,
+      offset: page * PAGE,
+    }),
+    [q, status, locationId, chemicalId, sort, page],
+  );
+  const containers = useContainers(query);
+  const total = containers.data?.total ?? 0;
+
+  const table = useReactTable({
+    data: containers.data?.items ?? [],
+    columns,
+    state: { sorting },
+    onSortingChange: (u) => {
+      setSorting(u);
+      setPage(0);
+    },
+    manualSorting: true,
+    manualPagination: true,
+    manualFiltering: true,
+    enableSortingRemoval: false,
+    rowCount: total,
+    getCoreRowModel: getCoreRowModel(),
+  });
+
+  const exportHref = `/api/containers/export.csv?${new URLSearchParams(
+    Object.entries({ q, status, locationId, within: locationId ? "true" : "", chemicalId: chemicalId ? String(chemicalId) : "" }).filter(([, v]) => v) as [string, string][],
+  )}`;
+
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="flex flex-wrap items-end gap-2">
+        <Input label="Search" placeholder="Chemical, CAS number, lot or label" value={text} onChange={(e) => setText(e.target.value)} fieldClassName="w-72" data-testid="container-search" />
+        <Select label="Status" value={status} onChange={(e) => { setStatus(e.target.value); setPage(0); }} fieldClassName="w-48">
+          <option value="sealed,in_use,on_hold">In stock (sealed, in use, on hold)</option>
+          <option value="">Any status</option>
+          {CONTAINER_STATUSES.map((s) => (
+            <option key={s} value={s}>{CONTAINER_STATUS_LABELS[s]}</option>
+          ))}
+        </Select>
+        <Select label="Location" value={locationId} onChange={(e) => { setLocationId(e.target.value); setPage(0); }} fieldClassName="w-72">
+          <option value="">Anywhere</option>
+          {locations.data?.map((l) => (
+            <option key={l.id} value={l.id}>{l.path}</option>
+          ))}
+        </Select>
+        <a href={exportHref} className="ml-auto text-sm" download>
+          Export CSV
+        </a>
+      </div>
+      {containers.isError && <Alert tone="danger">{describeError(containers.error)}</Alert>}
+      <Table caption="Containers">
+        <THead>
+          {table.getHeaderGroups().map((hg) => (
+            <tr key={hg.id}>
+              {hg.headers.map((h) =>
+                SORTABLE.has(h.column.id) ? (
+                  <SortableTh key={h.id} direction={h.column.getIsSorted()} onToggle={h.column.getToggleSortingHandler()}>
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                  </SortableTh>
+                ) : (
+                  <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
+                ),
+              )}
+            </tr>
+          ))}
+        </THead>
+        <TBody>
+          {containers.isPending && <TableMessage colSpan={columns.length}>Loading containers…</TableMessage>}
+          {containers.data?.items.length === 0 && <TableMessage colSpan={columns.length}>No container matches these filters.</TableMessage>}
+          {table.getRowModel().rows.map((row) => (
+            <Tr key={row.id} data-testid={`container-row-${row.original.id}`}>
+              {row.getVisibleCells().map((cell) => (
+                <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
+              ))}
+            </Tr>
+          ))}
+        </TBody>
+      </Table>
+      <div className="flex items-center justify-between text-xs text-grey-600">
+        <span aria-live="polite">
+          {total === 0 ? "No containers" : `${page * PAGE + 1}–${Math.min(total, (page + 1) * PAGE)} of ${total}`}
+        </span>
+        <div className="flex gap-2">
+          <Button size="sm" disabled={page === 0} onClick={() => setPage((p) => p - 1)}>Previous</Button>
+          <Button size="sm" disabled={(page + 1) * PAGE >= total} onClick={() => setPage((p) => p + 1)}>Next</Button>
+        </div>
+      </div>
+    </div>
+  );
+}
