@@ -6,10 +6,13 @@ import session from "express-session";
 import type { DataSource } from "typeorm";
 import { SessionRow } from "../entities";
 
+const TOUCH_EVERY_MS = 5 * 60 * 1000;
+
 type Cb<T = void> = (err?: unknown, value?: T) => void;
 
 export class DbSessionStore extends session.Store {
   private sweeper?: NodeJS.Timeout;
+  private readonly lastTouch = new Map<string, number>();
 
   constructor(
     private readonly ds: DataSource,
@@ -41,6 +44,12 @@ export class DbSessionStore extends session.Store {
   }
 
   touch(sid: string, sess: session.SessionData, cb?: Cb): void {
+    // Rolling sessions touch on every request; writing the new expiry at most every few minutes
+    // keeps reads from turning into writes. The cookie's lifetime (hours) dwarfs the delay.
+    const now = Date.now();
+    if (now - (this.lastTouch.get(sid) ?? 0) < TOUCH_EVERY_MS) return cb?.();
+    this.lastTouch.set(sid, now);
+    if (this.lastTouch.size > 10_000) this.lastTouch.clear();
     this.repo
       .update({ sid }, { expiresAtMs: this.expiry(sess) })
       .then(() => cb?.())
