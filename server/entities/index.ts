@@ -14,16 +14,21 @@ import { PasswordReset } from "./password-reset.entity";
 import { ResearchGroup } from "./research-group.entity";
 import { SessionRow } from "./session.entity";
 import { Setting } from "./setting.entity";
+import { Setup } from "./setup.entity";
+import { SetupInstrument } from "./setup-instrument.entity";
 import { TrainingRecord } from "./training-record.entity";
+import { TrainingRequest } from "./training-request.entity";
 import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
 
 export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+  Setup, SetupInstrument, TrainingRequest,
 };
 
 export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+  Setup, SetupInstrument, TrainingRequest,
 ];

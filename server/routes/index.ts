@@ -7,6 +7,12 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
+import { createAccountsRouter } from "./accounts.router";
+import { createBookingsRouter } from "./bookings.router";
+import { createCalendarRouter } from "./calendar.router";
+import { createReportsRouter } from "./reports.router";
+import { createSetupsRouter } from "./setups.router";
+import { createTrainingRouter } from "./training.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -17,6 +23,12 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/departments", router: createDepartmentsRouter(ctx) },
     { path: "/groups", router: createGroupsRouter(ctx) },
     { path: "/instruments", router: createInstrumentsRouter(ctx) },
+    { path: "/bookings", router: createBookingsRouter(ctx) },
+    { path: "/setups", router: createSetupsRouter(ctx) },
+    { path: "/training", router: createTrainingRouter(ctx) },
+    { path: "/calendar", router: createCalendarRouter(ctx) },
+    { path: "/accounts", router: createAccountsRouter(ctx) },
+    { path: "/reports", router: createReportsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
   ];
