@@ -49,7 +49,10 @@ export function bookingsCalendar(opts: { name: string; host: string; publicUrl: 
       url: `${opts.publicUrl}/bookings`,
     });
   }
-  return cal.toString();
+  // RFC 5545 §3.1: every content line ends in CRLF, the last one (END:VCALENDAR) included;
+  // ical-generator leaves the last one bare.
+  const text = cal.toString();
+  return text.endsWith("\r\n") ? text : `${text}\r\n`;
 }
 
 async function calendarBookings(ds: DataSource, where: string, args: unknown[]): Promise<CalendarBooking[]> {

@@ -13,7 +13,10 @@ export const OFFICE_HOURS = {
   fri: [{ from: "08:00", to: "18:00" }],
 };
 
-export async function makeInstrument(ds: DataSource, over: Partial<Omit<Instrument, "bookableHours">> & { bookableHours?: object } = {}): Promise<Instrument> {
+type InstrumentFields = Omit<Instrument, "bookableHours" | "location">;
+type AccountFields = Omit<Account, "department" | "owner">;
+
+export async function makeInstrument(ds: DataSource, over: Partial<InstrumentFields> & { bookableHours?: object } = {}): Promise<Instrument> {
   seq += 1;
   const { bookableHours, ...rest } = over;
   const res = await ds.getRepository(Instrument).insert({
@@ -34,7 +37,7 @@ export async function makeInstrument(ds: DataSource, over: Partial<Omit<Instrume
   return (await ds.getRepository(Instrument).findOneBy({ id: res.identifiers[0].id as number }))!;
 }
 
-export async function makeAccount(ds: DataSource, members: number[], over: Partial<Account> = {}): Promise<Account> {
+export async function makeAccount(ds: DataSource, members: number[], over: Partial<AccountFields> = {}): Promise<Account> {
   seq += 1;
   const res = await ds.getRepository(Account).insert({
     code: `TEST-${seq}-${Date.now()}`,
