@@ -13,11 +13,12 @@ import { createCalendarRouter } from "./calendar.router";
 import { createReportsRouter } from "./reports.router";
 import { createSetupsRouter } from "./setups.router";
 import { createTrainingRouter } from "./training.router";
-import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
+import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
     { path: "/health", router: createHealthRouter(ctx) },
+    { path: "/facility", router: createFacilityRouter(ctx) },
     { path: "/dashboard", router: createDashboardRouter(ctx) },
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },
