@@ -10,12 +10,13 @@ export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager
   const soon = new Date(now.getTime() + 30 * 24 * 3600 * 1000).toISOString();
   const today = now.toISOString().slice(0, 10);
   const one = async (sql: string, args: unknown[] = []) => Number((await ctx.ds.query(sql, args))[0]?.n ?? 0);
-  const nextBookings: { id: number; status: string; start: string; end: string; instruments: string }[] = await ctx.ds.query(
+  const next: { id: number; status: string; start: string; end: string; instruments: string | null }[] = await ctx.ds.query(
     `SELECT b.id, b.status, b.startsAt AS start, b.endsAt AS "end",
-            (SELECT group_concat(i.name, ' + ') FROM booking_instruments bi JOIN instruments i ON i.id = bi.instrumentId WHERE bi.bookingId = b.id) AS instruments
+            (SELECT group_concat(i.name, '|') FROM booking_instruments bi JOIN instruments i ON i.id = bi.instrumentId WHERE bi.bookingId = b.id) AS instruments
      FROM bookings b WHERE b.userId = ? AND b.status IN ('requested','confirmed','in_progress') AND b.endMs > ? ORDER BY b.startMs LIMIT 5`,
     [user.id, now.getTime()],
   );
+  const nextBookings = next.map(({ instruments, ...b }) => ({ ...b, instrumentNames: (instruments ?? "").split("|").filter(Boolean).sort() }));
   const out: Record<string, unknown> = { member: { nextBookings } };
   if (sections.manager) {
     out.manager = {

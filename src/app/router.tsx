@@ -61,12 +61,15 @@ export function createAppRouter() {
         screen(paths.schedule.path, () => import("./routes/schedule").then((m) => ({ Component: m.ScheduleRoute }))),
         screen(paths.myBookings.path, () => import("./routes/my-bookings").then((m) => ({ Component: m.MyBookingsRoute }))),
         screen(paths.instruments.path, () => import("./routes/instruments").then((m) => ({ Component: m.InstrumentsRoute }))),
+        screen(paths.instrument.path, () => import("./routes/instrument").then((m) => ({ Component: m.InstrumentRoute }))),
         screen(paths.stockroom.path, () => import("./routes/stockroom").then((m) => ({ Component: m.StockroomRoute }))),
         screen(paths.scan.path, () => import("./routes/scan").then((m) => ({ Component: m.ScanRoute }))),
         screen(paths.scanToken.path, () => import("./routes/scan-token").then((m) => ({ Component: m.ScanTokenRoute }))),
         screen(paths.profile.path, () => import("./routes/profile").then((m) => ({ Component: m.ProfileRoute }))),
         restricted(AREA_ROLES.training, [
           screen(paths.training.path, () => import("./routes/training").then((m) => ({ Component: m.TrainingRoute }))),
+          screen(paths.approvals.path, () => import("./routes/approvals").then((m) => ({ Component: m.ApprovalsRoute }))),
+          screen(paths.utilisation.path, () => import("./routes/utilisation").then((m) => ({ Component: m.UtilisationRoute }))),
         ]),
         restricted(AREA_ROLES.recharge, [
           screen(paths.recharge.path, () => import("./routes/recharge").then((m) => ({ Component: m.RechargeRoute }))),

@@ -140,7 +140,7 @@ describe("GET /api/dashboard", () => {
     const b = await memberApi.post("/api/bookings", { instrumentIds: [micro.id], start: "2026-12-03T10:00:00-04:00", end: "2026-12-03T11:00:00-04:00", accountId });
     expect(b.status).toBe(201);
     const mine = (await memberApi.get("/api/dashboard")).body.member.nextBookings;
-    expect(mine[0]).toMatchObject({ id: b.body.booking.id, status: "requested", instruments: micro.name });
+    expect(mine[0]).toMatchObject({ id: b.body.booking.id, status: "requested", instrumentNames: [micro.name] });
     expect((await managerApi.get("/api/dashboard")).body.manager.pendingApprovals).toBe(before + 1);
   });
 });
