@@ -139,7 +139,9 @@ export function createBookingService(deps: BookingServiceDeps) {
   async function holdersNear(em: EntityManager, instrumentIds: number[], fromMs: number, toMs: number, excludeId?: number) {
     const marks = instrumentIds.map(() => "?").join(",");
     return (await em.query(
-      `SELECT b.id, b.startMs AS start, b.endMs AS end, bi.instrumentId FROM booking_instruments bi JOIN bookings b ON b.id = bi.bookingId
+      // CROSS JOIN keeps bookings as the outer loop, so SQLite walks the narrow startMs range of
+      // the time index instead of every booking the instrument ever had.
+      `SELECT b.id, b.startMs AS start, b.endMs AS end, bi.instrumentId FROM bookings b CROSS JOIN booking_instruments bi ON bi.bookingId = b.id
        WHERE bi.instrumentId IN (${marks}) AND ${HOLDING} AND b.startMs < ? AND b.endMs > ? AND b.startMs > ? AND b.id <> ?`,
       [...instrumentIds, toMs, fromMs, fromMs - MAX_BOOKING_MS, excludeId ?? -1],
     )) as { id: number; start: number; end: number; instrumentId: number }[];
@@ -517,7 +519,13 @@ export function createBookingService(deps: BookingServiceDeps) {
         args.push(new Date(q.to).getTime());
       }
       if (q.instrumentId) {
-        where.push("b.id IN (SELECT bookingId FROM booking_instruments WHERE instrumentId = ?)");
+        // With a window, walk the narrow startMs range and look each booking's instrument up by
+        // key, rather than listing every booking the instrument ever had.
+        where.push(
+          q.from && q.to
+            ? "EXISTS (SELECT 1 FROM booking_instruments bi WHERE bi.bookingId = b.id AND bi.instrumentId = ?)"
+            : "b.id IN (SELECT bookingId FROM booking_instruments WHERE instrumentId = ?)",
+        );
         args.push(q.instrumentId);
       }
       if (q.status?.length) {
