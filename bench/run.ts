@@ -65,13 +65,14 @@ function createRequests(ctx: ScenarioContext): autocannon.Request[] {
       setupRequest: (req) => {
         const k = createCount++;
         const instrumentId = ctx.ports.instrumentIds[k % ctx.ports.instrumentIds.length];
-        const start = base + Math.floor(k / ctx.ports.instrumentIds.length) * 3_600_000;
+        // Two hours apart and one hour long: the 30-minute cleaning buffer of the cells always fits.
+        const start = base + Math.floor(k / ctx.ports.instrumentIds.length) * 2 * 3_600_000;
         return {
           ...req,
           body: JSON.stringify({
             instrumentIds: [instrumentId],
             start: new Date(start).toISOString(),
-            end: new Date(start + 50 * 60_000).toISOString(),
+            end: new Date(start + 60 * 60_000).toISOString(),
             accountId: ctx.ports.accountId,
             purpose: "bench",
           }),
