@@ -9,6 +9,8 @@ import { createBookingService } from "./services/booking.service";
 import { createInstrumentService } from "./services/instrument.service";
 import { createSetupService } from "./services/setup.service";
 import { createTrainingService } from "./services/training.service";
+import { createLabelService } from "./services/label.service";
+import { createScanActionService } from "./services/scan-action.service";
 
 export interface AppDeps {
   ds: DataSource;
@@ -36,6 +38,8 @@ export function createServices(deps: AppDeps) {
     instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
     setups: createSetupService({ ds: deps.ds, now }),
     training: createTrainingService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
+    labels: createLabelService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityTz: deps.config.FACILITY_TZ }),
+    scanActions: createScanActionService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
   };
 }
 

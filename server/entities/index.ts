@@ -8,6 +8,8 @@ import { ContainerUsage } from "./container-usage.entity";
 import { Container } from "./container.entity";
 import { Department } from "./department.entity";
 import { Instrument } from "./instrument.entity";
+import { LabelHistory } from "./label-history.entity";
+import { LabelStock } from "./label-stock.entity";
 import { Location } from "./location.entity";
 import { OutboundMail } from "./outbound-mail.entity";
 import { PasswordReset } from "./password-reset.entity";
@@ -22,13 +24,13 @@ import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
 
 export {
-  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
+  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   Setup, SetupInstrument, TrainingRequest,
 };
 
 export const entities = [
-  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
+  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   Setup, SetupInstrument, TrainingRequest,
 ];

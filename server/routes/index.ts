@@ -13,6 +13,8 @@ import { createCalendarRouter } from "./calendar.router";
 import { createReportsRouter } from "./reports.router";
 import { createSetupsRouter } from "./setups.router";
 import { createTrainingRouter } from "./training.router";
+import { createLabelsPdfRouter, createLabelsRouter } from "./labels.router";
+import { createScanActionsRouter, createScanRouter } from "./scan.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -30,6 +32,10 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/calendar", router: createCalendarRouter(ctx) },
     { path: "/accounts", router: createAccountsRouter(ctx) },
     { path: "/reports", router: createReportsRouter(ctx) },
+    { path: "/scan", router: createScanRouter(ctx) },
+    { path: "/scan-actions", router: createScanActionsRouter(ctx) },
+    { path: "/labels.pdf", router: createLabelsPdfRouter(ctx) },
+    { path: "/labels", router: createLabelsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
   ];

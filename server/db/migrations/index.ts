@@ -3,5 +3,11 @@
 import { InitialSchema1796173192009 } from "./1796173192009-initial-schema";
 import { BookingsAndUsages1796173432958 } from "./1796173432958-bookings-and-usages";
 import { ScheduleSetupsAndTrainingRequests1796173773439 } from "./1796173773439-schedule-setups-and-training-requests";
+import { LabelsAndStocks1796173796292 } from "./1796173796292-labels-and-stocks";
 
-export const migrations = [InitialSchema1796173192009, BookingsAndUsages1796173432958, ScheduleSetupsAndTrainingRequests1796173773439];
+export const migrations = [
+  InitialSchema1796173192009,
+  BookingsAndUsages1796173432958,
+  ScheduleSetupsAndTrainingRequests1796173773439,
+  LabelsAndStocks1796173796292,
+];

@@ -1,10 +1,12 @@
-/** Scan (placeholder until the label work lands). */
-import { PlannedScreen } from "@/components/planned-screen";
+/** Scan: read a QR label with the phone camera, a photo, or the typed code, and open its record. */
+import { PageHeader } from "@/components/ui/page-header";
+import { ScanPanel } from "@/features/labels/components/scan-panel";
 
 export function ScanRoute() {
   return (
-    <PlannedScreen title="Scan">
-      Point your phone's camera at the QR label on a bottle or a cell to open its record with the one or two actions that make sense at the bench.
-    </PlannedScreen>
+    <>
+      <PageHeader title="Scan" description="Point the camera at the QR label on a bottle, a vial or a cell to open its record." />
+      <ScanPanel />
+    </>
   );
 }
