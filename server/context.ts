@@ -5,6 +5,10 @@ import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
 import { createUserService } from "./services/user.service";
+import { createBookingService } from "./services/booking.service";
+import { createInstrumentService } from "./services/instrument.service";
+import { createSetupService } from "./services/setup.service";
+import { createTrainingService } from "./services/training.service";
 import { createLabelService } from "./services/label.service";
 import { createScanActionService } from "./services/scan-action.service";
 import { createStockServices } from "./services/stock-services";
@@ -31,6 +35,10 @@ export function createServices(deps: AppDeps) {
   const now = () => deps.clock.now();
   return {
     users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
+    bookings: createBookingService({ ds: deps.ds, now, config: deps.config }),
+    instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
+    setups: createSetupService({ ds: deps.ds, now }),
+    training: createTrainingService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
     labels: createLabelService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityTz: deps.config.FACILITY_TZ }),
     scanActions: createScanActionService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
     ...createStockServices({ ds: deps.ds, now, dataDir: deps.config.dataDir, tz: deps.config.FACILITY_TZ }),

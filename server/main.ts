@@ -53,7 +53,7 @@ async function main(): Promise<void> {
 
   const ds = await openDatabase(config.DATABASE_PATH);
   let seeded = false;
-  if (config.DEMO_SEED) seeded = (await seedDemo(ds, { now: systemClock.now() })).seeded;
+  if (config.DEMO_SEED) seeded = (await seedDemo(ds, { now: systemClock.now(), tz: config.FACILITY_TZ })).seeded;
 
   const mailer = createSmtpMailer(smtpUrl);
   const { app, sessionStore } = createApp({

@@ -20,13 +20,17 @@ import { SessionRow } from "./session.entity";
 import { Setting } from "./setting.entity";
 import { SolutionComponent } from "./solution-component.entity";
 import { StockAlert } from "./stock-alert.entity";
+import { Setup } from "./setup.entity";
+import { SetupInstrument } from "./setup-instrument.entity";
 import { TrainingRecord } from "./training-record.entity";
+import { TrainingRequest } from "./training-request.entity";
 import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
 
 export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+  Setup, SetupInstrument, TrainingRequest,
 };
 // Stockroom and safety review.
 export { ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert };
@@ -35,4 +39,5 @@ export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert,
+  Setup, SetupInstrument, TrainingRequest,
 ];

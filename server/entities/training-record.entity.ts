@@ -13,6 +13,8 @@ export class TrainingRecord {
   @Column("text", { nullable: true }) revokedAt: string | null;
   @Column("integer", { nullable: true }) grantedById: number | null;
   @Column("text", { default: "" }) notes: string;
+  /** When the "expires within 30 days" notice went out, so it goes once per record. */
+  @Column("text", { nullable: true }) expiryNoticeSentAt: string | null;
 
   @ManyToOne("User", { onDelete: "CASCADE", nullable: false })
   @JoinColumn({ name: "userId" })

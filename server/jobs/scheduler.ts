@@ -1,6 +1,6 @@
 /**
  * Timed jobs inside the server process: each runs on its own interval, never overlaps itself,
- * and logs rather than crashes on failure. Later work adds reminders, no-shows and expiries.
+ * and logs rather than crashes on failure.
  */
 import type { DataSource } from "typeorm";
 import type { Clock } from "../clock";
@@ -8,6 +8,7 @@ import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../services/mail.service";
 import { runStockAlerts } from "../services/stock-alerts.service";
+import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
 
 export interface JobDeps {
   ds: DataSource;
@@ -34,6 +35,9 @@ export const jobs: Job[] = [
     everyMs: 60 * 60_000,
     run: (d) => runStockAlerts(d.ds, d.clock.now(), { tz: d.config.FACILITY_TZ, publicUrl: d.config.PUBLIC_URL }),
   },
+  { name: "booking-reminders", everyMs: 5 * 60_000, run: (d) => sendBookingReminders(d.ds, d.clock.now(), d.config) },
+  { name: "no-shows", everyMs: 60_000, run: (d) => markNoShows(d.ds, d.clock.now(), d.config) },
+  { name: "training-expiry-notices", everyMs: 60 * 60_000, run: (d) => sendTrainingExpiryNotices(d.ds, d.clock.now(), d.config) },
 ];
 
 export function startScheduler(deps: JobDeps, list: Job[] = jobs): { stop(): void } {

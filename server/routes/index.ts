@@ -7,6 +7,12 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
+import { createAccountsRouter } from "./accounts.router";
+import { createBookingsRouter } from "./bookings.router";
+import { createCalendarRouter } from "./calendar.router";
+import { createReportsRouter } from "./reports.router";
+import { createSetupsRouter } from "./setups.router";
+import { createTrainingRouter } from "./training.router";
 import { createLabelsPdfRouter, createLabelsRouter } from "./labels.router";
 import { createScanActionsRouter, createScanRouter } from "./scan.router";
 import { createChemicalsRouter } from "./chemicals.router";
@@ -25,6 +31,12 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/departments", router: createDepartmentsRouter(ctx) },
     { path: "/groups", router: createGroupsRouter(ctx) },
     { path: "/instruments", router: createInstrumentsRouter(ctx) },
+    { path: "/bookings", router: createBookingsRouter(ctx) },
+    { path: "/setups", router: createSetupsRouter(ctx) },
+    { path: "/training", router: createTrainingRouter(ctx) },
+    { path: "/calendar", router: createCalendarRouter(ctx) },
+    { path: "/accounts", router: createAccountsRouter(ctx) },
+    { path: "/reports", router: createReportsRouter(ctx) },
     { path: "/scan", router: createScanRouter(ctx) },
     { path: "/scan-actions", router: createScanActionsRouter(ctx) },
     { path: "/labels.pdf", router: createLabelsPdfRouter(ctx) },

@@ -51,3 +51,48 @@ export const instrumentListQuery = pageQuery.extend({
   status: instrumentStatus.optional(),
 });
 export type InstrumentListQuery = z.infer<typeof instrumentListQuery>;
+
+/** Adding an instrument (manager). Rules default to the cautious side: training required. */
+export const instrumentInput = z.object({
+  name: z.string().trim().min(1, "Give the instrument a name").max(120),
+  kind: instrumentKind,
+  status: instrumentStatus.default("in_service"),
+  model: z.string().trim().max(200).default(""),
+  serialNumber: z.string().trim().max(100).default(""),
+  description: z.string().trim().max(2000).default(""),
+  locationId: z.number().int().positive().nullable().default(null),
+  fourElectrode: z.boolean().default(false),
+  interfaceAreaCm2: z.number().positive().nullable().default(null),
+  trainingRequired: z.boolean().default(true),
+  requiresApproval: z.boolean().default(false),
+  cleaningBufferMinutes: z.number().int().min(0).max(24 * 60).default(0),
+  minLeadMinutes: z.number().int().min(0).max(60 * 24 * 60).default(0),
+  maxLengthMinutes: z.number().int().min(1).max(7 * 24 * 60).default(480),
+  bookableHours: bookableHours.default({}),
+  afterHoursAllowed: z.boolean().default(false),
+});
+export type InstrumentInput = z.input<typeof instrumentInput>;
+
+/** Editing an instrument: any field; a status change can carry a note for the people told. */
+export const instrumentPatch = z
+  .object({
+    name: z.string().trim().min(1, "Give the instrument a name").max(120),
+    kind: instrumentKind,
+    status: instrumentStatus,
+    model: z.string().trim().max(200),
+    serialNumber: z.string().trim().max(100),
+    description: z.string().trim().max(2000),
+    locationId: z.number().int().positive().nullable(),
+    fourElectrode: z.boolean(),
+    interfaceAreaCm2: z.number().positive().nullable(),
+    trainingRequired: z.boolean(),
+    requiresApproval: z.boolean(),
+    cleaningBufferMinutes: z.number().int().min(0).max(24 * 60),
+    minLeadMinutes: z.number().int().min(0).max(60 * 24 * 60),
+    maxLengthMinutes: z.number().int().min(1).max(7 * 24 * 60),
+    bookableHours,
+    afterHoursAllowed: z.boolean(),
+    statusNote: z.string().trim().max(500),
+  })
+  .partial();
+export type InstrumentPatch = z.input<typeof instrumentPatch>;

@@ -61,6 +61,7 @@ export function createAppRouter() {
         screen(paths.schedule.path, () => import("./routes/schedule").then((m) => ({ Component: m.ScheduleRoute }))),
         screen(paths.myBookings.path, () => import("./routes/my-bookings").then((m) => ({ Component: m.MyBookingsRoute }))),
         screen(paths.instruments.path, () => import("./routes/instruments").then((m) => ({ Component: m.InstrumentsRoute }))),
+        screen(paths.instrument.path, () => import("./routes/instrument").then((m) => ({ Component: m.InstrumentRoute }))),
         screen(paths.stockroom.path, () => import("./routes/stockroom").then((m) => ({ Component: m.StockroomRoute }))),
         screen(paths.stockroomChemicals.path, () => import("./routes/stockroom").then((m) => ({ Component: m.ChemicalsRoute }))),
         screen(paths.chemical.path, () => import("./routes/stockroom-chemical").then((m) => ({ Component: m.ChemicalRoute }))),
@@ -71,6 +72,8 @@ export function createAppRouter() {
         screen(paths.profile.path, () => import("./routes/profile").then((m) => ({ Component: m.ProfileRoute }))),
         restricted(AREA_ROLES.training, [
           screen(paths.training.path, () => import("./routes/training").then((m) => ({ Component: m.TrainingRoute }))),
+          screen(paths.approvals.path, () => import("./routes/approvals").then((m) => ({ Component: m.ApprovalsRoute }))),
+          screen(paths.utilisation.path, () => import("./routes/utilisation").then((m) => ({ Component: m.UtilisationRoute }))),
         ]),
         restricted(AREA_ROLES.recharge, [
           screen(paths.recharge.path, () => import("./routes/recharge").then((m) => ({ Component: m.RechargeRoute }))),

@@ -2,12 +2,14 @@
 // (npm run db:migration -- <name>) and list it here.
 import { InitialSchema1796173192009 } from "./1796173192009-initial-schema";
 import { BookingsAndUsages1796173432958 } from "./1796173432958-bookings-and-usages";
+import { ScheduleSetupsAndTrainingRequests1796173773439 } from "./1796173773439-schedule-setups-and-training-requests";
 import { LabelsAndStocks1796173796292 } from "./1796173796292-labels-and-stocks";
 import { StockroomAndSafety1796173804700 } from "./1796173804700-stockroom-and-safety";
 
 export const migrations = [
   InitialSchema1796173192009,
   BookingsAndUsages1796173432958,
+  ScheduleSetupsAndTrainingRequests1796173773439,
   LabelsAndStocks1796173796292,
   StockroomAndSafety1796173804700,
 ];

@@ -27,6 +27,7 @@ import {
 import { audit } from "../../services/audit.service";
 import { hashPassword, newToken } from "../../services/user.service";
 import { DEMO_ACCOUNTS } from "./demo-accounts";
+import { seedDemoBookings } from "./demo-bookings";
 import { type ChemicalKey, DEMO_CHEMICALS } from "./demo-chemicals";
 import { DEMO_CONTAINERS } from "./demo-containers";
 import { seedStockHistory } from "./demo-stock-history";
@@ -43,6 +44,8 @@ const DEMO_BCRYPT_COST = 10;
 export interface SeedDemoOptions {
   now: Date;
   bcryptCost?: number;
+  /** The facility's time zone, for the demo timetable's local hours. */
+  tz?: string;
 }
 
 /** Refuses to seed data that would fail Phasebook's own input checks. */
@@ -109,6 +112,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
       if (p.group) await em.update(User, lookup(people, p.key), { groupId: lookup(groups, p.group) });
     }
 
+    const accounts = new Map<string, number>();
     for (const a of DEMO_ACCOUNTS) {
       const accountId = await insertId(em, Account, {
         code: a.code,
@@ -125,6 +129,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
         active: true,
         createdAt: a.validFromDays === null ? nowIso : isoAfter(now, Math.min(a.validFromDays, 0)),
       });
+      accounts.set(a.code, accountId);
       if (a.members.length > 0) {
         await em.insert(
           AccountMember,
@@ -274,6 +279,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
       memberId: lookup(people, "member"),
       receiverId: managerId,
     });
+    await seedDemoBookings(em, { now, tz: opts.tz ?? "America/Halifax", people, instruments, accounts, managerId });
 
     await em.insert(Setting, { key: DEMO_SEEDED_KEY, value: JSON.stringify({ at: nowIso }) });
     await audit(em, now, null, "demo.seeded", "setting", null, { key: DEMO_SEEDED_KEY });

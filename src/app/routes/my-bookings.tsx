@@ -1,10 +1,12 @@
-/** My bookings (placeholder until the booking work lands). */
-import { PlannedScreen } from "@/components/planned-screen";
+/** My bookings: the person's own bookings with check-in, check-out and cancel, and their calendar feed. */
+import { PageHeader } from "@/components/ui/page-header";
+import { MyBookings } from "@/features/schedule/components/my-bookings";
 
 export function MyBookingsRoute() {
   return (
-    <PlannedScreen title="My bookings">
-      Your requested, confirmed and past bookings with check-in and check-out, what each run cost, and a feed for your own calendar.
-    </PlannedScreen>
+    <>
+      <PageHeader title="My bookings" description="Check in when you start and out when you finish: billing uses those times. Cancel in good time so others can use the instrument." />
+      <MyBookings />
+    </>
   );
 }

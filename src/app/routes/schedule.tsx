@@ -1,10 +1,33 @@
-/** Schedule (placeholder until the booking work lands). */
-import { PlannedScreen } from "@/components/planned-screen";
+/** Schedule: the calendar of bookings where people pick a free slot; managers reach the approval queue from here. */
+import { Link } from "react-router-dom";
+import { paths } from "@/config/paths";
+import { hasRole, useUser } from "@/lib/auth";
+import { PageHeader } from "@/components/ui/page-header";
+import { buttonClasses } from "@/components/ui/button";
+import { ScheduleCalendar } from "@/features/schedule/components/schedule-calendar";
 
 export function ScheduleRoute() {
+  const { data: user } = useUser();
+  const manager = hasRole(user, "manager");
   return (
-    <PlannedScreen title="Schedule">
-      Each instrument's bookings by day and week, where you pick a free slot and book a potentiostat and an interface cell together.
-    </PlannedScreen>
+    <>
+      <PageHeader
+        title="Schedule"
+        description="Select a free range to book it. Book a potentiostat and an interface cell together; a cleaning buffer follows each session on the cells. Drag or stretch your own bookings that have not started to move them."
+        actions={
+          manager ? (
+            <div className="flex gap-2">
+              <Link to={paths.approvals.getHref()} className={buttonClasses("secondary")} data-testid="open-approvals">
+                Approval queue
+              </Link>
+              <Link to={paths.utilisation.getHref()} className={buttonClasses("secondary")}>
+                Utilisation
+              </Link>
+            </div>
+          ) : undefined
+        }
+      />
+      <ScheduleCalendar />
+    </>
   );
 }

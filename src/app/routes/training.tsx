@@ -1,10 +1,12 @@
-/** Training (placeholder until the training-record work lands). */
-import { PlannedScreen } from "@/components/planned-screen";
+/** Training: the manager's records, expiries and members' requests. */
+import { PageHeader } from "@/components/ui/page-header";
+import { TrainingPage } from "@/features/training/components/training-page";
 
 export function TrainingRoute() {
   return (
-    <PlannedScreen title="Training">
-      Training records per person and instrument (current, expiring, expired), and certifying someone after a training session.
-    </PlannedScreen>
+    <>
+      <PageHeader title="Training" description="Who may use which instrument, until when, and who may work after hours." />
+      <TrainingPage />
+    </>
   );
 }

@@ -76,8 +76,8 @@ export function ManagerSection({ manager }: { manager: NonNullable<Dashboard["ma
           testId="stat-pending-approvals"
           label="Booking requests waiting for approval"
           value={manager.pendingApprovals}
-          to={paths.schedule.getHref()}
-          linkText="Open the Schedule"
+          to={paths.approvals.getHref()}
+          linkText="Open the approval queue"
           attention={{ tone: "warning", word: "Waiting" }}
         />
         <StatTile

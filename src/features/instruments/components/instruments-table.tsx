@@ -1,5 +1,7 @@
 /** The instrument list: what each potentiostat, cell and support item is, whether it can be booked, and its rules at a glance. */
 import { INSTRUMENT_KIND_LABELS, INSTRUMENT_STATUS_LABELS, type InstrumentDto, type InstrumentStatus } from "@shared/schemas/instruments";
+import { Link } from "react-router-dom";
+import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
 import { useInstruments } from "../api/get-instruments";
 import { Badge, type BadgeTone } from "@/components/ui/badge";
@@ -57,7 +59,9 @@ export function InstrumentsTable() {
         {instruments.data?.items.map((i) => (
           <Tr key={i.id}>
             <Td>
-              <p className="font-medium text-grey-900">{i.name}</p>
+              <p className="font-medium text-grey-900">
+                <Link to={paths.instrument.getHref(i.id)}>{i.name}</Link>
+              </p>
               {details(i) && <p className="text-xs text-grey-600">{details(i)}</p>}
             </Td>
             <Td>{INSTRUMENT_KIND_LABELS[i.kind]}</Td>

@@ -1,0 +1,184 @@
+/**
+ * The booking form, opened by selecting a free range on the Schedule: instruments or a setup,
+ * the account, the purpose and an optional weekly repeat. It validates with the shared schema;
+ * the server re-checks everything and its field errors land on the fields, and a series that
+ * fails lists each failing session.
+ */
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { InstrumentDto } from "@shared/schemas/instruments";
+import type { OccurrenceProblem } from "@shared/schemas/bookings";
+import { ApiError } from "@/lib/api-client";
+import { describeError } from "@/lib/forms";
+import { formatSpan } from "@/lib/format";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { Input, Select } from "@/components/ui/input";
+import { FieldSet } from "@/components/ui/field";
+import { useCreateBooking } from "../api/booking-actions";
+import { useAccounts, useSetups } from "../api/get-schedule-data";
+
+interface Values {
+  mode: "instruments" | "setup";
+  instrumentIds: string[];
+  setupId: string;
+  accountId: string;
+  purpose: string;
+  repeatWeeks: number;
+}
+
+/** A Date as the value of <input type="datetime-local"> in the browser's zone. */
+function toLocalInput(d: Date): string {
+  const pad = (n: number) => String(n).padStart(2, "0");
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+}
+
+export function BookingForm({
+  start,
+  end,
+  instruments,
+  preselected,
+  onDone,
+  onCancel,
+}: {
+  start: Date;
+  end: Date;
+  instruments: InstrumentDto[];
+  preselected: number[];
+  onDone: (message: string) => void;
+  onCancel: () => void;
+}) {
+  const accounts = useAccounts();
+  const setups = useSetups();
+  const create = useCreateBooking();
+  const [times, setTimes] = useState({ start: toLocalInput(start), end: toLocalInput(end) });
+  const [problems, setProblems] = useState<OccurrenceProblem[]>([]);
+  const [general, setGeneral] = useState<string | null>(null);
+  const chargeable = (accounts.data ?? []).filter((a) => a.chargeable);
+  const form = useForm<Values>({
+    defaultValues: { mode: "instruments", instrumentIds: preselected.map(String), setupId: "", accountId: "", purpose: "", repeatWeeks: 1 },
+  });
+  const { register, handleSubmit, watch, formState, setError } = form;
+  const mode = watch("mode");
+  const bookable = instruments.filter((i) => i.status === "in_service");
+
+  const submit = handleSubmit(async (v) => {
+    setProblems([]);
+    setGeneral(null);
+    const accountId = Number(v.accountId || chargeable[0]?.id);
+    if (!accountId) {
+      setError("accountId", { message: "Choose an account to charge" });
+      return;
+    }
+    const startDate = new Date(times.start);
+    const endDate = new Date(times.end);
+    try {
+      const r = await create.mutateAsync({
+        ...(v.mode === "setup" ? { setupId: Number(v.setupId) } : { instrumentIds: v.instrumentIds.map(Number) }),
+        start: startDate.toISOString(),
+        end: endDate.toISOString(),
+        accountId,
+        purpose: v.purpose,
+        repeatWeeks: Number(v.repeatWeeks) || 1,
+      });
+      const n = r.bookings.length;
+      onDone(
+        r.booking.status === "requested"
+          ? `Request sent${n > 1 ? ` for ${n} weekly sessions` : ""}: it waits for the facility manager's approval.`
+          : `Booked${n > 1 ? ` ${n} weekly sessions` : ""}: confirmed.`,
+      );
+    } catch (e) {
+      if (e instanceof ApiError) {
+        const occ = (e.problem as { occurrences?: OccurrenceProblem[] }).occurrences;
+        if (occ) setProblems(occ);
+        for (const [path, message] of Object.entries(e.fieldErrors)) {
+          if (path === "accountId" || path === "purpose") setError(path, { message });
+        }
+      }
+      setGeneral(describeError(e));
+    }
+  });
+
+  return (
+    <form onSubmit={submit} className="flex flex-col gap-3" data-testid="booking-form" noValidate>
+      <div className="grid gap-3 sm:grid-cols-2">
+        <Input label="Start" type="datetime-local" value={times.start} onChange={(e) => setTimes((t) => ({ ...t, start: e.target.value }))} required />
+        <Input label="End" type="datetime-local" value={times.end} onChange={(e) => setTimes((t) => ({ ...t, end: e.target.value }))} required />
+      </div>
+      <p className="text-xs text-grey-600">Times are in your browser's time zone. The instruments' bookable hours are the facility's local hours.</p>
+
+      <FieldSet legend="What to book" id="booking-mode">
+        <div className="flex gap-4 text-sm">
+          <label className="flex items-center gap-1.5">
+            <input type="radio" value="instruments" {...register("mode")} /> Instruments
+          </label>
+          <label className="flex items-center gap-1.5">
+            <input type="radio" value="setup" {...register("mode")} disabled={(setups.data ?? []).length === 0} /> A setup
+          </label>
+        </div>
+      </FieldSet>
+
+      {mode === "instruments" ? (
+        <FieldSet legend="Instruments (booked together or not at all)" id="booking-instruments" error={formState.errors.instrumentIds?.message}>
+          <div className="grid max-h-40 gap-1 overflow-y-auto rounded border border-grey-200 p-2 sm:grid-cols-2">
+            {bookable.map((i) => (
+              <label key={i.id} className="flex items-center gap-1.5 text-sm">
+                <input type="checkbox" value={String(i.id)} {...register("instrumentIds", { validate: (v) => v.length > 0 || "Choose at least one instrument" })} />
+                {i.name}
+              </label>
+            ))}
+          </div>
+        </FieldSet>
+      ) : (
+        <Select label="Setup" {...register("setupId", { required: "Choose a setup" })} error={formState.errors.setupId?.message} data-testid="booking-setup">
+          <option value="">Choose…</option>
+          {(setups.data ?? []).map((s) => (
+            <option key={s.id} value={s.id}>
+              {s.name}
+            </option>
+          ))}
+        </Select>
+      )}
+
+      <Select label="Account to charge" {...register("accountId")} error={formState.errors.accountId?.message} data-testid="booking-account" required>
+        {chargeable.length === 0 && <option value="">You may not charge any account yet: ask your group leader</option>}
+        {chargeable.map((a) => (
+          <option key={a.id} value={a.id}>
+            {a.code} – {a.name}
+          </option>
+        ))}
+      </Select>
+      <Input label="Purpose" {...register("purpose", { maxLength: { value: 500, message: "Keep it under 500 characters" } })} error={formState.errors.purpose?.message} placeholder="e.g. TBA⁺ transfer across water | DCE" data-testid="booking-purpose" />
+      <Input
+        label="Repeat weekly, sessions in all"
+        type="number"
+        min={1}
+        max={104}
+        {...register("repeatWeeks", { valueAsNumber: true, min: { value: 1, message: "At least 1" }, max: { value: 104, message: "At most 104 (two years)" } })}
+        error={formState.errors.repeatWeeks?.message}
+        hint="1 books this session only. A series is booked whole or not at all."
+      />
+
+      {general && (
+        <Alert tone="danger">
+          <p>{general}</p>
+          {problems.length > 0 && (
+            <ul className="mt-1 list-disc pl-5" data-testid="series-problems">
+              {problems.map((p) => (
+                <li key={p.index}>
+                  Session {p.index + 1}, {formatSpan(p.start, p.end)}: {p.reasons.map((r) => r.message).join("; ")}
+                </li>
+              ))}
+            </ul>
+          )}
+        </Alert>
+      )}
+      <div className="flex justify-end gap-2">
+        <Button onClick={onCancel}>Cancel</Button>
+        <Button type="submit" variant="primary" loading={create.isPending} data-testid="booking-submit">
+          Book
+        </Button>
+      </div>
+    </form>
+  );
+}

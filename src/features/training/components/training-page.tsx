@@ -1,0 +1,165 @@
+/**
+ * The manager's training page: open requests from members, records expiring within 30 days,
+ * all records with revoke, and the grant form (which renews a live record).
+ */
+import { useState } from "react";
+import { TRAINING_STATE_LABELS, type TrainingDto } from "@shared/schemas/training";
+import { useInstruments } from "@/features/instruments/api/get-instruments";
+import { describeError } from "@/lib/forms";
+import { formatDate, formatDateTime } from "@/lib/format";
+import { Alert } from "@/components/ui/alert";
+import { Badge, type BadgeTone } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
+import { Card } from "@/components/ui/card";
+import { Checkbox, Input, Select } from "@/components/ui/input";
+import { EmptyState } from "@/components/ui/empty-state";
+import { LoadingLine } from "@/components/ui/spinner";
+import { TBody, THead, Table, Td, Th, Tr } from "@/components/ui/table";
+import { useCloseTrainingRequest, useGrantTraining, useRevokeTraining, useTrainablePeople, useTrainingRecords, useTrainingRequests } from "../api/training";
+
+const TONES: Record<TrainingDto["state"], BadgeTone> = { current: "ok", expiring: "warning", expired: "danger", none: "neutral" };
+
+function RecordsTable({ items, onRevoke }: { items: TrainingDto[]; onRevoke?: (r: TrainingDto) => void }) {
+  return (
+    <Table caption="Training records">
+      <THead>
+        <tr>
+          <Th>Person</Th>
+          <Th>Instrument</Th>
+          <Th>State</Th>
+          <Th>Expires</Th>
+          <Th>After hours</Th>
+          <Th>Notes</Th>
+          {onRevoke && <Th className="text-right">Action</Th>}
+        </tr>
+      </THead>
+      <TBody>
+        {items.map((r) => (
+          <Tr key={r.id}>
+            <Td>{r.userName}</Td>
+            <Td>{r.instrumentName}</Td>
+            <Td>
+              <Badge tone={TONES[r.state]}>{TRAINING_STATE_LABELS[r.state]}</Badge>
+            </Td>
+            <Td>{r.expiresAt ? formatDate(r.expiresAt) : "Never"}</Td>
+            <Td>{r.afterHours ? "Endorsed" : "No"}</Td>
+            <Td className="text-xs">{r.notes || "—"}</Td>
+            {onRevoke && (
+              <Td className="text-right">
+                {r.state !== "none" && (
+                  <Button size="sm" variant="danger" onClick={() => onRevoke(r)}>
+                    Revoke…
+                  </Button>
+                )}
+              </Td>
+            )}
+          </Tr>
+        ))}
+      </TBody>
+    </Table>
+  );
+}
+
+function GrantForm({ initial }: { initial?: { userId: number; instrumentId: number } }) {
+  const people = useTrainablePeople(true);
+  const instruments = useInstruments({ limit: 500 });
+  const grant = useGrantTraining();
+  const oneYear = new Date(Date.now() + 365 * 86_400_000).toISOString().slice(0, 10);
+  const [v, setV] = useState({ userId: String(initial?.userId ?? ""), instrumentId: String(initial?.instrumentId ?? ""), expires: oneYear, afterHours: false, notes: "" });
+  const [msg, setMsg] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
+  const submit = async () => {
+    setMsg(null);
+    try {
+      await grant.mutateAsync({
+        userId: Number(v.userId),
+        instrumentId: Number(v.instrumentId),
+        expiresAt: v.expires ? new Date(`${v.expires}T23:59:00`).toISOString() : null,
+        afterHours: v.afterHours,
+        notes: v.notes,
+      });
+      setMsg({ tone: "ok", text: "Training recorded; the person has been told by e-mail." });
+    } catch (e) {
+      setMsg({ tone: "danger", text: describeError(e) });
+    }
+  };
+  return (
+    <Card title="Record training" description="Granting again renews the person's live record on that instrument.">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <Select label="Person" value={v.userId} onChange={(e) => setV({ ...v, userId: e.target.value })}>
+          <option value="">Choose…</option>
+          {(people.data?.items ?? []).map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.name} ({p.email})
+            </option>
+          ))}
+        </Select>
+        <Select label="Instrument" value={v.instrumentId} onChange={(e) => setV({ ...v, instrumentId: e.target.value })}>
+          <option value="">Choose…</option>
+          {(instruments.data?.items ?? []).map((i) => (
+            <option key={i.id} value={i.id}>
+              {i.name}
+            </option>
+          ))}
+        </Select>
+        <Input label="Expires on (empty: never)" type="date" value={v.expires} onChange={(e) => setV({ ...v, expires: e.target.value })} />
+        <Input label="Notes" value={v.notes} onChange={(e) => setV({ ...v, notes: e.target.value })} />
+        <Checkbox label="After-hours endorsement (lone-working induction done)" checked={v.afterHours} onChange={(e) => setV({ ...v, afterHours: e.target.checked })} />
+      </div>
+      {msg && <Alert tone={msg.tone} className="mt-3">{msg.text}</Alert>}
+      <div className="mt-3 flex justify-end">
+        <Button variant="primary" disabled={!v.userId || !v.instrumentId} loading={grant.isPending} onClick={submit}>
+          Record training
+        </Button>
+      </div>
+    </Card>
+  );
+}
+
+export function TrainingPage() {
+  const expiring = useTrainingRecords({ expiringWithinDays: 30 });
+  const all = useTrainingRecords({ includeRevoked: true });
+  const requests = useTrainingRequests("open");
+  const close = useCloseTrainingRequest();
+  const revoke = useRevokeTraining();
+  const [error, setError] = useState<string | null>(null);
+
+  const onRevoke = async (r: TrainingDto) => {
+    const reason = window.prompt(`Why revoke ${r.userName}'s training on ${r.instrumentName}? They cannot book it afterwards.`);
+    if (!reason) return;
+    try {
+      await revoke.mutateAsync({ id: r.id, reason });
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+
+  return (
+    <div className="flex flex-col gap-5">
+      {error && <Alert tone="danger">{error}</Alert>}
+      <Card title="Requests for training">
+        {requests.isPending && <LoadingLine label="Loading requests" />}
+        {requests.data?.length === 0 && <EmptyState title="No open requests">Members ask from an instrument's page.</EmptyState>}
+        {(requests.data ?? []).length > 0 && (
+          <ul className="divide-y divide-grey-100">
+            {requests.data!.map((r) => (
+              <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <span>
+                  <strong>{r.userName}</strong> asks for training on <strong>{r.instrumentName}</strong>
+                  {r.note && <> — “{r.note}”</>} <span className="text-xs text-grey-600">({formatDateTime(r.createdAt)})</span>
+                </span>
+                <Button size="sm" onClick={() => close.mutate({ id: r.id, outcome: "dismissed" })}>
+                  Dismiss
+                </Button>
+              </li>
+            ))}
+          </ul>
+        )}
+      </Card>
+      <Card title="Expiring within 30 days">
+        {expiring.data && expiring.data.items.length === 0 ? <p className="text-sm text-grey-600">None.</p> : expiring.data && <RecordsTable items={expiring.data.items} />}
+      </Card>
+      <GrantForm />
+      <Card title="All training records">{all.data ? <RecordsTable items={all.data.items} onRevoke={onRevoke} /> : <LoadingLine label="Loading records" />}</Card>
+    </div>
+  );
+}
