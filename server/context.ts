@@ -5,6 +5,9 @@ import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
 import { createUserService } from "./services/user.service";
+import { createAccountsService } from "./services/accounts.service";
+import { createBillingService } from "./services/billing.service";
+import { createRatesService } from "./services/rates.service";
 
 export interface AppDeps {
   ds: DataSource;
@@ -28,6 +31,9 @@ export function createServices(deps: AppDeps) {
   const now = () => deps.clock.now();
   return {
     users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
+    accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
+    rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
+    billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments }),
   };
 }
 

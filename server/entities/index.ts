@@ -1,6 +1,12 @@
 import { Account } from "./account.entity";
 import { AccountMember } from "./account-member.entity";
 import { AuditEntry } from "./audit-entry.entity";
+import { BillingAdjustment } from "./billing-adjustment.entity";
+import { BillingRun } from "./billing-run.entity";
+import { ChargeLine } from "./charge-line.entity";
+import { ProcessedEvent } from "./processed-event.entity";
+import { Rate } from "./rate.entity";
+import { Statement } from "./statement.entity";
 import { Booking } from "./booking.entity";
 import { BookingInstrument } from "./booking-instrument.entity";
 import { Chemical } from "./chemical.entity";
@@ -21,9 +27,11 @@ import { UserRole } from "./user-role.entity";
 export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+  BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
 };
 
 export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
+  BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
 ];

@@ -3,16 +3,20 @@
  * and logs rather than crashes on failure. Later work adds reminders, no-shows and expiries.
  */
 import type { DataSource } from "typeorm";
+import type Stripe from "stripe";
 import type { Clock } from "../clock";
 import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../services/mail.service";
+import { processDueInvoices } from "../services/invoicing.service";
 
 export interface JobDeps {
   ds: DataSource;
   mailer: Mailer;
   clock: Clock;
   config: Config;
+  /** The payment service; without it external invoices stay queued. */
+  payments?: Stripe;
 }
 
 export interface Job {
@@ -26,6 +30,12 @@ export const jobs: Job[] = [
     name: "deliver-mail",
     everyMs: 5_000,
     run: (d) => deliverDueMail(d.ds, d.mailer, d.clock.now(), d.config.MAIL_FROM),
+  },
+  {
+    // Invoices the payment service did not take when a run was finalised (or voided), retried with backoff.
+    name: "send-invoices",
+    everyMs: 30_000,
+    run: (d) => processDueInvoices({ ds: d.ds, payments: d.payments, now: () => d.clock.now() }),
   },
 ];
 

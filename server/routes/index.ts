@@ -7,6 +7,10 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
+import { createAccountsRouter } from "./accounts.router";
+import { createBillingRouter } from "./billing.router";
+import { createRatesRouter } from "./rates.router";
+import { createWebhooksRouter } from "./webhooks.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -19,6 +23,10 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/instruments", router: createInstrumentsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
+    { path: "/accounts", router: createAccountsRouter(ctx) },
+    { path: "/rates", router: createRatesRouter(ctx) },
+    { path: "/billing", router: createBillingRouter(ctx) },
+    { path: "/webhooks", router: createWebhooksRouter(ctx) },
   ];
 }
 
