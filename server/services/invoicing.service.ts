@@ -27,7 +27,7 @@ async function ensureCustomer(deps: InvoicingDeps, stripe: Stripe, account: Acco
       description: account.name,
       metadata: { phasebookAccountId: String(account.id), accountCode: account.code },
     },
-    { idempotencyKey: `phasebook-account-${account.id}-customer` },
+    { idempotencyKey: `phasebook-account-${account.id}-${account.code}-${account.createdAt}` },
   );
   await deps.ds.getRepository(Account).update(account.id, { paymentCustomerId: customer.id });
   return customer.id;
@@ -63,7 +63,7 @@ export async function pushInvoice(deps: InvoicingDeps, statementId: number): Pro
         description: `Liquid Interfaces Core recharge, ${st.period}`,
         metadata: { statementId: String(st.id), runId: String(st.runId), period: st.period, accountCode: account.code },
       },
-      { idempotencyKey: `phasebook-statement-${st.id}-invoice` },
+      { idempotencyKey: `phasebook-statement-${st.id}-${account.code}-${st.createdAt}` },
     );
     await repo.update(st.id, { invoiceId: draft.id! });
     st = { ...st, invoiceId: draft.id! };
@@ -76,7 +76,7 @@ export async function pushInvoice(deps: InvoicingDeps, statementId: number): Pro
       if (done.has(String(l.id))) continue;
       await stripe.invoiceItems.create(
         { customer, invoice: invoice.id!, amount: l.amountCents, currency, description: l.description.slice(0, 500), metadata: { lineId: String(l.id) } },
-        { idempotencyKey: `phasebook-line-${l.id}` },
+        { idempotencyKey: `phasebook-line-${l.id}-${account.code}-${st.createdAt}` },
       );
     }
     invoice = await stripe.invoices.finalizeInvoice(invoice.id!);

@@ -294,3 +294,49 @@ describe("accounts", () => {
     expect(r.status).toBe(422);
   });
 });
+
+describe("the rate review", () => {
+  it("computes the break-even rate per instrument (2 CFR 200.468) and applies it from a date", async () => {
+    // Costs 12 000.00 (service contract) + 30 000.00 (staff) = 42 000.00; minus a subsidy of
+    // 10 000.00 and a carried surplus of 2 000.00 = 30 000.00 to recover over 1 000 projected
+    // hours → 30.00 per hour internal; × 1.5 external academic = 45.00; × 2 commercial = 60.00.
+    const review = await manager.post("/api/rates/review", {
+      factors: { external_academic: 1.5, commercial: 2 },
+      instruments: [
+        {
+          instrumentId: cell.id,
+          costLines: [
+            { label: "Service contract", category: "service_contracts", amountCents: 1_200_000 },
+            { label: "Technician effort", category: "salaries", amountCents: 3_000_000 },
+          ],
+          subsidyCents: 1_000_000,
+          carriedBalanceCents: 200_000,
+          projectedBillableHours: 1000,
+        },
+      ],
+    });
+    expect(review.status, review.text).toBe(200);
+    expect(review.body.items[0]).toMatchObject({
+      instrumentId: cell.id,
+      totalCostCents: 4_200_000,
+      recoverableCents: 3_000_000,
+      breakEvenCents: 3000,
+      proposed: { internal: 3000, external_academic: 4500, commercial: 6000 },
+      current: { internal: 1000, commercial: 3000, external_academic: null },
+    });
+
+    const apply = await manager.post("/api/rates/apply", {
+      effectiveFrom: "2027-01-01",
+      rates: Object.entries(review.body.items[0].proposed).map(([customerClass, hourlyRateCents]) => ({ instrumentId: cell.id, customerClass, hourlyRateCents })),
+    });
+    expect(apply.status, apply.text).toBe(201);
+    expect(apply.body.items.map((r: { effectiveFrom: string; hourlyRateCents: number }) => [r.effectiveFrom, r.hourlyRateCents])).toEqual([
+      ["2027-01-01", 3000],
+      ["2027-01-01", 4500],
+      ["2027-01-01", 6000],
+    ]);
+    // Applying again from the same date would give the cell two rates at once.
+    const twice = await manager.post("/api/rates/apply", { effectiveFrom: "2027-01-01", rates: [{ instrumentId: cell.id, customerClass: "internal", hourlyRateCents: 3100 }] });
+    expect(twice.status).toBe(422);
+  });
+});
