@@ -1,3 +1,4 @@
+/* global console */
 // Builds the client before `npm start` when dist/ is missing or older than the sources,
 // so `npm install && npm start` is all a fresh machine needs.
 import fs from "node:fs";

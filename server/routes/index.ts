@@ -11,11 +11,12 @@ import { createAccountsRouter } from "./accounts.router";
 import { createBillingRouter } from "./billing.router";
 import { createRatesRouter } from "./rates.router";
 import { createWebhooksRouter } from "./webhooks.router";
-import { createAuditRouter, createDashboardRouter, createDevRouter, createHealthRouter } from "./system.router";
+import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
     { path: "/health", router: createHealthRouter(ctx) },
+    { path: "/facility", router: createFacilityRouter(ctx) },
     { path: "/dashboard", router: createDashboardRouter(ctx) },
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },

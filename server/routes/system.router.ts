@@ -23,6 +23,15 @@ export function createHealthRouter(ctx: Ctx): Router {
   return r;
 }
 
+/** The facility's name, time zone and currency: the client shows local times in the facility's zone. */
+export function createFacilityRouter(ctx: Ctx): Router {
+  const r = Router();
+  r.get("/", (_req, res) => {
+    res.json({ name: ctx.config.FACILITY_NAME, timeZone: ctx.config.FACILITY_TZ, currency: ctx.config.CURRENCY });
+  });
+  return r;
+}
+
 export function createDashboardRouter(ctx: Ctx): Router {
   const r = Router();
   r.get("/", requireAuth, async (req, res) => {

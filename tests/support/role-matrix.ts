@@ -18,6 +18,7 @@ export const ROLE_MATRIX: Record<string, Who> = {
   "POST /api/auth/password": SIGNED_IN,
   "POST /api/auth/password-reset/request": PUBLIC,
   "POST /api/auth/password-reset/confirm": PUBLIC,
+  "GET /api/facility": PUBLIC,
   "GET /api/dashboard": SIGNED_IN,
   "GET /api/users": ["admin"],
   "POST /api/users": ["admin"],

@@ -1,0 +1,83 @@
+/**
+ * Table helpers for dense lists: a scroll wrapper so wide tables never break a phone layout,
+ * compact cells, and a sortable header that tells screen readers its order (aria-sort).
+ */
+import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
+import { cn } from "@/lib/cn";
+
+export function Table({ className, children, caption }: { className?: string; children: ReactNode; caption?: ReactNode }) {
+  return (
+    <div className={cn("overflow-x-auto rounded-lg border border-grey-200 bg-white shadow-xs", className)}>
+      <table className="min-w-full border-collapse text-left text-sm">
+        {caption && <caption className="sr-only">{caption}</caption>}
+        {children}
+      </table>
+    </div>
+  );
+}
+
+export function THead({ children }: { children: ReactNode }) {
+  return <thead className="border-b border-grey-200 bg-grey-50 text-xs text-grey-600">{children}</thead>;
+}
+
+export function TBody({ children }: { children: ReactNode }) {
+  return <tbody className="divide-y divide-grey-100">{children}</tbody>;
+}
+
+export function Tr({ className, ...props }: HTMLAttributes<HTMLTableRowElement>) {
+  return <tr className={cn("hover:bg-grey-50/70", className)} {...props} />;
+}
+
+export function Th({ className, ...props }: ThHTMLAttributes<HTMLTableCellElement>) {
+  return <th scope="col" className={cn("whitespace-nowrap px-3 py-2 font-medium", className)} {...props} />;
+}
+
+export function Td({ className, ...props }: TdHTMLAttributes<HTMLTableCellElement>) {
+  return <td className={cn("px-3 py-1.5 align-middle text-grey-800", className)} {...props} />;
+}
+
+export type SortDirection = "asc" | "desc" | false;
+
+interface SortableThProps {
+  children: ReactNode;
+  direction: SortDirection;
+  onToggle?: (event: unknown) => void;
+  className?: string;
+}
+
+/** A header cell whose label is a button that flips the sort order. */
+export function SortableTh({ children, direction, onToggle, className }: SortableThProps) {
+  const aria = direction === "asc" ? "ascending" : direction === "desc" ? "descending" : "none";
+  return (
+    <th scope="col" aria-sort={aria} className={cn("whitespace-nowrap px-1.5 py-1 font-medium", className)}>
+      <button
+        type="button"
+        onClick={onToggle}
+        className="inline-flex items-center gap-1 rounded px-1.5 py-1 hover:bg-grey-200/60 hover:text-grey-900"
+      >
+        {children}
+        <SortIcon direction={direction} />
+      </button>
+    </th>
+  );
+}
+
+function SortIcon({ direction }: { direction: SortDirection }) {
+  return (
+    <svg viewBox="0 0 12 12" className="size-3" aria-hidden="true">
+      <path d="M6 1.5 9 5H3Z" className={direction === "asc" ? "fill-grey-900" : "fill-grey-300"} />
+      <path d="M6 10.5 3 7h6Z" className={direction === "desc" ? "fill-grey-900" : "fill-grey-300"} />
+    </svg>
+  );
+}
+
+/** A full-width row for "loading" or "nothing matches" inside a table body. */
+export function TableMessage({ colSpan, children }: { colSpan: number; children: ReactNode }) {
+  return (
+    <tr>
+      <td colSpan={colSpan} className="px-3 py-6 text-center text-grey-600">
+        {children}
+      </td>
+    </tr>
+  );
+}

@@ -1,0 +1,48 @@
+/**
+ * Every client URL pattern and its link builder, so no screen spells a path by hand.
+ * `path` is what the router matches; `getHref` builds a concrete link.
+ */
+
+const enc = encodeURIComponent;
+
+export const paths = {
+  home: { path: "/", getHref: () => "/" },
+  signIn: {
+    path: "/sign-in",
+    /** `next` is where to go after signing in; the home page needs no parameter. */
+    getHref: (next?: string) => (next && next !== "/" ? `/sign-in?next=${enc(next)}` : "/sign-in"),
+  },
+  forgot: { path: "/forgot-password", getHref: () => "/forgot-password" },
+  reset: { path: "/reset-password/:token", getHref: (token: string) => `/reset-password/${enc(token)}` },
+  schedule: { path: "/schedule", getHref: () => "/schedule" },
+  myBookings: { path: "/bookings", getHref: () => "/bookings" },
+  instruments: { path: "/instruments", getHref: () => "/instruments" },
+  training: { path: "/training", getHref: () => "/training" },
+  stockroom: { path: "/stockroom", getHref: () => "/stockroom" },
+  scan: { path: "/scan", getHref: () => "/scan" },
+  scanToken: { path: "/s/:token", getHref: (token: string) => `/s/${enc(token)}` },
+  recharge: { path: "/recharge", getHref: () => "/recharge" },
+  safety: { path: "/safety", getHref: () => "/safety" },
+  admin: {
+    people: { path: "/admin/people", getHref: () => "/admin/people" },
+    mailbox: { path: "/admin/mailbox", getHref: () => "/admin/mailbox" },
+  },
+  profile: { path: "/profile", getHref: () => "/profile" },
+} as const;
+
+/** Pages a signed-out visitor may open; a 401 there must not bounce back to sign-in. */
+export const PUBLIC_PATH_PREFIXES = ["/sign-in", "/forgot-password", "/reset-password/"] as const;
+
+export function isPublicPath(pathname: string): boolean {
+  return PUBLIC_PATH_PREFIXES.some((p) => pathname === p || pathname.startsWith(p.endsWith("/") ? p : `${p}/`));
+}
+
+/**
+ * Accepts a `next` parameter only when it is a path inside Phasebook, so a crafted sign-in link
+ * cannot send someone to another site after they enter their password.
+ */
+export function safeNext(next: string | null | undefined): string {
+  if (!next || !next.startsWith("/") || next.startsWith("//") || next.startsWith("/\\")) return paths.home.getHref();
+  if (isPublicPath(next.split(/[?#]/)[0] ?? "")) return paths.home.getHref();
+  return next;
+}

@@ -1,0 +1,97 @@
+/**
+ * Phasebook's theme, loaded by src/styles/index.css through Tailwind 4's @config.
+ * Neutral greys carry the interface; the two accents stand for the two liquid phases of a
+ * liquid|liquid cell: `aqueous` (cool teal-blue) for primary actions and links, `organic`
+ * (warm ochre) for highlights and stock warnings. Semantic scales (danger, warning, ok) always
+ * travel with words in the UI, never colour alone.
+ */
+import type { Config } from "tailwindcss";
+
+const config: Config = {
+  content: ["./index.html", "./src/**/*.{ts,tsx}"],
+  theme: {
+    extend: {
+      colors: {
+        grey: {
+          50: "#f6f7f8",
+          100: "#eceef0",
+          200: "#dcdfe3",
+          300: "#c3c8ce",
+          400: "#9aa1a9",
+          500: "#737b84",
+          600: "#5a626b",
+          700: "#454c54",
+          800: "#2f353b",
+          900: "#1f2428",
+          950: "#14181b",
+        },
+        aqueous: {
+          50: "#eef7f9",
+          100: "#d4ecf1",
+          200: "#aad7e2",
+          300: "#77bccd",
+          400: "#3f9cb2",
+          500: "#267f96",
+          600: "#1d677c",
+          700: "#1b5668",
+          800: "#1a4756",
+          900: "#173b48",
+        },
+        organic: {
+          50: "#fcf8ee",
+          100: "#f7edd0",
+          200: "#eed9a0",
+          300: "#e2bd69",
+          400: "#d3a040",
+          500: "#bf8526",
+          600: "#9f6a1e",
+          700: "#7f521c",
+          800: "#68431d",
+          900: "#57381b",
+        },
+        danger: {
+          50: "#fdf3f2",
+          100: "#fbe3e0",
+          200: "#f6c6c0",
+          300: "#ee9e95",
+          400: "#e06b5e",
+          500: "#cc4637",
+          600: "#b0362a",
+          700: "#912d24",
+          800: "#762822",
+          900: "#622520",
+        },
+        warning: {
+          50: "#fefbe8",
+          100: "#fdf4c4",
+          200: "#fbe78c",
+          300: "#f6d24a",
+          400: "#ebbb1f",
+          500: "#d3a012",
+          600: "#a97a0c",
+          700: "#865d0f",
+          800: "#6e4b13",
+          900: "#5d3f15",
+        },
+        ok: {
+          50: "#f0f8f2",
+          100: "#dbefe0",
+          200: "#b8dec3",
+          300: "#89c59d",
+          400: "#56a673",
+          500: "#378957",
+          600: "#296e45",
+          700: "#23583a",
+          800: "#1f4731",
+          900: "#1b3b2a",
+        },
+      },
+      fontFamily: {
+        sans: ["IBM Plex Sans", "ui-sans-serif", "system-ui", "sans-serif"],
+        mono: ["IBM Plex Mono", "ui-monospace", "SFMono-Regular", "Menlo", "monospace"],
+      },
+    },
+  },
+};
+
+export default config;
