@@ -25,6 +25,8 @@ export class Statement {
   @Column("text", { nullable: true }) invoiceNextAttemptAt: string | null;
   @Column("text", { nullable: true }) invoiceLastError: string | null;
   @Column("text", { nullable: true }) paidAt: string | null;
+  /** When the PDF went to the outbox; null until the statement has been mailed (or needs no mail). */
+  @Column("text", { nullable: true }) mailedAt: string | null;
   @Column("text") createdAt: string;
 
   @ManyToOne("BillingRun", { onDelete: "CASCADE", nullable: false })

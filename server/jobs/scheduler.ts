@@ -9,6 +9,7 @@ import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../services/mail.service";
 import { processDueInvoices } from "../services/invoicing.service";
+import { mailDueStatements } from "../services/billing.service";
 
 export interface JobDeps {
   ds: DataSource;
@@ -36,6 +37,12 @@ export const jobs: Job[] = [
     name: "send-invoices",
     everyMs: 30_000,
     run: (d) => processDueInvoices({ ds: d.ds, payments: d.payments, now: () => d.clock.now() }),
+  },
+  {
+    // Statement PDFs of final runs not yet in the outbox (a large month, or a crash mid-way).
+    name: "mail-statements",
+    everyMs: 15_000,
+    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20 }),
   },
 ];
 

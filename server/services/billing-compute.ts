@@ -92,6 +92,34 @@ export function localDateStart(date: string, tz: string): number {
   return DateTime.fromISO(date, { zone: tz }).startOf("day").toMillis();
 }
 
+/**
+ * Local calendar text for many instants in one zone. Zone offsets only change on quarter-hour
+ * boundaries, so one luxon offset lookup per quarter hour serves every instant in it; a month of
+ * tens of thousands of lines would otherwise spend seconds in Intl look-ups.
+ */
+export function localClock(tz: string) {
+  const offsets = new Map<number, number>();
+  const QUARTER = 15 * 60_000;
+  const shifted = (instant: string | number | Date) => {
+    const ms = typeof instant === "number" ? instant : new Date(instant).getTime();
+    const bucket = Math.floor(ms / QUARTER);
+    let offset = offsets.get(bucket);
+    if (offset === undefined) {
+      offset = DateTime.fromMillis(bucket * QUARTER, { zone: tz }).offset;
+      offsets.set(bucket, offset);
+    }
+    return new Date(ms + offset * 60_000).toISOString();
+  };
+  return {
+    /** YYYY-MM-DD */
+    date: (i: string | number | Date) => shifted(i).slice(0, 10),
+    /** YYYY-MM-DD HH:mm */
+    dateTime: (i: string | number | Date) => shifted(i).slice(0, 16).replace("T", " "),
+    /** YYYY-MM */
+    period: (i: string | number | Date) => shifted(i).slice(0, 7),
+  };
+}
+
 export function periodOf(instant: string | number | Date, tz: string): string {
   const dt = typeof instant === "string" ? DateTime.fromISO(instant, { zone: tz }) : DateTime.fromMillis(new Date(instant).getTime(), { zone: tz });
   return dt.toFormat("yyyy-MM");
@@ -140,13 +168,16 @@ const BASIS_NOTE: Record<string, string> = {
 
 export class MonthPricer {
   private rateCache = new Map<string, (RateEntry & { row: Rate })[]>();
+  private readonly clock: ReturnType<typeof localClock>;
 
   constructor(
     private readonly tz: string,
     private readonly policy: BillingPolicyDto,
     private readonly rates: (RateEntry & { row: Rate })[],
     private readonly instruments: Map<number, InstrumentInfo>,
-  ) {}
+  ) {
+    this.clock = localClock(tz);
+  }
 
   private ratesFor(instrumentId: number, cls: CustomerClass): (RateEntry & { row: Rate })[] {
     const key = `${instrumentId}|${cls}`;
@@ -182,8 +213,7 @@ export class MonthPricer {
     const factor = opening.row.afterHoursFactor;
     const afterHours = factor != null && factor > 1 && inst.bookableHours ? { tz: this.tz, bookableHours: inst.bookableHours, factor } : undefined;
     const { time, lines } = priceBooking({ ...q, rates, booking, policy: toPolicy(this.policy, opening.row), afterHours });
-    const local = DateTime.fromISO(b.startsAt, { zone: this.tz });
-    const when = local.toFormat("yyyy-MM-dd HH:mm");
+    const when = this.clock.dateTime(b.startsAt);
     return lines.map((l) => ({
       bookingId: b.id,
       instrumentId: b.instrumentId,
@@ -212,8 +242,7 @@ async function loadInstruments(em: EntityManager): Promise<Map<number, Instrumen
 
 const BOOKING_COLUMNS = `b.id, b.userId, b.accountId, b.status, b.startsAt, b.endsAt, b.checkedInAt, b.checkedOutAt, b.cancelledAt, b.lateCancel, bi.instrumentId`;
 
-function validityWarning(account: Account, at: string, tz: string): string | null {
-  const day = DateTime.fromISO(at, { zone: tz }).toISODate()!;
+function validityWarning(account: Account, day: string): string | null {
   if (account.validFrom && day < account.validFrom) return `Charges dated ${day} fall before the account opened (${account.validFrom}).`;
   if (account.validTo && day > account.validTo) return `Charges dated ${day} fall after the account closed (${account.validTo}).`;
   return null;
@@ -227,6 +256,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
   const startIso = monthStart.toISOString();
   const endIso = monthEnd.toISOString();
 
+  const clock = localClock(tz);
   const policy = await readBillingPolicy(em);
   const instruments = await loadInstruments(em);
   const rates = (await em.find(Rate)).map((r) => toRateEntry(r, tz));
@@ -255,7 +285,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
       for (const l of pricer.price(b, account.customerClass)) push(account.id, "instrument", l);
     } catch (e) {
       if (!(e instanceof NoRateError)) throw e;
-      missing.add(`${instruments.get(b.instrumentId)?.name ?? `instrument ${b.instrumentId}`} (${account.customerClass}) on ${DateTime.fromISO(b.startsAt, { zone: tz }).toISODate()}`);
+      missing.add(`${instruments.get(b.instrumentId)?.name ?? `instrument ${b.instrumentId}`} (${account.customerClass}) on ${clock.date(b.startsAt)}`);
     }
   }
 
@@ -266,7 +296,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
        WHERE b.startMs < ? AND b.updatedAt > ? ORDER BY b.startMs, b.id, bi.instrumentId`,
       [startMs, earliestFinal],
     );
-    const candidates = older.filter((b) => locked.has(periodOf(b.startsAt, tz)));
+    const candidates = older.filter((b) => locked.has(clock.period(b.startsAt)));
     if (candidates.length > 0) {
       const billedRows: { bookingId: number; instrumentId: number; total: number }[] = await em.query(
         `SELECT cl.bookingId, cl.instrumentId, SUM(cl.amountCents) AS total FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId
@@ -281,7 +311,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
           now = statementTotal(pricer.price(b, account.customerClass));
         } catch (e) {
           if (!(e instanceof NoRateError)) throw e;
-          missing.add(`${instruments.get(b.instrumentId)?.name ?? b.instrumentId} (${account.customerClass}) on ${DateTime.fromISO(b.startsAt, { zone: tz }).toISODate()}`);
+          missing.add(`${instruments.get(b.instrumentId)?.name ?? b.instrumentId} (${account.customerClass}) on ${clock.date(b.startsAt)}`);
           continue;
         }
         const was = billed.get(`${b.id}|${b.instrumentId}`) ?? 0;
@@ -293,7 +323,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
           adjustmentId: null,
           userId: b.userId,
           rateId: null,
-          description: `Correction for booking #${b.id} of ${periodOf(b.startsAt, tz)} (${instruments.get(b.instrumentId)?.name ?? ""}): billed ${was} cents, now ${now} cents`,
+          description: `Correction for booking #${b.id} of ${clock.period(b.startsAt)} (${instruments.get(b.instrumentId)?.name ?? ""}): billed ${was} cents, now ${now} cents`,
           quantity: 1,
           unit: "each",
           unitPriceCents: now - was,
@@ -316,7 +346,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
         WHERE r.status = 'final' AND cl.usageId IS NOT NULL) ORDER BY u.at, u.id`,
       [startIso],
     );
-    for (const u of lateRows) if (locked.has(periodOf(u.at, tz))) usages.push({ ...u, late: true });
+    for (const u of lateRows) if (locked.has(clock.period(u.at))) usages.push({ ...u, late: true });
   }
   let unpricedUsages = 0;
   for (const u of usages) {
@@ -333,7 +363,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
       adjustmentId: null,
       userId: u.userId,
       rateId: null,
-      description: `${u.late ? `Late-logged (${periodOf(u.at, tz)}): ` : ""}${u.chemicalName}, ${round6(u.amount)} ${u.unit}` +
+      description: `${u.late ? `Late-logged (${clock.period(u.at)}): ` : ""}${u.chemicalName}, ${round6(u.amount)} ${u.unit}` +
         (c.markupCents !== 0 ? ` (cost ${u.costCents} cents + ${policy.consumableMarkupPercent}% mark-up)` : " at cost"),
       quantity: u.amount,
       unit: u.unit,
@@ -418,7 +448,7 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
     const warnings = new Set<string>();
     for (const l of list) {
       if (l.kind === "instrument" || l.kind === "consumable") {
-        const w = validityWarning(account, l.at, tz);
+        const w = account.validFrom || account.validTo ? validityWarning(account, clock.date(l.at)) : null;
         if (w) warnings.add(w);
       }
     }

@@ -28,7 +28,7 @@ export interface BillingDeps {
   currency: string;
   now: () => Date;
   payments?: Stripe;
-  /** Send statement PDFs by mail when a run is finalised (the benchmark measures without). */
+  /** Mail statement PDFs as part of finalising (default); false leaves them to the mail-statements job. */
   mailStatements?: boolean;
 }
 
@@ -86,6 +86,69 @@ function insertLines(em: EntityManager, rows: unknown[][]): void {
   for (const r of rows) stmt.run(...r);
 }
 
+async function ownerEmail(em: EntityManager, account: Account): Promise<string | null> {
+  if (account.kind === "external") return account.billingEmail;
+  if (account.ownerId) return (await em.findOne(User, { where: { id: account.ownerId } }))?.email ?? account.billingEmail;
+  return account.billingEmail;
+}
+
+export async function pdfFor(em: EntityManager, st: Statement, account: Account, lines: { at: string; description: string; amountCents: number; userId: number | null }[]) {
+  const ids = [...new Set(lines.map((l) => l.userId).filter((x): x is number => x != null))];
+  const names = new Map<number, string>();
+  for (let i = 0; i < ids.length; i += 500) {
+    const rows: { id: number; name: string }[] = await em.query(`SELECT id, name FROM users WHERE id IN (${ids.slice(i, i + 500).map(() => "?").join(",")})`, ids.slice(i, i + 500));
+    for (const r of rows) names.set(r.id, r.name);
+  }
+  return renderStatementPdf({
+    facility: FACILITY_NAME,
+    period: st.period,
+    currency: st.currency,
+    account: { code: account.code, name: account.name, kind: account.kind, organisation: account.organisation },
+    lines: lines.map((l) => ({ ...l, person: l.userId == null ? null : (names.get(l.userId) ?? null) })),
+    totalCents: st.totalCents,
+    status:
+      account.kind === "external"
+        ? { none: "nothing to pay", queued: "invoice being prepared", open: "invoice open", paid: "paid", payment_failed: "payment declined; invoice open", void: "void" }[st.invoiceStatus]
+        : "settled by journal",
+    invoiceNumber: st.invoiceNumber,
+  });
+}
+
+/**
+ * Renders and queues the PDF of every final statement not yet mailed (one transaction each, so
+ * a crash loses nothing: the next pass picks up what is left). Used after a run and by the job.
+ */
+export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number } = {}): Promise<number> {
+  const qb = ds
+    .getRepository(Statement)
+    .createQueryBuilder("s")
+    .innerJoin(BillingRun, "r", "r.id = s.runId")
+    .where("r.status = 'final' AND s.mailedAt IS NULL");
+  if (opts.runId) qb.andWhere("s.runId = :runId", { runId: opts.runId });
+  const due = await qb.orderBy("s.id").limit(opts.limit ?? 500).getMany();
+  for (const st of due) {
+    await serialTransaction(ds, async (em) => {
+      const account = await em.findOneOrFail(Account, { where: { id: st.accountId } });
+      const to = await ownerEmail(em, account);
+      if (to) {
+        const lines = await em.find(ChargeLine, { where: { statementId: st.id }, order: { at: "ASC", id: "ASC" } });
+        const pdf = await pdfFor(em, st, account, lines);
+        await enqueueMail(em, now(), {
+          to,
+          subject: `${FACILITY_NAME} statement ${st.period} — ${account.code}`,
+          text:
+            `The statement for ${account.name} (${account.code}) for ${st.period} is attached: ` +
+            `${lines.length} line(s), total ${centsToDecimalString(st.totalCents)} ${st.currency}.` +
+            (account.kind === "external" ? "\nAn invoice follows from our payment service." : "\nInternal accounts are settled by journal transfer; nothing to pay."),
+          attachments: [{ filename: `statement-${st.period}-${account.code}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }],
+        });
+      }
+      await em.update(Statement, st.id, { mailedAt: now().toISOString() });
+    });
+  }
+  return due.length;
+}
+
 export function createBillingService(deps: BillingDeps) {
   const { ds, tz, currency } = deps;
 
@@ -99,34 +162,6 @@ export function createBillingService(deps: BillingDeps) {
   async function preview(period: string): Promise<ComputedMonth> {
     assertEnded(period);
     return ds.transaction((em) => computeMonth(em, { period, tz }));
-  }
-
-  async function ownerEmail(em: EntityManager, account: Account): Promise<string | null> {
-    if (account.kind === "external") return account.billingEmail;
-    if (account.ownerId) return (await em.findOne(User, { where: { id: account.ownerId } }))?.email ?? account.billingEmail;
-    return account.billingEmail;
-  }
-
-  async function pdfFor(em: EntityManager, st: Statement, account: Account, lines: { at: string; description: string; amountCents: number; userId: number | null }[]) {
-    const ids = [...new Set(lines.map((l) => l.userId).filter((x): x is number => x != null))];
-    const names = new Map<number, string>();
-    for (let i = 0; i < ids.length; i += 500) {
-      const rows: { id: number; name: string }[] = await em.query(`SELECT id, name FROM users WHERE id IN (${ids.slice(i, i + 500).map(() => "?").join(",")})`, ids.slice(i, i + 500));
-      for (const r of rows) names.set(r.id, r.name);
-    }
-    return renderStatementPdf({
-      facility: FACILITY_NAME,
-      period: st.period,
-      currency: st.currency,
-      account: { code: account.code, name: account.name, kind: account.kind, organisation: account.organisation },
-      lines: lines.map((l) => ({ ...l, person: l.userId == null ? null : (names.get(l.userId) ?? null) })),
-      totalCents: st.totalCents,
-      status:
-        account.kind === "external"
-          ? { none: "nothing to pay", queued: "invoice being prepared", open: "invoice open", paid: "paid", payment_failed: "payment declined; invoice open", void: "void" }[st.invoiceStatus]
-          : "settled by journal",
-      invoiceNumber: st.invoiceNumber,
-    });
   }
 
   async function createRun(actor: AuthUser, period: string): Promise<BillingRun> {
@@ -172,6 +207,7 @@ export function createBillingService(deps: BillingDeps) {
           invoiceNextAttemptAt: external && s.totalCents > 0 ? nowIso : null,
           invoiceLastError: null,
           paidAt: null,
+          mailedAt: null,
           createdAt: nowIso,
         });
         insertLines(
@@ -181,26 +217,14 @@ export function createBillingService(deps: BillingDeps) {
             l.description, l.quantity, l.unit, l.unitPriceCents, l.amountCents, l.at,
           ]),
         );
-        if (deps.mailStatements !== false) {
-          const to = await ownerEmail(em, s.account);
-          if (to) {
-            const pdf = await pdfFor(em, st, s.account, s.lines);
-            await enqueueMail(em, deps.now(), {
-              to,
-              subject: `${FACILITY_NAME} statement ${period} — ${s.account.code}`,
-              text:
-                `The statement for ${s.account.name} (${s.account.code}) for ${period} is attached: ` +
-                `${s.lines.length} line(s), total ${centsToDecimalString(s.totalCents)} ${currency}.` +
-                (external ? "\nAn invoice follows from our payment service." : "\nInternal accounts are settled by journal transfer; nothing to pay."),
-              attachments: [{ filename: `statement-${period}-${s.account.code}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }],
-            });
-          }
-        }
       }
       await audit(em, deps.now(), actor.id, "billing.run_finalised", "billing_run", run.id, { period, totalCents: month.totalCents, statements: month.statements.length });
       return run.id;
     });
-    // After the commit: an unreachable payment service must not undo a finished run.
+    // After the commit: statements are mailed and invoiced outside the run's transaction, so a
+    // slow PDF or an unreachable payment service never undoes a finished run; the jobs finish
+    // whatever is left.
+    if (deps.mailStatements !== false) await mailDueStatements(ds, deps.now, { runId }).catch(() => undefined);
     await processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { runId, force: true }).catch(() => undefined);
     return ds.getRepository(BillingRun).findOneByOrFail({ id: runId });
   }

@@ -2,6 +2,6 @@
 // (npm run db:migration -- <name>) and list it here.
 import { InitialSchema1796173192009 } from "./1796173192009-initial-schema";
 import { BookingsAndUsages1796173432958 } from "./1796173432958-bookings-and-usages";
-import { Recharge1796173813713 } from "./1796173813713-recharge";
+import { Recharge1796174960945 } from "./1796174960945-recharge";
 
-export const migrations = [InitialSchema1796173192009, BookingsAndUsages1796173432958, Recharge1796173813713];
+export const migrations = [InitialSchema1796173192009, BookingsAndUsages1796173432958, Recharge1796174960945];
