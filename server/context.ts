@@ -12,6 +12,9 @@ import { createTrainingService } from "./services/training.service";
 import { createLabelService } from "./services/label.service";
 import { createScanActionService } from "./services/scan-action.service";
 import { createStockServices } from "./services/stock-services";
+import { createAccountsService } from "./services/accounts.service";
+import { createBillingService } from "./services/billing.service";
+import { createRatesService } from "./services/rates.service";
 
 export interface AppDeps {
   ds: DataSource;
@@ -42,6 +45,9 @@ export function createServices(deps: AppDeps) {
     labels: createLabelService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityTz: deps.config.FACILITY_TZ }),
     scanActions: createScanActionService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
     ...createStockServices({ ds: deps.ds, now, dataDir: deps.config.dataDir, tz: deps.config.FACILITY_TZ }),
+    accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
+    rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
+    billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments }),
   };
 }
 

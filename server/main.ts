@@ -65,7 +65,7 @@ async function main(): Promise<void> {
     mailboxUrl: needMailFake ? fakes?.mailbox.httpUrl : undefined,
   });
   sessionStore.startSweeping();
-  const scheduler = startScheduler({ ds, mailer, clock: systemClock, config });
+  const scheduler = startScheduler({ ds, mailer, clock: systemClock, config, payments });
 
   const server: Server = app.listen(config.PORT, config.HOST, () => {
     const lines = [

@@ -1,6 +1,12 @@
 import { Account } from "./account.entity";
 import { AccountMember } from "./account-member.entity";
 import { AuditEntry } from "./audit-entry.entity";
+import { BillingAdjustment } from "./billing-adjustment.entity";
+import { BillingRun } from "./billing-run.entity";
+import { ChargeLine } from "./charge-line.entity";
+import { ProcessedEvent } from "./processed-event.entity";
+import { Rate } from "./rate.entity";
+import { Statement } from "./statement.entity";
 import { Booking } from "./booking.entity";
 import { BookingInstrument } from "./booking-instrument.entity";
 import { Chemical } from "./chemical.entity";
@@ -31,6 +37,7 @@ export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   Setup, SetupInstrument, TrainingRequest,
+  BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
 };
 // Stockroom and safety review.
 export { ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert };
@@ -40,4 +47,5 @@ export const entities = [
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert,
   Setup, SetupInstrument, TrainingRequest,
+  BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
 ];

@@ -3,18 +3,23 @@
  * and logs rather than crashes on failure.
  */
 import type { DataSource } from "typeorm";
+import type Stripe from "stripe";
 import type { Clock } from "../clock";
 import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../services/mail.service";
 import { runStockAlerts } from "../services/stock-alerts.service";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
+import { processDueInvoices } from "../services/invoicing.service";
+import { mailDueStatements } from "../services/billing.service";
 
 export interface JobDeps {
   ds: DataSource;
   mailer: Mailer;
   clock: Clock;
   config: Config;
+  /** The payment service; without it external invoices stay queued. */
+  payments?: Stripe;
 }
 
 export interface Job {
@@ -38,6 +43,18 @@ export const jobs: Job[] = [
   { name: "booking-reminders", everyMs: 5 * 60_000, run: (d) => sendBookingReminders(d.ds, d.clock.now(), d.config) },
   { name: "no-shows", everyMs: 60_000, run: (d) => markNoShows(d.ds, d.clock.now(), d.config) },
   { name: "training-expiry-notices", everyMs: 60 * 60_000, run: (d) => sendTrainingExpiryNotices(d.ds, d.clock.now(), d.config) },
+  {
+    // Invoices the payment service did not take when a run was finalised (or voided), retried with backoff.
+    name: "send-invoices",
+    everyMs: 30_000,
+    run: (d) => processDueInvoices({ ds: d.ds, payments: d.payments, now: () => d.clock.now() }),
+  },
+  {
+    // Statement PDFs of final runs not yet in the outbox (a large month, or a crash mid-way).
+    name: "mail-statements",
+    everyMs: 15_000,
+    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20 }),
+  },
 ];
 
 export function startScheduler(deps: JobDeps, list: Job[] = jobs): { stop(): void } {

@@ -20,6 +20,9 @@ import { createContainersRouter } from "./containers.router";
 import { createLocationsRouter } from "./locations.router";
 import { createSafetyRouter, createSdsRouter } from "./safety.router";
 import { createSolutionsRouter } from "./solutions.router";
+import { createBillingRouter } from "./billing.router";
+import { createRatesRouter } from "./rates.router";
+import { createWebhooksRouter } from "./webhooks.router";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -49,6 +52,9 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/safety", router: createSafetyRouter(ctx) },
     { path: "/sds", router: createSdsRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
+    { path: "/rates", router: createRatesRouter(ctx) },
+    { path: "/billing", router: createBillingRouter(ctx) },
+    { path: "/webhooks", router: createWebhooksRouter(ctx) },
   ];
 }
 

@@ -69,6 +69,7 @@ export function createAppRouter() {
         screen(paths.prepareSolution.path, () => import("./routes/stockroom-prepare").then((m) => ({ Component: m.PrepareSolutionRoute }))),
         screen(paths.scan.path, () => import("./routes/scan").then((m) => ({ Component: m.ScanRoute }))),
         screen(paths.scanToken.path, () => import("./routes/scan-token").then((m) => ({ Component: m.ScanTokenRoute }))),
+        screen(paths.myCharges.path, () => import("./routes/my-charges").then((m) => ({ Component: m.MyChargesRoute }))),
         screen(paths.profile.path, () => import("./routes/profile").then((m) => ({ Component: m.ProfileRoute }))),
         restricted(AREA_ROLES.training, [
           screen(paths.training.path, () => import("./routes/training").then((m) => ({ Component: m.TrainingRoute }))),

@@ -30,6 +30,7 @@ export const paths = {
   scan: { path: "/scan", getHref: () => "/scan" },
   scanToken: { path: "/s/:token", getHref: (token: string) => `/s/${enc(token)}` },
   recharge: { path: "/recharge", getHref: () => "/recharge" },
+  myCharges: { path: "/charges", getHref: () => "/charges" },
   safety: { path: "/safety", getHref: () => "/safety" },
   safetyLocations: { path: "/safety/locations", getHref: () => "/safety/locations" },
   admin: {

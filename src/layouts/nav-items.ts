@@ -40,6 +40,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { slug: "bookings", label: "My bookings", to: paths.myBookings.getHref(), icon: "bookings", group: "work" },
   { slug: "instruments", label: "Instruments", to: paths.instruments.getHref(), icon: "instruments", group: "work" },
   { slug: "stockroom", label: "Stockroom", to: paths.stockroom.getHref(), icon: "stockroom", group: "work" },
+  { slug: "charges", label: "My charges", to: paths.myCharges.getHref(), icon: "recharge", group: "work" },
   { slug: "scan", label: "Scan", to: paths.scan.getHref(), icon: "scan", group: "work" },
   { slug: "training", label: "Training", to: paths.training.getHref(), icon: "training", group: "facility", roles: AREA_ROLES.training },
   {

@@ -5,6 +5,7 @@ import { BookingsAndUsages1796173432958 } from "./1796173432958-bookings-and-usa
 import { ScheduleSetupsAndTrainingRequests1796173773439 } from "./1796173773439-schedule-setups-and-training-requests";
 import { LabelsAndStocks1796173796292 } from "./1796173796292-labels-and-stocks";
 import { StockroomAndSafety1796173804700 } from "./1796173804700-stockroom-and-safety";
+import { Recharge1796174960945 } from "./1796174960945-recharge";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -12,4 +13,5 @@ export const migrations = [
   ScheduleSetupsAndTrainingRequests1796173773439,
   LabelsAndStocks1796173796292,
   StockroomAndSafety1796173804700,
+  Recharge1796174960945,
 ];

@@ -35,6 +35,7 @@ import { DEMO_INSTRUMENTS, DEMO_TRAINING, type InstrumentKey } from "./demo-inst
 import { DEMO_LOCATIONS, type LocationKey } from "./demo-locations";
 import { DEMO_DEPARTMENTS, DEMO_GROUPS, DEMO_PASSWORD, DEMO_PEOPLE, type DepartmentCode, type GroupKey, type PersonKey } from "./demo-people";
 import { dateAfter, isoAfter } from "./demo-time";
+import { seedDemoRates } from "./demo-rates";
 
 export const DEMO_SEEDED_KEY = "demo_seeded";
 
@@ -280,6 +281,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
       receiverId: managerId,
     });
     await seedDemoBookings(em, { now, tz: opts.tz ?? "America/Halifax", people, instruments, accounts, managerId });
+    await seedDemoRates(em, { now });
 
     await em.insert(Setting, { key: DEMO_SEEDED_KEY, value: JSON.stringify({ at: nowIso }) });
     await audit(em, now, null, "demo.seeded", "setting", null, { key: DEMO_SEEDED_KEY });

@@ -1,10 +1,6 @@
-/** Recharge (placeholder until the billing work lands). */
-import { PlannedScreen } from "@/components/planned-screen";
+/** Recharge: the manager's and group lead's billing section. */
+import { RechargePage } from "@/features/recharge/components/recharge-page";
 
 export function RechargeRoute() {
-  return (
-    <PlannedScreen title="Recharge">
-      Accounts and who may charge them, hourly rates per customer class, monthly statements, and the journal file for the finance office.
-    </PlannedScreen>
-  );
+  return <RechargePage />;
 }

@@ -1,0 +1,38 @@
+import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from "typeorm";
+
+/**
+ * instrument: one booking on one instrument at one rate (a rate change splits it);
+ * consumable: one container usage at cost × mark-up; adjustment: a manager's credit or charge;
+ * correction: the difference for a booking changed after its month was finalised;
+ * cap_credit: brings one member's month on one account down to the cap.
+ */
+export type ChargeKind = "instrument" | "consumable" | "adjustment" | "correction" | "cap_credit";
+
+/** One line of a statement, kept as billed so a finalised statement never changes. */
+@Entity("charge_lines")
+export class ChargeLine {
+  @PrimaryGeneratedColumn("increment") id: number;
+  @Index() @Column("integer") statementId: number;
+  @Index() @Column("integer") runId: number;
+  @Column("integer") accountId: number;
+  @Column("text") kind: ChargeKind;
+  @Index() @Column("integer", { nullable: true }) bookingId: number | null;
+  @Column("integer", { nullable: true }) instrumentId: number | null;
+  @Index() @Column("integer", { nullable: true }) usageId: number | null;
+  @Column("integer", { nullable: true }) adjustmentId: number | null;
+  @Index() @Column("integer", { nullable: true }) userId: number | null;
+  @Column("integer", { nullable: true }) rateId: number | null;
+  @Column("text") description: string;
+  /** Minutes for instrument time, the amount used for consumables, 1 otherwise. */
+  @Column("real") quantity: number;
+  @Column("text") unit: string;
+  /** Hourly rate for time, unit cost for consumables, the amount otherwise. */
+  @Column("integer") unitPriceCents: number;
+  @Column("integer") amountCents: number;
+  /** When the charged thing happened (session start, usage time, entry time). */
+  @Column("text") at: string;
+
+  @ManyToOne("Statement", { onDelete: "CASCADE", nullable: false })
+  @JoinColumn({ name: "statementId" })
+  statement?: unknown;
+}
