@@ -9,6 +9,7 @@ import type { BookingListItem } from "@shared/schemas/bookings";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
 import { describeError } from "@/lib/forms";
+import { useFacilityZone } from "@/lib/facility";
 import { formatSpan } from "@/lib/format";
 import { useInstrument } from "@/features/instruments/api/instrument";
 import { InstrumentRulesForm } from "@/features/instruments/components/instrument-rules-form";
@@ -46,14 +47,16 @@ function Rules({ i }: { i: InstrumentDto }) {
   );
 }
 
-function BookingList({ items }: { items: BookingListItem[] }) {
+function BookingList({ items, zone }: { items: BookingListItem[]; zone: string | undefined }) {
+  // Times wait for the facility's zone rather than flash in the browser's.
+  if (!zone) return <LoadingLine label="Loading" />;
   if (items.length === 0) return <p className="text-sm text-grey-600">None.</p>;
   return (
     <ul className="divide-y divide-grey-100 text-sm">
       {items.map((b) => (
         <li key={b.id} className="flex items-center justify-between gap-2 py-1.5">
           <span>
-            {formatSpan(b.start, b.end)} {b.busy ? <span className="text-grey-600">· booked</span> : <span className="text-grey-600">· {b.userName}</span>}
+            {formatSpan(b.start, b.end, zone)} {b.busy ? <span className="text-grey-600">· booked</span> : <span className="text-grey-600">· {b.userName}</span>}
           </span>
           <StatusBadge status={b.status} />
         </li>
@@ -67,6 +70,7 @@ export function InstrumentRoute() {
   const { data: user } = useUser();
   const manager = hasRole(user, "manager");
   const instrument = useInstrument(id);
+  const zone = useFacilityZone();
   const [now] = useState(() => Date.now());
   const span = useMemo(
     () => ({ from: new Date(now - 60 * 86_400_000).toISOString(), to: new Date(now + 60 * 86_400_000).toISOString() }),
@@ -138,10 +142,10 @@ export function InstrumentRoute() {
           </Card>
         )}
         <Card title="Upcoming bookings (60 days)">
-          <BookingList items={upcoming} />
+          <BookingList items={upcoming} zone={zone} />
         </Card>
         <Card title="History (last 60 days)">
-          <BookingList items={history} />
+          <BookingList items={history} zone={zone} />
         </Card>
       </div>
     </>
