@@ -152,6 +152,7 @@ function RevokeDialog({ record, onClose }: { record: TrainingDto | null; onClose
         }}
       >
         <Input label="Reason (kept on the record and in the audit log)" value={reason} onChange={(e) => setReason(e.target.value)} required autoFocus data-testid="revoke-reason" maxLength={500} />
+        {error && <Alert tone="danger">{error}</Alert>}
           <div className="flex justify-end gap-2">
           <Button onClick={close}>Keep the training</Button>
           <Button type="submit" variant="danger" disabled={!reason.trim()} loading={revoke.isPending} data-testid="revoke-confirm">
