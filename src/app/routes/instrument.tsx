@@ -13,6 +13,7 @@ import { useFacilityZone } from "@/lib/facility";
 import { formatSpan } from "@/lib/format";
 import { useInstrument } from "@/features/instruments/api/instrument";
 import { InstrumentRulesForm } from "@/features/instruments/components/instrument-rules-form";
+import { RetireInstrumentButton } from "@/features/instruments/components/retire-instrument-dialog";
 import { useBookings } from "@/features/schedule/api/get-bookings";
 import { StatusBadge } from "@/features/schedule/components/booking-status";
 import { useRequestTraining, useTrainingRecords } from "@/features/training/api/training";
@@ -92,7 +93,13 @@ export function InstrumentRoute() {
 
   return (
     <>
-      <PageHeader title={i.name} description={i.description} actions={<Link to={paths.schedule.getHref()}>Open the Schedule</Link>} />
+      <PageHeader title={i.name} description={i.description} actions={
+          <div className="flex items-center gap-3">
+            <Link to={paths.schedule.getHref()}>Open the Schedule</Link>
+            {manager && <RetireInstrumentButton instrument={i} />}
+          </div>
+        }
+      />
       <div className="flex flex-col gap-4">
         <Card title="Booking rules">
           <Rules i={i} />

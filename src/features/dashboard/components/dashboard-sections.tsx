@@ -71,7 +71,7 @@ export function ManagerSection({ manager }: { manager: NonNullable<Dashboard["ma
       <h2 id="manager-heading" className="text-sm font-semibold text-grey-900">
         Facility
       </h2>
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <StatTile
           testId="stat-pending-approvals"
           label="Booking requests waiting for approval"
@@ -79,6 +79,14 @@ export function ManagerSection({ manager }: { manager: NonNullable<Dashboard["ma
           to={paths.approvals.getHref()}
           linkText="Open the approval queue"
           attention={{ tone: "warning", word: "Waiting" }}
+        />
+        <StatTile
+          testId="stat-training-requests"
+          label="Members asking for training"
+          value={manager.openTrainingRequests}
+          to={paths.training.getHref()}
+          linkText="Answer the requests"
+          attention={{ tone: "warning", word: "Asking" }}
         />
         <StatTile
           testId="stat-training-expiring"
