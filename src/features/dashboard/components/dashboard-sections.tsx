@@ -4,6 +4,7 @@
  */
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
+import { useFacilityZone } from "@/lib/facility";
 import { formatSpan, humanize } from "@/lib/format";
 import type { Dashboard, DashboardBooking } from "../api/get-dashboard";
 import { Card } from "@/components/ui/card";
@@ -22,11 +23,13 @@ const BOOKING_TONES: Record<string, BadgeTone> = {
 };
 
 function BookingRow({ booking }: { booking: DashboardBooking }) {
+  // Bookings are on the facility's clock, like the Schedule.
+  const zone = useFacilityZone();
   return (
     <li className="flex flex-wrap items-center justify-between gap-x-4 gap-y-1 py-2">
       <div className="min-w-0">
         <p className="font-medium text-grey-900">{booking.instrumentNames.join(" + ") || "Booking"}</p>
-        <p className="text-xs text-grey-600">{formatSpan(booking.start, booking.end)}</p>
+        <p className="text-xs text-grey-600">{formatSpan(booking.start, booking.end, zone)}</p>
       </div>
       <Badge tone={BOOKING_TONES[booking.status] ?? "neutral"}>{humanize(booking.status)}</Badge>
     </li>
