@@ -40,9 +40,11 @@ export function formatDateTime(iso: string, zone?: string): string {
   return zone ? `${DateTime.fromJSDate(d, { zone }).toLocaleString(DATE_TIME_OPTIONS)} ${zoneShortName(d, zone)}` : dateTime.format(d);
 }
 
-export function formatDate(iso: string): string {
+/** A calendar date; with a zone, the date on that zone's clock (an expiry at 23:59 local stays on its day). */
+export function formatDate(iso: string, zone?: string): string {
   const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? iso : dateOnly.format(d);
+  if (Number.isNaN(d.getTime())) return iso;
+  return zone ? DateTime.fromJSDate(d, { zone }).toLocaleString({ day: "numeric", month: "short", year: "numeric" }) : dateOnly.format(d);
 }
 
 /** "no_show" → "No-show", "in_progress" → "In progress": status codes as words. */

@@ -10,7 +10,7 @@ import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
 import { describeError } from "@/lib/forms";
 import { useFacilityZone } from "@/lib/facility";
-import { formatSpan } from "@/lib/format";
+import { formatDate, formatSpan } from "@/lib/format";
 import { useInstrument } from "@/features/instruments/api/instrument";
 import { InstrumentRulesForm } from "@/features/instruments/components/instrument-rules-form";
 import { RetireInstrumentButton } from "@/features/instruments/components/retire-instrument-dialog";
@@ -141,7 +141,7 @@ export function InstrumentRoute() {
               {(trained.data?.items ?? []).map((r) => (
                 <li key={r.id}>
                   {r.userName} · {r.state}
-                  {r.expiresAt ? ` until ${r.expiresAt.slice(0, 10)}` : ""}
+                  {r.expiresAt ? ` until ${formatDate(r.expiresAt, zone)}` : ""}
                   {r.afterHours ? " · after hours" : ""}
                 </li>
               ))}

@@ -7,6 +7,8 @@ import { useState } from "react";
 import type { InstrumentDto } from "@shared/schemas/instruments";
 import { TRAINING_STATE_LABELS, type TrainingDto } from "@shared/schemas/training";
 import { describeError } from "@/lib/forms";
+import { zonedInputToIso } from "@shared/domain/facility-time";
+import { useFacilityZone } from "@/lib/facility";
 import { formatDate, formatDateTime } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
 import { Badge, type BadgeTone } from "@/components/ui/badge";
@@ -22,6 +24,7 @@ import { useCloseTrainingRequest, useGrantTraining, useRevokeTraining, useTraina
 const TONES: Record<TrainingDto["state"], BadgeTone> = { current: "ok", expiring: "warning", expired: "danger", none: "neutral" };
 
 function RecordsTable({ items, onRevoke }: { items: TrainingDto[]; onRevoke?: (r: TrainingDto) => void }) {
+  const zone = useFacilityZone();
   return (
     <Table caption="Training records">
       <THead>
@@ -43,7 +46,7 @@ function RecordsTable({ items, onRevoke }: { items: TrainingDto[]; onRevoke?: (r
             <Td>
               <Badge tone={TONES[r.state]}>{TRAINING_STATE_LABELS[r.state]}</Badge>
             </Td>
-            <Td>{r.expiresAt ? formatDate(r.expiresAt) : "Never"}</Td>
+            <Td>{r.expiresAt ? formatDate(r.expiresAt, zone) : "Never"}</Td>
             <Td>{r.afterHours ? "Endorsed" : "No"}</Td>
             <Td className="text-xs">{r.notes || "—"}</Td>
             {onRevoke && (
@@ -65,16 +68,23 @@ function RecordsTable({ items, onRevoke }: { items: TrainingDto[]; onRevoke?: (r
 function GrantForm({ instruments, initial }: { instruments: InstrumentDto[]; initial?: { userId: number; instrumentId: number } }) {
   const people = useTrainablePeople(true);
   const grant = useGrantTraining();
+  const zone = useFacilityZone();
   const oneYear = new Date(Date.now() + 365 * 86_400_000).toISOString().slice(0, 10);
   const [v, setV] = useState({ userId: String(initial?.userId ?? ""), instrumentId: String(initial?.instrumentId ?? ""), expires: oneYear, afterHours: false, notes: "" });
   const [msg, setMsg] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
   const submit = async () => {
     setMsg(null);
+    // The end of that day on the facility's clock, where the bookings it governs are made.
+    const expiresAt = v.expires && zone ? zonedInputToIso(`${v.expires}T23:59`, zone) : null;
+    if (v.expires && !expiresAt) {
+      setMsg({ tone: "danger", text: "Give the expiry as a date, or leave it empty for none." });
+      return;
+    }
     try {
       await grant.mutateAsync({
         userId: Number(v.userId),
         instrumentId: Number(v.instrumentId),
-        expiresAt: v.expires ? new Date(`${v.expires}T23:59:00`).toISOString() : null,
+        expiresAt,
         afterHours: v.afterHours,
         notes: v.notes,
       });
@@ -108,7 +118,7 @@ function GrantForm({ instruments, initial }: { instruments: InstrumentDto[]; ini
       </div>
       {msg && <Alert tone={msg.tone} className="mt-3">{msg.text}</Alert>}
       <div className="mt-3 flex justify-end">
-        <Button variant="primary" disabled={!v.userId || !v.instrumentId} loading={grant.isPending} onClick={submit}>
+        <Button variant="primary" disabled={!v.userId || !v.instrumentId || !zone} loading={grant.isPending} onClick={submit}>
           Record training
         </Button>
       </div>
@@ -165,6 +175,7 @@ function RevokeDialog({ record, onClose }: { record: TrainingDto | null; onClose
 }
 
 export function TrainingPage({ instruments }: { instruments: InstrumentDto[] }) {
+  const zone = useFacilityZone();
   const expiring = useTrainingRecords({ expiringWithinDays: 30 });
   const all = useTrainingRecords({ includeRevoked: true });
   const requests = useTrainingRequests("open");
@@ -182,7 +193,7 @@ export function TrainingPage({ instruments }: { instruments: InstrumentDto[] }) 
               <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
                 <span>
                   <strong>{r.userName}</strong> asks for training on <strong>{r.instrumentName}</strong>
-                  {r.note && <> — “{r.note}”</>} <span className="text-xs text-grey-600">({formatDateTime(r.createdAt)})</span>
+                  {r.note && <> — “{r.note}”</>} <span className="text-xs text-grey-600">({formatDateTime(r.createdAt, zone)})</span>
                 </span>
                 <Button size="sm" onClick={() => close.mutate({ id: r.id, outcome: "dismissed" })}>
                   Dismiss
