@@ -214,3 +214,44 @@ describe("the manager's Schedule screens", () => {
     await page.context().close();
   });
 });
+
+describe("the manager's training screens", () => {
+  it("counts open training requests on the start page and revokes training through a dialog that asks why", async () => {
+    const managerApi = new ApiClient(server.url);
+    await managerApi.login(MANAGER, "phasebook-demo");
+    const instruments = (await managerApi.get("/api/instruments?limit=100")).body.items as { id: number; name: string; status: string }[];
+    const target = instruments.find((i) => i.status === "in_service")!;
+    const people = (await managerApi.get("/api/training/people")).body.items as { id: number; email: string; name: string }[];
+    const newcomer = people.find((p) => p.email === "member2@kestrelbay.example")!;
+
+    // member2 is trained on nothing in the demo; they ask, and the manager's start page counts it.
+    const asker = new ApiClient(server.url);
+    await asker.login(newcomer.email, "phasebook-demo");
+    expect((await asker.post("/api/training/requests", { instrumentId: target.id, note: "First run next month" })).status).toBe(201);
+    const open = ((await managerApi.get("/api/training/requests?status=open")).body.items as unknown[]).length;
+
+    const page = await newPage();
+    await signIn(page, server.url, MANAGER);
+    const tile = page.locator('[data-testid="stat-training-requests"]');
+    await tile.waitFor();
+    expect(await tile.textContent()).toContain(String(open));
+    expect(await tile.textContent()).toContain("Members asking for training");
+
+    // A record to revoke: grant it through the API, then revoke it on the Training page.
+    const granted = await managerApi.post("/api/training", { userId: newcomer.id, instrumentId: target.id, expiresAt: new Date(Date.now() + 90 * 86_400_000).toISOString() });
+    expect(granted.status).toBe(201);
+    await page.goto(`${server.url}/training`);
+    const row = page.locator("tr", { hasText: newcomer.name }).filter({ hasText: target.name }).filter({ has: page.getByRole("button", { name: "Revoke…" }) });
+    await row.first().getByRole("button", { name: "Revoke…" }).click();
+    const dialog = page.locator('[data-testid="revoke-dialog"]');
+    await dialog.waitFor();
+    // No reason, no revoke.
+    expect(await page.locator('[data-testid="revoke-confirm"]').isDisabled()).toBe(true);
+    await page.fill('[data-testid="revoke-reason"]', "Left the group");
+    await page.click('[data-testid="revoke-confirm"]');
+    await dialog.waitFor({ state: "hidden" });
+    const records = (await managerApi.get(`/api/training?userId=${newcomer.id}&instrumentId=${target.id}&includeRevoked=true`)).body.items as { state: string; revokedAt: string | null; notes: string }[];
+    expect(records.some((r) => r.revokedAt !== null && r.notes === "Left the group")).toBe(true);
+    await page.context().close();
+  });
+});
