@@ -75,6 +75,7 @@ export function createAppRouter() {
           screen(paths.training.path, () => import("./routes/training").then((m) => ({ Component: m.TrainingRoute }))),
           screen(paths.approvals.path, () => import("./routes/approvals").then((m) => ({ Component: m.ApprovalsRoute }))),
           screen(paths.utilisation.path, () => import("./routes/utilisation").then((m) => ({ Component: m.UtilisationRoute }))),
+          screen(paths.scheduleSettings.path, () => import("./routes/schedule-settings").then((m) => ({ Component: m.ScheduleSettingsRoute }))),
         ]),
         restricted(AREA_ROLES.recharge, [
           screen(paths.recharge.path, () => import("./routes/recharge").then((m) => ({ Component: m.RechargeRoute }))),

@@ -17,6 +17,7 @@ export const paths = {
   schedule: { path: "/schedule", getHref: () => "/schedule" },
   approvals: { path: "/schedule/approvals", getHref: () => "/schedule/approvals" },
   utilisation: { path: "/schedule/utilisation", getHref: () => "/schedule/utilisation" },
+  scheduleSettings: { path: "/schedule/settings", getHref: () => "/schedule/settings" },
   myBookings: { path: "/bookings", getHref: () => "/bookings" },
   instruments: { path: "/instruments", getHref: () => "/instruments" },
   instrument: { path: "/instruments/:id", getHref: (id: number) => `/instruments/${id}` },

@@ -120,3 +120,40 @@ describe("GET /api/bookings/:id.ics", () => {
     expect((await s.get(`/api/bookings/${bookingIds[0]}.ics`)).status).toBe(404);
   });
 });
+
+describe("feed times across the facility's daylight-saving change", () => {
+  it("writes DTSTART and DTEND in UTC without TZID, so 10:00 Halifax time is 14:00Z before and 13:00Z after 14 March 2027 (RFC 5545 §3.3.5 form 2)", async () => {
+    // America/Halifax moves from UTC−4 to UTC−3 on 14 March 2027 (IANA tz database, "northamerica").
+    const who = await makeUser(t.ds, { roles: ["member"], name: "Dara Daylight" });
+    const accountId = (await makeAccount(t.ds, [who.id])).id;
+    const cell = await makeInstrument(t.ds);
+    await train(t.ds, who.id, cell.id);
+    const client = new ApiClient(t.url);
+    await client.login(who.email, TEST_PASSWORD);
+    const r = await client.post("/api/bookings", {
+      instrumentIds: [cell.id],
+      start: "2027-03-08T10:00:00-04:00",
+      end: "2027-03-08T11:00:00-04:00",
+      accountId,
+      purpose: "",
+      repeatWeeks: 2,
+    });
+    expect(r.status).toBe(201);
+
+    const text = checkLines((await fetchFeed((await client.get("/api/calendar/me")).body.url)).bytes);
+    const starts = text.split("\r\n").filter((l) => l.startsWith("DTSTART"));
+    const ends = text.split("\r\n").filter((l) => l.startsWith("DTEND"));
+    // The weekly session keeps its local hour, so its UTC time moves by the hour the clocks change.
+    expect(starts).toEqual(["DTSTART:20270308T140000Z", "DTSTART:20270315T130000Z"]);
+    expect(ends).toEqual(["DTEND:20270308T150000Z", "DTEND:20270315T140000Z"]);
+    // UTC times need no time-zone definition (RFC 5545 §3.6.5 applies only to TZID references).
+    expect(text).not.toContain("TZID");
+    expect(text).not.toContain("BEGIN:VTIMEZONE");
+
+    const cal = new ICAL.Component(ICAL.parse(text));
+    const localHours = cal
+      .getAllSubcomponents("vevent")
+      .map((e) => new Date(new ICAL.Event(e).startDate.toJSDate()).toLocaleString("en-GB", { timeZone: "America/Halifax", hour: "2-digit", minute: "2-digit" }));
+    expect(localHours).toEqual(["10:00", "10:00"]);
+  });
+});

@@ -1,9 +1,12 @@
 /**
  * A member books a slot by selecting it on the Schedule, the manager approves it in the queue,
- * the member sees it confirmed, and the mails reach the fake mailbox.
+ * the member sees it confirmed, and the mails reach the fake mailbox. A browser in another time
+ * zone still sees and books the facility's local hours. Managers keep setups, the booking policy
+ * and instruments from their own screens.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
+import { DateTime } from "luxon";
 import { launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
 import { ApiClient } from "../support/http-client";
 
@@ -22,9 +25,11 @@ afterAll(async () => {
 const MEMBER = "member@kestrelbay.example";
 const MANAGER = "manager@kestrelbay.example";
 
-async function newPage(): Promise<Page> {
-  // The facility's zone, so the calendar's hours are the instruments' bookable hours.
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 }, timezoneId: "America/Halifax" });
+const FACILITY_TZ = "America/Halifax";
+
+/** A browser context whose own clock is in `timezoneId`; the Schedule must not depend on it. */
+async function newPage(timezoneId = FACILITY_TZ): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 }, timezoneId, locale: "en-GB" });
   return context.newPage();
 }
 
@@ -102,5 +107,151 @@ describe("booking through the Schedule with the manager's approval", () => {
       );
     await page.context().close();
     await managerPage.context().close();
+  });
+});
+
+describe("the Schedule seen from a browser in another time zone", () => {
+  it("shows and books the facility's local hours when the browser's clock is in Berlin", async () => {
+    const managerApi = new ApiClient(server.url);
+    expect((await managerApi.login(MANAGER, "phasebook-demo")).status).toBe(200);
+    const users = await managerApi.get("/api/training/people");
+    const member = (users.body.items as { id: number; email: string }[]).find((u) => u.email === MEMBER)!;
+
+    // The page shows the third week from now; pick an instrument that confirms at once and is free all that week.
+    const weekStart = DateTime.now().setZone(FACILITY_TZ).startOf("week").plus({ weeks: 3 });
+    const from = weekStart.toUTC().toISO()!;
+    const to = weekStart.plus({ weeks: 1 }).toUTC().toISO()!;
+    const all = (await managerApi.get("/api/instruments?limit=100")).body.items as { id: number; name: string; kind: string; status: string; requiresApproval: boolean }[];
+    let chosen: (typeof all)[number] | undefined;
+    for (const i of all.filter((x) => x.status === "in_service" && !x.requiresApproval && x.kind === "potentiostat")) {
+      const r = await managerApi.get(`/api/bookings?instrumentId=${i.id}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`);
+      if (r.body.total === 0) {
+        chosen = i;
+        break;
+      }
+    }
+    expect(chosen, "a potentiostat free for a whole week").toBeDefined();
+    expect((await managerApi.post("/api/training", { userId: member.id, instrumentId: chosen!.id, expiresAt: new Date(Date.now() + 200 * 86_400_000).toISOString() })).status).toBe(201);
+
+    const page = await newPage("Europe/Berlin");
+    await signIn(page, server.url, MEMBER);
+    // The browser really is on Berlin's clock.
+    expect(await page.evaluate(() => Intl.DateTimeFormat().resolvedOptions().timeZone)).toBe("Europe/Berlin");
+    await page.goto(`${server.url}/schedule`);
+    expect(await page.locator('[data-testid="schedule-zone"]').textContent()).toContain("America/Halifax");
+    await page.selectOption('[data-testid="filter-instrument"]', String(chosen!.id));
+    for (let n = 0; n < 3; n += 1) await page.locator(".fc-next-button").click();
+    const tuesday = await page.locator("th.fc-col-header-cell").nth(1).getAttribute("data-date");
+    expect(tuesday).toBe(weekStart.plus({ days: 1 }).toISODate());
+
+    // 14:00–15:30 on the grid are Halifax hours: the form says so and the booking lands there.
+    await selectRange(page, tuesday!, "14:00:00", "15:00:00");
+    const form = page.locator('[data-testid="booking-form"]');
+    await form.waitFor();
+    expect(await page.inputValue('[data-testid="booking-start"]')).toBe(`${tuesday}T14:00`);
+    expect(await page.inputValue('[data-testid="booking-end"]')).toBe(`${tuesday}T15:30`);
+    await page.fill('[data-testid="booking-purpose"]', "Cyclic voltammetry of ferrocene in DCE, booked from abroad");
+    await page.click('[data-testid="booking-submit"]');
+    await expect.poll(() => page.getByText(/Booked: confirmed/).count(), { timeout: 15_000 }).toBeGreaterThan(0);
+    await expect.poll(() => page.locator(".fc-event", { hasText: "14:00" }).filter({ hasText: "Confirmed" }).count()).toBeGreaterThan(0);
+
+    const memberApi = new ApiClient(server.url);
+    await memberApi.login(MEMBER, "phasebook-demo");
+    const mine = (await memberApi.get(`/api/bookings?mine=true&instrumentId=${chosen!.id}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`)).body
+      .items as { start: string; end: string }[];
+    expect(mine).toHaveLength(1);
+    const expectedStart = DateTime.fromISO(`${tuesday}T14:00`, { zone: FACILITY_TZ });
+    expect(new Date(mine[0]!.start).getTime()).toBe(expectedStart.toMillis());
+    expect(new Date(mine[0]!.end).getTime()).toBe(expectedStart.plus({ minutes: 90 }).toMillis());
+
+    // My bookings shows the same local hours, labelled with the facility zone's short name.
+    await page.goto(`${server.url}/bookings`);
+    const row = page.locator("tr", { hasText: chosen!.name });
+    await row.first().waitFor();
+    const short = expectedStart.setLocale("en-US").offsetNameShort!;
+    expect(await row.first().textContent()).toMatch(new RegExp(`14:00 – 15:30 ${short}`));
+    await page.context().close();
+  });
+});
+
+describe("the manager's Schedule screens", () => {
+  it("adds an instrument, groups it into a setup, sets the booking policy, and retires it", async () => {
+    const page = await newPage();
+    await signIn(page, server.url, MANAGER);
+    await page.goto(`${server.url}/instruments`);
+    await page.click('[data-testid="add-instrument"]');
+    const name = `Bench potentiostat ${Date.now()}`;
+    await page.fill('[data-testid="instrument-name"]', name);
+    await page.click('[data-testid="instrument-add-submit"]');
+    await page.waitForURL(/\/instruments\/\d+$/);
+    await expect.poll(() => page.getByRole("heading", { name }).count()).toBeGreaterThan(0);
+    const id = Number(page.url().split("/").pop());
+
+    await page.goto(`${server.url}/schedule/settings`);
+    await page.click('[data-testid="add-setup"]');
+    await page.fill('[data-testid="setup-name"]', `Bench pair ${id}`);
+    const form = page.locator('[data-testid="setup-form"]');
+    await form.locator(`input[type="checkbox"][value="${id}"]`).check();
+    // One instrument is not a setup: the shared schema says why before anything is sent.
+    await page.click('[data-testid="setup-save"]');
+    await expect.poll(() => form.getByText("A setup holds at least two instruments").count()).toBeGreaterThan(0);
+    await form.locator(`input[type="checkbox"]:not([value="${id}"])`).first().check();
+    await page.click('[data-testid="setup-save"]');
+    await expect.poll(() => page.locator('[data-testid="setups-editor"] tr', { hasText: `Bench pair ${id}` }).count()).toBe(1);
+
+    await page.fill('[data-testid="policy-late-cancel"]', "48");
+    await page.click('[data-testid="policy-save"]');
+    await expect.poll(() => page.getByText(/Saved. The new policy applies/).count()).toBeGreaterThan(0);
+    const api = new ApiClient(server.url);
+    await api.login(MANAGER, "phasebook-demo");
+    expect((await api.get("/api/bookings/policy")).body.policy.lateCancelHours).toBe(48);
+
+    await page.goto(`${server.url}/instruments/${id}`);
+    await page.click('[data-testid="retire-instrument"]');
+    await page.fill('[data-testid="retire-note"]', "Replaced by the new bench unit");
+    await page.click('[data-testid="retire-confirm"]');
+    await expect.poll(async () => (await api.get(`/api/instruments/${id}`)).body.instrument.status).toBe("retired");
+    await page.context().close();
+  });
+});
+
+describe("the manager's training screens", () => {
+  it("counts open training requests on the start page and revokes training through a dialog that asks why", async () => {
+    const managerApi = new ApiClient(server.url);
+    await managerApi.login(MANAGER, "phasebook-demo");
+    const instruments = (await managerApi.get("/api/instruments?limit=100")).body.items as { id: number; name: string; status: string }[];
+    const target = instruments.find((i) => i.status === "in_service")!;
+    const people = (await managerApi.get("/api/training/people")).body.items as { id: number; email: string; name: string }[];
+    const newcomer = people.find((p) => p.email === "member2@kestrelbay.example")!;
+
+    // member2 is trained on nothing in the demo; they ask, and the manager's start page counts it.
+    const asker = new ApiClient(server.url);
+    await asker.login(newcomer.email, "phasebook-demo");
+    expect((await asker.post("/api/training/requests", { instrumentId: target.id, note: "First run next month" })).status).toBe(201);
+    const open = ((await managerApi.get("/api/training/requests?status=open")).body.items as unknown[]).length;
+
+    const page = await newPage();
+    await signIn(page, server.url, MANAGER);
+    const tile = page.locator('[data-testid="stat-training-requests"]');
+    await tile.waitFor();
+    expect(await tile.textContent()).toContain(String(open));
+    expect(await tile.textContent()).toContain("Members asking for training");
+
+    // A record to revoke: grant it through the API, then revoke it on the Training page.
+    const granted = await managerApi.post("/api/training", { userId: newcomer.id, instrumentId: target.id, expiresAt: new Date(Date.now() + 90 * 86_400_000).toISOString() });
+    expect(granted.status).toBe(201);
+    await page.goto(`${server.url}/training`);
+    const row = page.locator("tr", { hasText: newcomer.name }).filter({ hasText: target.name }).filter({ has: page.getByRole("button", { name: "Revoke…" }) });
+    await row.first().getByRole("button", { name: "Revoke…" }).click();
+    const dialog = page.locator('[data-testid="revoke-dialog"]');
+    await dialog.waitFor();
+    // No reason, no revoke.
+    expect(await page.locator('[data-testid="revoke-confirm"]').isDisabled()).toBe(true);
+    await page.fill('[data-testid="revoke-reason"]', "Left the group");
+    await page.click('[data-testid="revoke-confirm"]');
+    await dialog.waitFor({ state: "hidden" });
+    const records = (await managerApi.get(`/api/training?userId=${newcomer.id}&instrumentId=${target.id}&includeRevoked=true`)).body.items as { state: string; revokedAt: string | null; notes: string }[];
+    expect(records.some((r) => r.revokedAt !== null && r.notes === "Left the group")).toBe(true);
+    await page.context().close();
   });
 });

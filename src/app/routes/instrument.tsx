@@ -9,9 +9,11 @@ import type { BookingListItem } from "@shared/schemas/bookings";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
 import { describeError } from "@/lib/forms";
-import { formatSpan } from "@/lib/format";
+import { useFacilityZone } from "@/lib/facility";
+import { formatDate, formatSpan } from "@/lib/format";
 import { useInstrument } from "@/features/instruments/api/instrument";
 import { InstrumentRulesForm } from "@/features/instruments/components/instrument-rules-form";
+import { RetireInstrumentButton } from "@/features/instruments/components/retire-instrument-dialog";
 import { useBookings } from "@/features/schedule/api/get-bookings";
 import { StatusBadge } from "@/features/schedule/components/booking-status";
 import { useRequestTraining, useTrainingRecords } from "@/features/training/api/training";
@@ -46,14 +48,16 @@ function Rules({ i }: { i: InstrumentDto }) {
   );
 }
 
-function BookingList({ items }: { items: BookingListItem[] }) {
+function BookingList({ items, zone }: { items: BookingListItem[]; zone: string | undefined }) {
+  // Times wait for the facility's zone rather than flash in the browser's.
+  if (!zone) return <LoadingLine label="Loading" />;
   if (items.length === 0) return <p className="text-sm text-grey-600">None.</p>;
   return (
     <ul className="divide-y divide-grey-100 text-sm">
       {items.map((b) => (
         <li key={b.id} className="flex items-center justify-between gap-2 py-1.5">
           <span>
-            {formatSpan(b.start, b.end)} {b.busy ? <span className="text-grey-600">· booked</span> : <span className="text-grey-600">· {b.userName}</span>}
+            {formatSpan(b.start, b.end, zone)} {b.busy ? <span className="text-grey-600">· booked</span> : <span className="text-grey-600">· {b.userName}</span>}
           </span>
           <StatusBadge status={b.status} />
         </li>
@@ -67,6 +71,7 @@ export function InstrumentRoute() {
   const { data: user } = useUser();
   const manager = hasRole(user, "manager");
   const instrument = useInstrument(id);
+  const zone = useFacilityZone();
   const [now] = useState(() => Date.now());
   const span = useMemo(
     () => ({ from: new Date(now - 60 * 86_400_000).toISOString(), to: new Date(now + 60 * 86_400_000).toISOString() }),
@@ -88,7 +93,13 @@ export function InstrumentRoute() {
 
   return (
     <>
-      <PageHeader title={i.name} description={i.description} actions={<Link to={paths.schedule.getHref()}>Open the Schedule</Link>} />
+      <PageHeader title={i.name} description={i.description} actions={
+          <div className="flex items-center gap-3">
+            <Link to={paths.schedule.getHref()}>Open the Schedule</Link>
+            {manager && <RetireInstrumentButton instrument={i} />}
+          </div>
+        }
+      />
       <div className="flex flex-col gap-4">
         <Card title="Booking rules">
           <Rules i={i} />
@@ -130,7 +141,7 @@ export function InstrumentRoute() {
               {(trained.data?.items ?? []).map((r) => (
                 <li key={r.id}>
                   {r.userName} · {r.state}
-                  {r.expiresAt ? ` until ${r.expiresAt.slice(0, 10)}` : ""}
+                  {r.expiresAt ? ` until ${formatDate(r.expiresAt, zone)}` : ""}
                   {r.afterHours ? " · after hours" : ""}
                 </li>
               ))}
@@ -138,10 +149,10 @@ export function InstrumentRoute() {
           </Card>
         )}
         <Card title="Upcoming bookings (60 days)">
-          <BookingList items={upcoming} />
+          <BookingList items={upcoming} zone={zone} />
         </Card>
         <Card title="History (last 60 days)">
-          <BookingList items={history} />
+          <BookingList items={history} zone={zone} />
         </Card>
       </div>
     </>

@@ -1,12 +1,23 @@
 /** My bookings: the person's own bookings with check-in, check-out and cancel, and their calendar feed. */
+import { describeError } from "@/lib/forms";
+import { Alert } from "@/components/ui/alert";
 import { PageHeader } from "@/components/ui/page-header";
+import { LoadingLine } from "@/components/ui/spinner";
 import { MyBookings } from "@/features/schedule/components/my-bookings";
+import { useScheduleContext } from "@/app/use-schedule-context";
 
 export function MyBookingsRoute() {
+  const ctx = useScheduleContext();
   return (
     <>
       <PageHeader title="My bookings" description="Check in when you start and out when you finish: billing uses those times. Cancel in good time so others can use the instrument." />
-      <MyBookings />
+      {ctx.error ? (
+        <Alert tone="danger">{describeError(ctx.error)}</Alert>
+      ) : ctx.loading || !ctx.zone ? (
+        <LoadingLine label="Loading your bookings" />
+      ) : (
+        <MyBookings names={ctx.names} zone={ctx.zone} />
+      )}
     </>
   );
 }

@@ -4,11 +4,16 @@ import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
 import { PageHeader } from "@/components/ui/page-header";
 import { buttonClasses } from "@/components/ui/button";
+import { describeError } from "@/lib/forms";
+import { Alert } from "@/components/ui/alert";
+import { LoadingLine } from "@/components/ui/spinner";
 import { ScheduleCalendar } from "@/features/schedule/components/schedule-calendar";
+import { useScheduleContext } from "@/app/use-schedule-context";
 
 export function ScheduleRoute() {
   const { data: user } = useUser();
   const manager = hasRole(user, "manager");
+  const ctx = useScheduleContext();
   return (
     <>
       <PageHeader
@@ -23,11 +28,20 @@ export function ScheduleRoute() {
               <Link to={paths.utilisation.getHref()} className={buttonClasses("secondary")}>
                 Utilisation
               </Link>
+              <Link to={paths.scheduleSettings.getHref()} className={buttonClasses("secondary")} data-testid="open-schedule-settings">
+                Setups and policy
+              </Link>
             </div>
           ) : undefined
         }
       />
-      <ScheduleCalendar />
+      {ctx.error ? (
+        <Alert tone="danger">{describeError(ctx.error)}</Alert>
+      ) : ctx.loading || !ctx.zone ? (
+        <LoadingLine label="Loading the Schedule" />
+      ) : (
+        <ScheduleCalendar instruments={ctx.instruments} zone={ctx.zone} />
+      )}
     </>
   );
 }

@@ -17,7 +17,7 @@ export interface DashboardBooking {
 
 export interface Dashboard {
   member: { nextBookings: DashboardBooking[] };
-  manager?: { pendingApprovals: number; trainingExpiringSoon: number; instrumentsOutOfService: number };
+  manager?: { pendingApprovals: number; openTrainingRequests: number; trainingExpiringSoon: number; instrumentsOutOfService: number };
   safety?: { expiredContainers: number; onHold: number; locationsOverLimit: number };
 }
 

@@ -4,6 +4,7 @@
  */
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
+import { useFacilityZone } from "@/lib/facility";
 import { formatSpan, humanize } from "@/lib/format";
 import type { Dashboard, DashboardBooking } from "../api/get-dashboard";
 import { Card } from "@/components/ui/card";
@@ -22,11 +23,13 @@ const BOOKING_TONES: Record<string, BadgeTone> = {
 };
 
 function BookingRow({ booking }: { booking: DashboardBooking }) {
+  // Bookings are on the facility's clock, like the Schedule.
+  const zone = useFacilityZone();
   return (
     <li className="flex flex-wrap items-center justify-between gap-x-4 gap-y-1 py-2">
       <div className="min-w-0">
         <p className="font-medium text-grey-900">{booking.instrumentNames.join(" + ") || "Booking"}</p>
-        <p className="text-xs text-grey-600">{formatSpan(booking.start, booking.end)}</p>
+        <p className="text-xs text-grey-600">{formatSpan(booking.start, booking.end, zone)}</p>
       </div>
       <Badge tone={BOOKING_TONES[booking.status] ?? "neutral"}>{humanize(booking.status)}</Badge>
     </li>
@@ -71,7 +74,7 @@ export function ManagerSection({ manager }: { manager: NonNullable<Dashboard["ma
       <h2 id="manager-heading" className="text-sm font-semibold text-grey-900">
         Facility
       </h2>
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         <StatTile
           testId="stat-pending-approvals"
           label="Booking requests waiting for approval"
@@ -79,6 +82,14 @@ export function ManagerSection({ manager }: { manager: NonNullable<Dashboard["ma
           to={paths.approvals.getHref()}
           linkText="Open the approval queue"
           attention={{ tone: "warning", word: "Waiting" }}
+        />
+        <StatTile
+          testId="stat-training-requests"
+          label="Members asking for training"
+          value={manager.openTrainingRequests}
+          to={paths.training.getHref()}
+          linkText="Answer the requests"
+          attention={{ tone: "warning", word: "Asking" }}
         />
         <StatTile
           testId="stat-training-expiring"

@@ -1,11 +1,11 @@
 /**
  * The manager's approval queue: requests waiting for a decision, oldest start first. Approving
  * re-checks the Schedule on the server (a 409 is shown in words); declining needs a reason,
- * which the member receives by e-mail.
+ * which the member receives by e-mail. Times are on the facility's clock; the route passes the
+ * zone and the instruments' names in.
  */
-import { useMemo, useState } from "react";
+import { useState } from "react";
 import type { BookingDto } from "@shared/schemas/bookings";
-import { useInstruments } from "@/features/instruments/api/get-instruments";
 import { describeError } from "@/lib/forms";
 import { formatSpan } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
@@ -17,12 +17,10 @@ import { TBody, THead, Table, Td, Th, Tr } from "@/components/ui/table";
 import { useBookings } from "../api/get-bookings";
 import { useBookingAction } from "../api/booking-actions";
 
-export function ApprovalQueue() {
+export function ApprovalQueue({ names, zone }: { names: ReadonlyMap<number, string>; zone: string }) {
   const [from] = useState(() => new Date(Date.now() - 86_400_000).toISOString());
   const [to] = useState(() => new Date(Date.now() + 400 * 86_400_000).toISOString());
   const queue = useBookings({ status: "requested", from, to });
-  const instruments = useInstruments({ limit: 500 });
-  const names = useMemo(() => new Map((instruments.data?.items ?? []).map((i) => [i.id, i.name])), [instruments.data]);
   const action = useBookingAction();
   const [declining, setDeclining] = useState<number | null>(null);
   const [reason, setReason] = useState("");
@@ -34,7 +32,7 @@ export function ApprovalQueue() {
     setMessage(null);
     try {
       await action.mutateAsync({ id: b.id, action: kind, reason: kind === "decline" ? reason : undefined });
-      setMessage({ tone: "ok", text: `${kind === "approve" ? "Approved" : "Declined"}: ${b.userName}, ${formatSpan(b.start, b.end)}. They have been told by e-mail.` });
+      setMessage({ tone: "ok", text: `${kind === "approve" ? "Approved" : "Declined"}: ${b.userName}, ${formatSpan(b.start, b.end, zone)}. They have been told by e-mail.` });
       setDeclining(null);
       setReason("");
     } catch (e) {
@@ -65,7 +63,7 @@ export function ApprovalQueue() {
           <TBody>
             {items.map((b) => (
               <Tr key={b.id} data-testid={`request-${b.id}`}>
-                <Td>{formatSpan(b.start, b.end)}</Td>
+                <Td>{formatSpan(b.start, b.end, zone)}</Td>
                 <Td>{b.instrumentIds.map((id) => names.get(id) ?? `#${id}`).join(" + ")}</Td>
                 <Td>{b.userName}</Td>
                 <Td className="font-mono text-xs">{b.accountCode}</Td>

@@ -2,12 +2,14 @@
  * The booking form, opened by selecting a free range on the Schedule: instruments or a setup,
  * the account, the purpose and an optional weekly repeat. It validates with the shared schema;
  * the server re-checks everything and its field errors land on the fields, and a series that
- * fails lists each failing session.
+ * fails lists each failing session. Start and end are typed on the facility's clock and sent
+ * with that zone's offset for the chosen day, whatever the browser's own zone.
  */
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { InstrumentDto } from "@shared/schemas/instruments";
 import type { OccurrenceProblem } from "@shared/schemas/bookings";
+import { toZonedInput, zoneShortName, zonedInputToIso } from "@shared/domain/facility-time";
 import { ApiError } from "@/lib/api-client";
 import { describeError } from "@/lib/forms";
 import { formatSpan } from "@/lib/format";
@@ -27,16 +29,11 @@ interface Values {
   repeatWeeks: number;
 }
 
-/** A Date as the value of <input type="datetime-local"> in the browser's zone. */
-function toLocalInput(d: Date): string {
-  const pad = (n: number) => String(n).padStart(2, "0");
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
-}
-
 export function BookingForm({
   start,
   end,
   instruments,
+  zone,
   preselected,
   onDone,
   onCancel,
@@ -44,6 +41,7 @@ export function BookingForm({
   start: Date;
   end: Date;
   instruments: InstrumentDto[];
+  zone: string;
   preselected: number[];
   onDone: (message: string) => void;
   onCancel: () => void;
@@ -51,7 +49,7 @@ export function BookingForm({
   const accounts = useAccounts();
   const setups = useSetups();
   const create = useCreateBooking();
-  const [times, setTimes] = useState({ start: toLocalInput(start), end: toLocalInput(end) });
+  const [times, setTimes] = useState({ start: toZonedInput(start, zone), end: toZonedInput(end, zone) });
   const [problems, setProblems] = useState<OccurrenceProblem[]>([]);
   const [general, setGeneral] = useState<string | null>(null);
   const chargeable = (accounts.data ?? []).filter((a) => a.chargeable);
@@ -70,13 +68,17 @@ export function BookingForm({
       setError("accountId", { message: "Choose an account to charge" });
       return;
     }
-    const startDate = new Date(times.start);
-    const endDate = new Date(times.end);
+    const startIso = zonedInputToIso(times.start, zone);
+    const endIso = zonedInputToIso(times.end, zone);
+    if (!startIso || !endIso) {
+      setGeneral("Give a start and an end date and time.");
+      return;
+    }
     try {
       const r = await create.mutateAsync({
         ...(v.mode === "setup" ? { setupId: Number(v.setupId) } : { instrumentIds: v.instrumentIds.map(Number) }),
-        start: startDate.toISOString(),
-        end: endDate.toISOString(),
+        start: startIso,
+        end: endIso,
         accountId,
         purpose: v.purpose,
         repeatWeeks: Number(v.repeatWeeks) || 1,
@@ -102,10 +104,12 @@ export function BookingForm({
   return (
     <form onSubmit={submit} className="flex flex-col gap-3" data-testid="booking-form" noValidate>
       <div className="grid gap-3 sm:grid-cols-2">
-        <Input label="Start" type="datetime-local" value={times.start} onChange={(e) => setTimes((t) => ({ ...t, start: e.target.value }))} required />
-        <Input label="End" type="datetime-local" value={times.end} onChange={(e) => setTimes((t) => ({ ...t, end: e.target.value }))} required />
+        <Input label="Start" type="datetime-local" value={times.start} onChange={(e) => setTimes((t) => ({ ...t, start: e.target.value }))} required data-testid="booking-start" />
+        <Input label="End" type="datetime-local" value={times.end} onChange={(e) => setTimes((t) => ({ ...t, end: e.target.value }))} required data-testid="booking-end" />
       </div>
-      <p className="text-xs text-grey-600">Times are in your browser's time zone. The instruments' bookable hours are the facility's local hours.</p>
+      <p className="text-xs text-grey-600" data-testid="booking-zone">
+        Times are the facility's local time ({zone.replace(/_/g, " ")}, {zoneShortName(start, zone)}), the same clock as the instruments' bookable hours.
+      </p>
 
       <FieldSet legend="What to book" id="booking-mode">
         <div className="flex gap-4 text-sm">
@@ -166,7 +170,7 @@ export function BookingForm({
             <ul className="mt-1 list-disc pl-5" data-testid="series-problems">
               {problems.map((p) => (
                 <li key={p.index}>
-                  Session {p.index + 1}, {formatSpan(p.start, p.end)}: {p.reasons.map((r) => r.message).join("; ")}
+                  Session {p.index + 1}, {formatSpan(p.start, p.end, zone)}: {p.reasons.map((r) => r.message).join("; ")}
                 </li>
               ))}
             </ul>

@@ -1,10 +1,10 @@
 /**
  * My bookings: upcoming and past, with the one or two actions that fit each (check in, check
- * out, cancel), a per-booking .ics, and the personal calendar feed with its rotation.
+ * out, cancel), a per-booking .ics, and the personal calendar feed with its rotation. Times are on
+ * the facility's clock; the route passes the zone and the instruments' names in.
  */
-import { useMemo, useState } from "react";
+import { useState } from "react";
 import type { BookingDto } from "@shared/schemas/bookings";
-import { useInstruments } from "@/features/instruments/api/get-instruments";
 import { describeError } from "@/lib/forms";
 import { formatDateTime, formatSpan } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
@@ -28,20 +28,18 @@ function actionsFor(b: BookingDto, now: number): { action: BookingAction; label:
   return out;
 }
 
-export function MyBookings() {
+export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>; zone: string }) {
   const [tab, setTab] = useState<"upcoming" | "past">("upcoming");
   const [now] = useState(() => Date.now());
   const iso = new Date(now).toISOString();
   const list = useBookings(tab === "upcoming" ? { mine: true, from: iso, limit: 200 } : { mine: true, to: iso, limit: 200 });
-  const instruments = useInstruments({ limit: 500 });
-  const names = useMemo(() => new Map((instruments.data?.items ?? []).map((i) => [i.id, i.name])), [instruments.data]);
   const action = useBookingAction();
   const [message, setMessage] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
   const items = (list.data?.items ?? []).filter((b): b is BookingDto => !b.busy);
   const sorted = tab === "upcoming" ? [...items].sort((a, b) => a.start.localeCompare(b.start)) : [...items].sort((a, b) => b.start.localeCompare(a.start));
 
   const run = async (b: BookingDto, a: BookingAction, label: string) => {
-    if (a === "cancel" && !window.confirm(`Cancel ${formatSpan(b.start, b.end)}?`)) return;
+    if (a === "cancel" && !window.confirm(`Cancel ${formatSpan(b.start, b.end, zone)}?`)) return;
     setMessage(null);
     try {
       const r = await action.mutateAsync({ id: b.id, action: a });
@@ -80,7 +78,7 @@ export function MyBookings() {
           <TBody>
             {sorted.map((b) => (
               <Tr key={b.id} data-testid={`my-booking-${b.id}`}>
-                <Td>{formatSpan(b.start, b.end)}</Td>
+                <Td>{formatSpan(b.start, b.end, zone)}</Td>
                 <Td>{b.instrumentIds.map((id) => names.get(id) ?? `#${id}`).join(" + ")}</Td>
                 <Td>
                   <StatusBadge status={b.status} />
@@ -89,7 +87,7 @@ export function MyBookings() {
                 </Td>
                 <Td className="font-mono text-xs">{b.accountCode}</Td>
                 <Td className="text-xs">
-                  {b.checkedInAt ? formatDateTime(b.checkedInAt) : "—"} / {b.checkedOutAt ? formatDateTime(b.checkedOutAt) : "—"}
+                  {b.checkedInAt ? formatDateTime(b.checkedInAt, zone) : "—"} / {b.checkedOutAt ? formatDateTime(b.checkedOutAt, zone) : "—"}
                 </Td>
                 <Td className="text-right">
                   <div className="flex justify-end gap-2">

@@ -2,17 +2,20 @@
  * The Schedule: FullCalendar week/day time grids and a month grid over the bookings of the
  * visible range. Selecting a free range opens the booking form; your own bookings that have not
  * started can be dragged or resized (the server re-checks everything and a refusal puts the
- * block back). Every block says its state in words.
+ * block back). Every block says its state in words. The grid runs on the facility's clock (the
+ * luxon plugin gives FullCalendar named zones), so someone abroad sees and selects the same local
+ * hours the instruments are bookable; the route passes the zone and the instruments in.
  */
 import { useMemo, useState } from "react";
 import FullCalendar from "@fullcalendar/react";
 import timeGridPlugin from "@fullcalendar/timegrid";
 import dayGridPlugin from "@fullcalendar/daygrid";
 import interactionPlugin from "@fullcalendar/interaction";
+import luxonPlugin from "@fullcalendar/luxon3";
 import type { DateSelectArg, EventChangeArg, EventInput } from "@fullcalendar/core";
 import { BOOKING_STATUS_LABELS, type BookingListItem } from "@shared/schemas/bookings";
 import { INSTRUMENT_KIND_LABELS, INSTRUMENT_KINDS, type InstrumentDto, type InstrumentKind } from "@shared/schemas/instruments";
-import { useInstruments } from "@/features/instruments/api/get-instruments";
+import { zoneShortName } from "@shared/domain/facility-time";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Select } from "@/components/ui/input";
@@ -44,8 +47,7 @@ function eventFor(b: BookingListItem, names: Map<number, string>, now: number): 
   };
 }
 
-export function ScheduleCalendar() {
-  const instruments = useInstruments({ limit: 500 });
+export function ScheduleCalendar({ instruments: all, zone }: { instruments: InstrumentDto[]; zone: string }) {
   const setups = useSetups();
   const move = useMoveBooking();
   const [range, setRange] = useState<{ from: string; to: string } | null>(null);
@@ -55,7 +57,6 @@ export function ScheduleCalendar() {
   const [selection, setSelection] = useState<{ start: Date; end: Date } | null>(null);
   const [notice, setNotice] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
 
-  const all = useMemo(() => instruments.data?.items ?? [], [instruments.data]);
   const names = useMemo(() => new Map(all.map((i) => [i.id, i.name])), [all]);
   const setup = (setups.data ?? []).find((s) => String(s.id) === setupId);
   const visibleIds = useMemo(() => {
@@ -122,12 +123,16 @@ export function ScheduleCalendar() {
           ))}
         </Select>
       </div>
+      <p className="text-xs text-grey-600" data-testid="schedule-zone">
+        Times are the facility's local time ({zone.replace(/_/g, " ")}, {zoneShortName(Date.now(), zone)}), whatever your own device's time zone.
+      </p>
       <StatusLegend />
       {notice && <Alert tone={notice.tone}>{notice.text}</Alert>}
       {bookings.isError && <Alert tone="danger">{describeError(bookings.error)}</Alert>}
       <div className="rounded-lg border border-grey-200 bg-white p-2 text-sm" data-testid="schedule-calendar" aria-busy={bookings.isFetching || undefined}>
         <FullCalendar
-          plugins={[timeGridPlugin, dayGridPlugin, interactionPlugin]}
+          plugins={[timeGridPlugin, dayGridPlugin, interactionPlugin, luxonPlugin]}
+          timeZone={zone}
           initialView="timeGridWeek"
           headerToolbar={{ left: "prev,next today", center: "title", right: "timeGridDay,timeGridWeek,dayGridMonth" }}
           buttonText={{ today: "Today", day: "Day", week: "Week", month: "Month" }}
@@ -155,6 +160,7 @@ export function ScheduleCalendar() {
             start={selection.start}
             end={selection.end}
             instruments={all}
+            zone={zone}
             preselected={preselected}
             onCancel={() => setSelection(null)}
             onDone={(text) => {
