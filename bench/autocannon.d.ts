@@ -16,10 +16,11 @@ declare module "autocannon" {
       requests?: Request[];
     }
     interface Result {
-      requests: { average: number };
+      requests: { average: number; total: number };
       latency: { p99: number; average: number };
       non2xx: number;
       errors: number;
+      timeouts: number;
     }
   }
   function autocannon(opts: autocannon.Options): Promise<autocannon.Result>;

@@ -1,24 +1,34 @@
 /**
- * `npm run bench`: Phasebook's speed against a bare Express route on the same machine.
+ * `npm run bench`: Phasebook's speed goals (Schedule, Stockroom, Recharge) in one run, against a
+ * bare Express route on the same machine.
  *
  * The parent process forks a server process that builds a temporary database (five years of
- * bookings over 20 instruments), starts the real app and a bare Express route on loopback
- * ports, and reports them over IPC. The parent then drives each scenario with autocannon, so
- * the load generator does not share an event loop with the servers. Each scenario runs a
- * bounded time at 50 connections (throughput, as a ratio to the bare route) and at 10
- * connections (p99 latency), and a table is printed.
+ * bookings over 20 instruments, and the Stockroom's 20,000 containers from bench/stockroom.ts),
+ * starts the real app and a bare Express route on loopback ports, and reports them over IPC.
+ * The parent drives each HTTP scenario with autocannon, so the load generator does not share an
+ * event loop with the servers: a bounded time at 50 connections (throughput, as a ratio to the
+ * bare route) and at 10 connections (p99 latency). Then, with the server gone, a second child
+ * times the Recharge billing run (bench/recharge.ts) in a fresh database of its own, so its
+ * peak memory is the run's and not the server's. One table lists every figure, its goal and
+ * whether it was met.
  *
- * Other areas add their scenarios to SCENARIOS (and any data they need to seedBench).
+ * BENCH_SECONDS (default 5) sets the time per load run; BENCH_ONLY=word,word runs only the
+ * scenarios whose names contain one of the words (the bare route always runs); BENCH_PROFILE=dir
+ * writes a V8 CPU profile of the
+ * server process (its requests, not its seeding) there.
  */
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { fork } from "node:child_process";
+import { fork, type ChildProcess } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import type { AddressInfo } from "node:net";
 import autocannon from "autocannon";
+import type { BenchScenario } from "./stockroom";
+import type { RechargeBenchResult } from "./recharge";
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 5);
+const ONLY = (process.env.BENCH_ONLY ?? "").split(",").map((w) => w.trim().toLowerCase()).filter(Boolean);
 const INSTRUMENTS = 20;
 const YEARS = 5;
 const DAY_MS = 86_400_000;
@@ -31,6 +41,7 @@ interface Ports {
   bookings: number;
   instrumentIds: number[];
   accountId: number;
+  stockroom: { signIn: { email: string; password: string }; containerCount: number; scenarios: BenchScenario[] };
 }
 
 interface Session {
@@ -40,14 +51,25 @@ interface Session {
 
 interface ScenarioContext {
   ports: Ports;
+  /** The Schedule's bench member. */
   session: Session;
+  /** The Stockroom's bench member. */
+  stockSession: Session;
+}
+
+interface Goal {
+  /** Requests/s at 50 connections at least this share of the bare route's. */
+  ratio?: number;
+  /** p99 latency at 10 connections below this many ms. */
+  p99Ms?: number;
 }
 
 interface Scenario {
+  area: "—" | "Schedule" | "Stockroom";
   name: string;
   target: "app" | "bare";
-  /** Goals from the issue, for the table. */
-  goal?: { ratio?: number; p99Ms?: number };
+  /** Goals from the issues, for the table. */
+  goal?: Goal;
   requests(ctx: ScenarioContext): autocannon.Request[];
 }
 
@@ -82,15 +104,17 @@ function createRequests(ctx: ScenarioContext): autocannon.Request[] {
   ];
 }
 
-export const SCENARIOS: Scenario[] = [
-  { name: "bare Express route", target: "bare", requests: () => [{ method: "GET", path: "/bare" }] },
+const SCHEDULE_SCENARIOS: Scenario[] = [
+  { area: "—", name: "bare Express route", target: "bare", requests: () => [{ method: "GET", path: "/bare" }] },
   {
     // The cost of the signed-in stack alone (session, CSRF, user lookup), to read the others against.
+    area: "—",
     name: "signed-in baseline (GET /api/auth/me)",
     target: "app",
     requests: ({ session }) => [{ method: "GET", path: "/api/auth/me", headers: { cookie: session.cookie } }],
   },
   {
+    area: "Schedule",
     name: "week of one instrument's bookings (member)",
     target: "app",
     goal: { ratio: 0.5, p99Ms: 15 },
@@ -102,8 +126,40 @@ export const SCENARIOS: Scenario[] = [
       },
     ],
   },
-  { name: "create a booking (member)", target: "app", goal: { ratio: 0.2, p99Ms: 25 }, requests: createRequests },
+  { area: "Schedule", name: "create a booking (member)", target: "app", goal: { ratio: 0.2, p99Ms: 25 }, requests: createRequests },
 ];
+
+/**
+ * bench/stockroom.ts describes its routes one connection count at a time; the same method and
+ * path at 50 and at 10 connections become one scenario carrying both goals.
+ */
+function stockroomScenarios(list: BenchScenario[]): Scenario[] {
+  const merged = new Map<string, { name: string; s: BenchScenario; goal: Goal }>();
+  for (const s of list) {
+    const key = `${s.method} ${s.path}`;
+    const entry = merged.get(key) ?? { name: s.name.replace(/\s*×\d+$/, ""), s, goal: {} };
+    if (s.goal.ratioToBare !== undefined) entry.goal.ratio = s.goal.ratioToBare;
+    if (s.goal.p99MsBelow !== undefined) entry.goal.p99Ms = s.goal.p99MsBelow;
+    merged.set(key, entry);
+  }
+  return [...merged.values()].map(({ name, s, goal }) => ({
+    area: "Stockroom" as const,
+    name,
+    target: "app" as const,
+    goal,
+    requests: ({ stockSession }: ScenarioContext) => [
+      {
+        method: s.method,
+        path: s.path,
+        headers: {
+          cookie: stockSession.cookie,
+          ...(s.method === "GET" ? {} : { "x-csrf-token": stockSession.csrf, "content-type": "application/json" }),
+        },
+        ...(s.body === undefined ? {} : { body: JSON.stringify(s.body) }),
+      },
+    ],
+  }));
+}
 
 // --- server process ----------------------------------------------------------------------------
 
@@ -175,6 +231,8 @@ async function serve(): Promise<void> {
   const { systemClock } = await import("../server/clock");
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-bench-"));
   const seeded = await seedBench(dir);
+  const { seedStockroomBench } = await import("./stockroom");
+  const stock = await seedStockroomBench(seeded.ds);
   const config = loadConfig({ DATABASE_PATH: path.join(dir, "bench.sqlite"), NODE_ENV: "production", PUBLIC_URL: "http://127.0.0.1", LOG_LEVEL: "silent" });
   const { app } = createApp({
     ds: seeded.ds,
@@ -200,17 +258,55 @@ async function serve(): Promise<void> {
     bookings: seeded.bookings,
     instrumentIds: seeded.ids,
     accountId: seeded.accountId,
+    stockroom: { signIn: stock.signIn, containerCount: stock.containerCount, scenarios: stock.scenarios },
   };
+  // Profiling starts after the seeding, so the profile shows the requests only.
+  const profiler = process.env.BENCH_PROFILE ? await startProfiler() : null;
   process.send!({ ports, dir });
   process.on("disconnect", () => {
-    fs.rmSync(dir, { recursive: true, force: true });
-    process.exit(0);
+    void (async () => {
+      if (profiler) {
+        const out = path.resolve(process.env.BENCH_PROFILE!, `server-${Date.now()}.cpuprofile`);
+        fs.mkdirSync(path.dirname(out), { recursive: true });
+        fs.writeFileSync(out, JSON.stringify(await profiler()));
+      }
+      fs.rmSync(dir, { recursive: true, force: true });
+      process.exit(0);
+    })();
   });
+}
+
+/** Starts V8's CPU profiler in this process; the returned function stops it and gives the profile. */
+async function startProfiler(): Promise<() => Promise<object>> {
+  const { Session } = await import("node:inspector/promises");
+  const session = new Session();
+  session.connect();
+  await session.post("Profiler.enable");
+  await session.post("Profiler.start");
+  return async () => (await session.post("Profiler.stop")).profile;
+}
+
+/** The Recharge billing run, alone in this process and its own database. */
+async function recharge(): Promise<void> {
+  const { openDatabase } = await import("../server/db/data-source");
+  const { benchRechargeRun } = await import("./recharge");
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-bench-recharge-"));
+  const ds = await openDatabase(path.join(dir, "bench.sqlite"));
+  try {
+    const result = await benchRechargeRun(ds);
+    process.send!({ result });
+  } catch (e) {
+    process.send!({ error: String((e as Error).stack ?? e) });
+  } finally {
+    await ds.destroy();
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+  process.disconnect();
 }
 
 // --- load generator ----------------------------------------------------------------------------
 
-async function signIn(base: string): Promise<Session> {
+async function signIn(base: string, who: { email: string; password: string }): Promise<Session> {
   const cookies = new Map<string, string>();
   const keep = (res: Response) => {
     for (const c of res.headers.getSetCookie()) {
@@ -226,7 +322,7 @@ async function signIn(base: string): Promise<Session> {
   r = await fetch(`${base}/api/auth/login`, {
     method: "POST",
     headers: { "content-type": "application/json", "x-csrf-token": csrf, cookie: header() },
-    body: JSON.stringify({ email: "bench@kestrelbay.example", password: "bench-password-1" }),
+    body: JSON.stringify(who),
   });
   if (r.status !== 200) throw new Error(`bench sign-in failed: ${r.status} ${await r.text()}`);
   keep(r);
@@ -238,41 +334,121 @@ async function signIn(base: string): Promise<Session> {
 
 async function load(url: string, connections: number, requests: autocannon.Request[]) {
   const result = await autocannon({ url, connections, duration: SECONDS, requests, pipelining: 1 });
-  return { rps: result.requests.average, p99: result.latency.p99, non2xx: result.non2xx, errors: result.errors };
+  // A run in which no request completed has no latency to report: count it as failed.
+  return { rps: result.requests.average, p99: result.latency.p99, bad: result.non2xx + result.errors + (result.requests.total === 0 ? 1 : 0) };
+}
+
+function child(role: string, execArgv: string[] = []): ChildProcess {
+  return fork(fileURLToPath(import.meta.url), [], { env: { ...process.env, BENCH_ROLE: role }, execArgv: ["--import", "tsx", ...execArgv] });
+}
+
+function firstMessage<T>(c: ChildProcess): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    c.once("message", (m) => resolve(m as T));
+    c.once("exit", (code) => reject(new Error(`bench child exited with ${code}`)));
+  });
+}
+
+interface Row {
+  area: string;
+  scenario: string;
+  figure: string;
+  measured: string;
+  goal: string;
+  met: "met" | "not met" | "";
+}
+
+const fmt = (n: number) => Math.round(n).toLocaleString("en");
+
+function printTable(rows: Row[]): void {
+  const head: (keyof Row)[] = ["area", "scenario", "figure", "measured", "goal", "met"];
+  const width = head.map((h) => Math.max(h.length, ...rows.map((r) => r[h].length)));
+  const line = (cells: string[]) => `| ${cells.map((c, i) => c.padEnd(width[i])).join(" | ")} |`;
+  console.log(line(head));
+  console.log(`| ${width.map((w) => "-".repeat(w)).join(" | ")} |`);
+  for (const r of rows) console.log(line(head.map((h) => r[h])));
 }
 
 async function main(): Promise<void> {
-  const child = fork(fileURLToPath(import.meta.url), [], { env: { ...process.env, BENCH_ROLE: "server" }, execArgv: ["--import", "tsx"] });
-  const { ports } = await new Promise<{ ports: Ports; dir: string }>((resolve, reject) => {
-    child.once("message", (m) => resolve(m as { ports: Ports; dir: string }));
-    child.once("exit", (code) => reject(new Error(`bench server exited with ${code}`)));
-  });
-  console.log(`Seeded ${ports.bookings.toLocaleString("en")} bookings over ${INSTRUMENTS} instruments (${YEARS} years); ${SECONDS} s per run, loopback only.\n`);
-  const session = await signIn(ports.app);
-  const ctx: ScenarioContext = { ports, session };
+  const server = child("server");
+  const { ports } = await firstMessage<{ ports: Ports; dir: string }>(server);
+  console.log(
+    `Phasebook bench, ${new Date().toISOString().slice(0, 10)}, ${os.cpus().length} cores, load average ${os.loadavg().map((l) => l.toFixed(2)).join(" ")}.\n` +
+      `Seeded ${fmt(ports.bookings)} bookings over ${INSTRUMENTS} instruments (${YEARS} years) and ${fmt(ports.stockroom.containerCount)} containers; ` +
+      `${SECONDS} s per load run at 50 and at 10 connections, loopback only.\n`,
+  );
+  const ctx: ScenarioContext = {
+    ports,
+    session: await signIn(ports.app, { email: "bench@kestrelbay.example", password: "bench-password-1" }),
+    stockSession: await signIn(ports.app, ports.stockroom.signIn),
+  };
 
-  const rows: { name: string; rps50: number; p99at10: number; non2xx: number; ratio: number | null; goal?: Scenario["goal"] }[] = [];
+  const scenarios = [...SCHEDULE_SCENARIOS, ...stockroomScenarios(ports.stockroom.scenarios)].filter(
+    (s) => s.target === "bare" || ONLY.length === 0 || ONLY.some((w) => s.name.toLowerCase().includes(w)),
+  );
+  const rows: Row[] = [];
   let bareRps = 0;
-  for (const s of SCENARIOS) {
+  for (const s of scenarios) {
     const url = s.target === "app" ? ports.app : ports.bare;
     const at50 = await load(url, 50, s.requests(ctx));
     const at10 = await load(url, 10, s.requests(ctx));
     if (s.target === "bare") bareRps = at50.rps;
-    rows.push({ name: s.name, rps50: at50.rps, p99at10: at10.p99, non2xx: at50.non2xx + at10.non2xx + at50.errors + at10.errors, ratio: s.target === "bare" ? null : at50.rps / bareRps, goal: s.goal });
+    const ratio = at50.rps / bareRps;
+    // A run with failed requests measured something else than the route; it never meets a goal.
+    const clean = at50.bad + at10.bad === 0;
+    const failed = clean ? "" : ` (${fmt(at50.bad + at10.bad)} failed)`;
+    const verdict = (ok: boolean | undefined): Row["met"] => (ok === undefined ? "" : ok && clean ? "met" : "not met");
+    rows.push({
+      area: s.area,
+      scenario: s.name,
+      figure: "req/s @50",
+      measured: `${fmt(at50.rps)} = ${ratio.toFixed(2)} × bare${failed}`,
+      goal: s.goal?.ratio === undefined ? "" : `≥ ${s.goal.ratio} × bare`,
+      met: verdict(s.goal?.ratio === undefined ? undefined : ratio >= s.goal.ratio),
+    });
+    rows.push({
+      area: s.area,
+      scenario: s.name,
+      figure: "p99 @10",
+      measured: `${at10.p99} ms${failed}`,
+      goal: s.goal?.p99Ms === undefined ? "" : `< ${s.goal.p99Ms} ms`,
+      met: verdict(s.goal?.p99Ms === undefined ? undefined : at10.p99 < s.goal.p99Ms),
+    });
+  }
+  server.disconnect();
+  await new Promise((resolve) => server.once("exit", resolve));
+
+  if (ONLY.length === 0 || ONLY.some((w) => "recharge billing run".includes(w))) {
+    const r = child("recharge", ["--expose-gc"]);
+    const got = await firstMessage<{ result?: RechargeBenchResult; error?: string }>(r);
+    await new Promise((resolve) => r.once("exit", resolve));
+    if (got.error || !got.result) throw new Error(`recharge bench failed: ${got.error}`);
+    const res = got.result;
+    const name = `billing run, one month: ${fmt(res.bookings)} bookings, ${fmt(res.usages)} usages → ${res.statements} statements, ${fmt(res.lines)} lines`;
+    rows.push({ area: "Recharge", scenario: name, figure: "time", measured: `${(res.runMs / 1000).toFixed(2)} s`, goal: `< ${res.goal.ms / 1000} s`, met: res.runMs < res.goal.ms ? "met" : "not met" });
+    rows.push({
+      area: "Recharge",
+      scenario: name,
+      figure: "peak RSS",
+      measured: `${res.peakRssMb} MB (heap ${res.peakHeapMb} MB)`,
+      goal: `< ${res.goal.mb} MB`,
+      met: res.peakRssMb < res.goal.mb ? "met" : "not met",
+    });
+    rows.push({
+      area: "Recharge",
+      scenario: "mailing the run's statement PDFs (after the run)",
+      figure: "time, peak RSS",
+      measured: `${(res.mailMs / 1000).toFixed(2)} s, ${res.peakRssWithMailMb} MB`,
+      goal: "",
+      met: "",
+    });
   }
 
-  const table = rows.map((r) => ({
-    scenario: r.name,
-    "req/s @50": Math.round(r.rps50),
-    "ratio to bare @50": r.ratio === null ? "1.00" : r.ratio.toFixed(2),
-    "p99 ms @10": r.p99at10,
-    "non-2xx/errors": r.non2xx,
-    goal: r.goal ? `ratio ≥ ${r.goal.ratio}, p99 < ${r.goal.p99Ms} ms` : "",
-    met: r.goal ? ((r.ratio ?? 1) >= (r.goal.ratio ?? 0) && r.p99at10 < (r.goal.p99Ms ?? Infinity) ? "yes" : "no") : "",
-  }));
-  console.table(table);
-  child.disconnect();
+  console.log("");
+  printTable(rows);
+  console.log(`\nLoad average at the end: ${os.loadavg().map((l) => l.toFixed(2)).join(" ")}.`);
 }
 
 if (process.env.BENCH_ROLE === "server") await serve();
+else if (process.env.BENCH_ROLE === "recharge") await recharge();
 else await main();

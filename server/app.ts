@@ -55,13 +55,17 @@ export function createApp(deps: AppDeps): CreatedApp {
       hsts: secureCookies,
     }),
   );
-  app.use(
-    pinoHttp({
-      level: deps.quiet ? "silent" : deps.config.LOG_LEVEL,
-      redact: ["req.headers.cookie", "req.headers['x-csrf-token']", "res.headers['set-cookie']"],
-      autoLogging: { ignore: (req) => req.url === "/api/health" },
-    }),
-  );
+  // A silent request logger would still build a child logger and listeners per request.
+  const logLevel = deps.quiet ? "silent" : deps.config.LOG_LEVEL;
+  if (logLevel !== "silent") {
+    app.use(
+      pinoHttp({
+        level: logLevel,
+        redact: ["req.headers.cookie", "req.headers['x-csrf-token']", "res.headers['set-cookie']"],
+        autoLogging: { ignore: (req) => req.url === "/api/health" },
+      }),
+    );
+  }
 
   // Raw body for signed webhooks (the signature covers the exact bytes); JSON everywhere else.
   app.use("/api/webhooks", express.raw({ type: "*/*", limit: "1mb" }));

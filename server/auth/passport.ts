@@ -16,10 +16,13 @@ export function createPassport(services: Services): InstanceType<typeof Passport
   );
   passport.serializeUser((user, done) => done(null, (user as Express.User).id));
   passport.deserializeUser((id: number, done) => {
-    services.users
-      .findById(id)
-      .then((u) => done(null, u && u.active ? presentUser(u) : false))
-      .catch(done);
+    let user: Express.User | null;
+    try {
+      user = services.users.signedIn(id);
+    } catch (e) {
+      return done(e);
+    }
+    done(null, user ?? false);
   });
   return passport;
 }

@@ -5,6 +5,7 @@
 import session from "express-session";
 import type { DataSource } from "typeorm";
 import { SessionRow } from "../entities";
+import { prepared } from "../db/prepared";
 
 const TOUCH_EVERY_MS = 5 * 60 * 1000;
 
@@ -26,13 +27,21 @@ export class DbSessionStore extends session.Store {
   }
 
   get(sid: string, cb: Cb<session.SessionData | null>): void {
-    this.repo
-      .findOneBy({ sid })
-      .then((row) => {
-        if (!row || row.expiresAtMs <= this.now().getTime()) return cb(null, null);
-        cb(null, JSON.parse(row.data) as session.SessionData);
-      })
-      .catch(cb);
+    // Every signed-in request reads its row: one prepared statement, not a query builder.
+    let row: { data: string; expiresAtMs: number } | undefined;
+    try {
+      row = prepared(this.ds, `SELECT data, expiresAtMs FROM sessions WHERE sid = ?`).get(sid) as typeof row;
+    } catch (e) {
+      return cb(e);
+    }
+    if (!row || row.expiresAtMs <= this.now().getTime()) return cb(null, null);
+    let data: session.SessionData;
+    try {
+      data = JSON.parse(row.data) as session.SessionData;
+    } catch (e) {
+      return cb(e);
+    }
+    cb(null, data);
   }
 
   set(sid: string, sess: session.SessionData, cb?: Cb): void {

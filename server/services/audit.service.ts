@@ -1,6 +1,6 @@
 /** Writes the audit log: who did what to which record. Call it inside the change's transaction. */
 import type { EntityManager } from "typeorm";
-import { AuditEntry } from "../entities";
+import { prepared } from "../db/prepared";
 
 export async function audit(
   em: EntityManager,
@@ -11,5 +11,14 @@ export async function audit(
   entityId: number | null,
   detail: Record<string, unknown> = {},
 ): Promise<void> {
-  await em.insert(AuditEntry, { at: at.toISOString(), actorId, action, entityType, entityId, detail: JSON.stringify(detail) });
+  // A prepared insert on the transaction's own connection: TypeORM's insert builder would also
+  // read the new row back for its default columns, on every write Phasebook makes.
+  prepared(em.connection, `INSERT INTO audit_log (at, actorId, action, entityType, entityId, detail) VALUES (?, ?, ?, ?, ?, ?)`).run(
+    at.toISOString(),
+    actorId,
+    action,
+    entityType,
+    entityId,
+    JSON.stringify(detail),
+  );
 }

@@ -32,6 +32,7 @@ import type { BillingPolicyDto } from "@shared/schemas/recharge";
 import type { ChargeKind } from "../entities/charge-line.entity";
 import { Account, Rate } from "../entities";
 import { readBillingPolicy } from "./billing-policy";
+import { prepared } from "../db/prepared";
 
 export interface ComputedLine {
   kind: ChargeKind;
@@ -272,12 +273,13 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
   const push = (accountId: number, kind: ChargeKind, l: Omit<ComputedLine, "kind" | "accountId">) => lines.push({ ...l, kind, accountId });
 
   // ---- this month's bookings
-  const bookings: BookingRow[] = await em.query(
+  // Streamed row by row (the loop body makes no query): a month of rows is never held at once.
+  const bookings = prepared(
+    em.connection,
     `SELECT ${BOOKING_COLUMNS} FROM bookings b JOIN booking_instruments bi ON bi.bookingId = b.id
      WHERE b.startMs >= ? AND b.startMs < ? AND b.status IN ('confirmed', 'in_progress', 'completed', 'no_show', 'cancelled')
      ORDER BY b.startMs, b.id, bi.instrumentId`,
-    [startMs, endMs],
-  );
+  ).iterate(startMs, endMs) as IterableIterator<BookingRow>;
   for (const b of bookings) {
     const account = accounts.get(b.accountId);
     if (!account) continue;
@@ -339,21 +341,12 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
   const usageSql = `SELECT u.id, u.userId, COALESCE(u.accountId, b.accountId) AS accountId, u.amount, u.unit, u.costCents, u.at, ch.name AS chemicalName
     FROM container_usages u LEFT JOIN bookings b ON b.id = u.bookingId
     JOIN containers c ON c.id = u.containerId JOIN chemicals ch ON ch.id = c.chemicalId`;
-  const usages: (UsageRow & { late?: boolean })[] = await em.query(`${usageSql} WHERE u.at >= ? AND u.at < ? ORDER BY u.at, u.id`, [startIso, endIso]);
-  if (locked.size > 0) {
-    const lateRows: UsageRow[] = await em.query(
-      `${usageSql} WHERE u.at < ? AND u.id NOT IN (SELECT cl.usageId FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId
-        WHERE r.status = 'final' AND cl.usageId IS NOT NULL) ORDER BY u.at, u.id`,
-      [startIso],
-    );
-    for (const u of lateRows) if (locked.has(clock.period(u.at))) usages.push({ ...u, late: true });
-  }
   let unpricedUsages = 0;
-  for (const u of usages) {
+  const consume = (u: UsageRow & { late?: boolean }) => {
     const account = u.accountId == null ? undefined : accounts.get(u.accountId);
     if (!account || u.costCents == null) {
       unpricedUsages++;
-      continue;
+      return;
     }
     const c = consumableCharge({ quantityUsed: 1, unitCostCents: u.costCents, markupPercent: policy.consumableMarkupPercent });
     push(account.id, u.late ? "correction" : "consumable", {
@@ -371,6 +364,18 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
       amountCents: c.amountCents,
       at: u.at,
     });
+  };
+  // This month's usages streamed (tens of thousands of rows), then late-logged ones of locked months.
+  for (const u of prepared(em.connection, `${usageSql} WHERE u.at >= ? AND u.at < ? ORDER BY u.at, u.id`).iterate(startIso, endIso) as IterableIterator<UsageRow>) {
+    consume(u);
+  }
+  if (locked.size > 0) {
+    const lateRows: UsageRow[] = await em.query(
+      `${usageSql} WHERE u.at < ? AND u.id NOT IN (SELECT cl.usageId FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId
+        WHERE r.status = 'final' AND cl.usageId IS NOT NULL) ORDER BY u.at, u.id`,
+      [startIso],
+    );
+    for (const u of lateRows) if (locked.has(clock.period(u.at))) consume({ ...u, late: true });
   }
 
   // ---- monthly caps: one credit per member and account over the cap (this month's own charges)

@@ -12,9 +12,10 @@ import { weeklyOccurrences } from "@shared/domain/recurrence";
 import type { BookingListQuery, BookingPolicy, CreateBookingParsed, MoveBookingInput, OccurrenceProblem } from "@shared/schemas/bookings";
 import { INSTRUMENT_STATUS_LABELS } from "@shared/schemas/instruments";
 import type { Config } from "../config";
-import { Account, AccountMember, Booking, BookingInstrument, Instrument, SetupInstrument, TrainingRecord, User, UserRole } from "../entities";
+import { Account, AccountMember, Booking, Instrument, SetupInstrument, TrainingRecord, User, UserRole } from "../entities";
 import { AppError, BadRequest, Conflict, Forbidden, NotFound, RuleBroken, type FieldError } from "../errors";
 import { serialTransaction } from "../db/serial";
+import { prepared } from "../db/prepared";
 import { hasRole, type AuthUser } from "../middleware/auth";
 import { audit } from "./audit.service";
 import { enqueueMail } from "./mail.service";
@@ -307,10 +308,19 @@ export function createBookingService(deps: BookingServiceDeps) {
             createdAt: iso,
             updatedAt: iso,
           } as const;
-          const result = await em.insert(Booking, row);
-          const id = result.identifiers[0].id as number;
-          await em.insert(BookingInstrument, ids.map((instrumentId) => ({ bookingId: id, instrumentId })));
-          const booking = await em.findOneByOrFail(Booking, { id });
+          // Prepared inserts on the transaction's connection, and the row as written rather than
+          // read back: the booking create is the Schedule's hottest write.
+          const id = Number(
+            prepared(
+              em.connection,
+              `INSERT INTO bookings (userId, accountId, purpose, status, startsAt, endsAt, startMs, endMs, seriesId, lateCancel, createdAt, updatedAt)
+               VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, 0, ?, ?)`,
+            ).run(row.userId, row.accountId, row.purpose, row.status, row.startsAt, row.endsAt, row.startMs, row.endMs, row.seriesId, row.createdAt, row.updatedAt)
+              .lastInsertRowid,
+          );
+          const link = prepared(em.connection, `INSERT INTO booking_instruments (bookingId, instrumentId) VALUES (?, ?)`);
+          for (const instrumentId of ids) link.run(id, instrumentId);
+          const booking: BookingRow = { id, ...row, lateCancel: false };
           made.push({ booking, instrumentIds: [...ids].sort((a, b) => a - b) });
         }
         await audit(em, now, actor.id, needsApproval ? "booking.requested" : "booking.confirmed", "booking", made[0].booking.id, {

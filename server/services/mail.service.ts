@@ -5,6 +5,7 @@
 import type { DataSource, EntityManager } from "typeorm";
 import { OutboundMail } from "../entities";
 import type { Mailer } from "../integrations/mailer";
+import { prepared } from "../db/prepared";
 
 export interface MailMessage {
   to: string;
@@ -18,17 +19,11 @@ export interface MailMessage {
 const BACKOFF_MINUTES = [1, 5, 15, 60, 180, 720];
 
 export async function enqueueMail(em: EntityManager, now: Date, msg: MailMessage): Promise<void> {
-  await em.insert(OutboundMail, {
-    to: msg.to,
-    subject: msg.subject,
-    text: msg.text,
-    html: msg.html ?? null,
-    attachments: JSON.stringify(msg.attachments ?? []),
-    status: "pending",
-    attempts: 0,
-    nextAttemptAt: now.toISOString(),
-    createdAt: now.toISOString(),
-  });
+  // Prepared, on the caller's transaction connection (see audit.service.ts for why).
+  prepared(
+    em.connection,
+    `INSERT INTO outbound_mail ("to", subject, text, html, attachments, status, attempts, nextAttemptAt, createdAt) VALUES (?, ?, ?, ?, ?, 'pending', 0, ?, ?)`,
+  ).run(msg.to, msg.subject, msg.text, msg.html ?? null, JSON.stringify(msg.attachments ?? []), now.toISOString(), now.toISOString());
 }
 
 export async function deliverDueMail(
