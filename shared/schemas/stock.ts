@@ -357,6 +357,9 @@ export const sdsDto = z.object({
 });
 export type SdsDto = z.infer<typeof sdsDto>;
 
+/** Supplier sheets are a few hundred kB; 10 MB leaves room for scanned ones. */
+export const SDS_MAX_BYTES = 10 * 1024 * 1024;
+
 export const sdsUploadFields = z.object({
   reviewedOn: isoDate,
   supplier: z.string().trim().max(200).default(""),

@@ -18,7 +18,12 @@ function StockroomHeader() {
         actions={
           <>
             <Link to={paths.prepareSolution.getHref()} className={buttonClasses("primary")} data-testid="prepare-solution-link">Prepare a solution</Link>
-            {hasRole(user, "manager", "safety_officer") && <Link to={paths.receive.getHref()} className={buttonClasses("secondary")}>Receive a delivery</Link>}
+            {hasRole(user, "manager", "safety_officer") && (
+              <>
+                <Link to={paths.receive.getHref()} className={buttonClasses("secondary")}>Receive a delivery</Link>
+                <Link to={paths.stockImport.getHref()} className={buttonClasses("secondary")} data-testid="import-link">Import CSV</Link>
+              </>
+            )}
           </>
         }
       />

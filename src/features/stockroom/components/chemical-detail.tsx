@@ -15,6 +15,7 @@ import { useChemical, useSheets } from "../api/get-chemical";
 import { useHoldChemical } from "../api/chemical-actions";
 import { ContainersTable } from "./containers-table";
 import { HazardPanel } from "./hazard-panel";
+import { SdsUploadForm } from "./sds-upload-form";
 
 export function ChemicalDetail({ id }: { id: number }) {
   const q = useChemical(id);
@@ -51,16 +52,17 @@ export function ChemicalDetail({ id }: { id: number }) {
           </Card>
           <Card title="Safety data sheets">
             {sheets.data?.length ? (
-              <ul className="text-sm">
+              <ul className="text-sm" data-testid="sds-list">
                 {sheets.data.map((s) => (
                   <li key={s.id}>
-                    <a href={`/api/sds/${s.id}/file`}>{s.originalName}</a> — reviewed {formatDate(s.reviewedOn)} {s.due && <strong className="text-warning-800">(due for review)</strong>}
+                    <a href={`/api/sds/${s.id}/file`}>{s.originalName}</a> — reviewed {formatDate(s.reviewedOn)}{s.supplier && `, ${s.supplier}`} {s.due && <strong className="text-warning-800">(due for review)</strong>}
                   </li>
                 ))}
               </ul>
             ) : (
               <p className="text-sm text-grey-600">No safety data sheet on file.</p>
             )}
+            {keeper && <SdsUploadForm chemicalId={c.id} />}
           </Card>
           {keeper && (
             <Card title="Hold">

@@ -38,9 +38,22 @@ export function ContainerDetail({ id }: { id: number }) {
         <div className="flex flex-col gap-4">
           <Card title="Container">
             <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3" data-testid="container-facts">
-              <Fact label="Left">
-                <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
-              </Fact>
+              {c.kind === "waste" ? (
+                // A waste container fills rather than empties: its quantity is what has been collected, its initial quantity the capacity.
+                <Fact label="Filled">
+                  <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
+                  {c.initialQuantity > 0 && (
+                    <span data-testid="waste-fill">
+                      {" "}({Math.round((c.quantity / c.initialQuantity) * 1000) / 10} % full)
+                      {c.quantity / c.initialQuantity >= 0.8 && <strong className="block text-warning-800">Arrange collection</strong>}
+                    </span>
+                  )}
+                </Fact>
+              ) : (
+                <Fact label="Left">
+                  <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
+                </Fact>
+              )}
               <Fact label="Status"><StatusBadge status={c.status} chemicalHold={c.chemicalHoldReason} /></Fact>
               <Fact label="Location">{locationPath ?? <span className="text-warning-800">No location</span>}</Fact>
               {c.concentrationMolPerL !== null && <Fact label="Concentration">{formatConcentration(c.concentrationMolPerL)}</Fact>}
