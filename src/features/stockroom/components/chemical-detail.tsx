@@ -1,5 +1,5 @@
 /** One chemical: identity, computed classes, hazard panel, its containers, its safety data sheets and (for the safety office) a hold. */
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
@@ -17,7 +17,13 @@ import { ContainersTable } from "./containers-table";
 import { HazardPanel } from "./hazard-panel";
 import { SdsUploadForm } from "./sds-upload-form";
 
-export function ChemicalDetail({ id }: { id: number }) {
+interface ChemicalDetailProps {
+  id: number;
+  /** Passed on to the containers table (the route composes label printing). */
+  containerSelectionActions?: (ids: number[]) => ReactNode;
+}
+
+export function ChemicalDetail({ id, containerSelectionActions }: ChemicalDetailProps) {
   const q = useChemical(id);
   const sheets = useSheets(id);
   const { data: user } = useUser();
@@ -83,7 +89,7 @@ export function ChemicalDetail({ id }: { id: number }) {
         <HazardPanel chemical={c} />
       </div>
       <h2 className="mb-2 mt-6 text-sm font-semibold">Containers</h2>
-      <ContainersTable chemicalId={c.id} />
+      <ContainersTable chemicalId={c.id} selectionActions={containerSelectionActions} />
     </>
   );
 }

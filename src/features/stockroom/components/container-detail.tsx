@@ -1,6 +1,7 @@
 /** One container: what and where it is, its hazard panel, quick actions, lineage, usage and movement history. */
 import { Link } from "react-router-dom";
-import { CONTAINER_KIND_LABELS } from "@shared/schemas/stock";
+import type { ReactNode } from "react";
+import { CONTAINER_KIND_LABELS, type ContainerDto } from "@shared/schemas/stock";
 import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
 import { formatDate, formatDateTime, humanize } from "@/lib/format";
@@ -23,7 +24,13 @@ function Fact({ label, children }: { label: string; children: React.ReactNode })
   );
 }
 
-export function ContainerDetail({ id }: { id: number }) {
+interface ContainerDetailProps {
+  id: number;
+  /** The label's print and re-issue tools, composed by the route for those who may print labels. */
+  labelTools?: (container: ContainerDto) => ReactNode;
+}
+
+export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
   const q = useContainer(id);
   if (q.isPending) return <LoadingLine label="Loading the container" />;
   if (q.isError) return <Alert tone="danger">{describeError(q.error)}</Alert>;
@@ -64,6 +71,14 @@ export function ContainerDetail({ id }: { id: number }) {
             </dl>
           </Card>
           <ContainerActions container={c} />
+          {labelTools && (
+            <Card title="Label" description="The QR label on this container opens this page when scanned">
+              <div className="flex flex-col gap-3" data-testid="container-label-tools">
+                <p className="text-xs text-grey-600">Label code <span className="font-mono break-all" data-testid="container-label-token">{c.labelToken}</span></p>
+                {labelTools(c)}
+              </div>
+            </Card>
+          )}
           {(parents.length > 0 || children.length > 0) && (
             <Card title="Lineage" description="Prepared solutions and the containers they were made from">
               <div data-testid="lineage">
