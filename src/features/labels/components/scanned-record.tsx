@@ -11,7 +11,8 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { hazardStatementText } from "@shared/domain/ghs-statements";
-import { isCarcinogen, PICTOGRAM_NAMES, type GhsPictogram } from "@shared/domain/hazards";
+import { PRECEDENCE_CAUTION } from "@shared/domain/cautions";
+import { PICTOGRAM_NAMES, type GhsPictogram } from "@shared/domain/hazards";
 import { INSTRUMENT_KIND_LABELS, type InstrumentKind } from "@shared/schemas/instruments";
 import {
   cleanedInput,
@@ -84,7 +85,6 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
   const r = scan.record;
   const action = useScanAction();
   const finished = r.status === "empty" || r.status === "disposed";
-  const carcinogen = isCarcinogen(r.hazardStatements);
   return (
     <>
       <Card
@@ -106,8 +106,8 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
           )}
         </dl>
         {r.holdReason && <Alert tone="warning" className="mt-2">On hold: {r.holdReason}</Alert>}
-        {(r.hazardStatements.length > 0 || r.pictograms.length > 0) && (
-          <div className="mt-3 rounded-md border border-danger-200 bg-danger-50 p-2 text-sm text-danger-900">
+        {(r.hazardStatements.length > 0 || r.pictograms.length > 0 || r.cautions.length > 0) && (
+          <div className="mt-3 rounded-md border border-danger-200 bg-danger-50 p-2 text-sm text-danger-900" data-testid="scan-cautions">
             {r.signalWord && <p className="font-semibold uppercase tracking-wide">{r.signalWord}</p>}
             {r.pictograms.length > 0 && (
               <p className="text-xs">{r.pictograms.map((p) => `${PICTOGRAM_NAMES[p as GhsPictogram] ?? p} (${p})`).join(" · ")}</p>
@@ -119,12 +119,14 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
                 </li>
               ))}
             </ul>
-            {carcinogen && (
-              <p className="mt-1 text-xs font-medium">
-                Suspected or known carcinogen: open and dispense it in a fume hood, with gloves suited to the solvent.
-              </p>
+            {r.cautions.length > 0 && (
+              <ul className="mt-1 list-disc pl-4 text-xs font-medium">
+                {r.cautions.map((c) => (
+                  <li key={c}>{c}</li>
+                ))}
+              </ul>
             )}
-            <p className="mt-1 text-[11px] text-danger-800">The safety data sheet and the safety office's rules take precedence over this summary.</p>
+            <p className="mt-1 text-[11px] text-danger-800">{PRECEDENCE_CAUTION}</p>
           </div>
         )}
       </Card>
