@@ -93,6 +93,7 @@ export const ROLE_MATRIX: Record<string, Who> = {
   // also works at the bench (BRIEF: "a person can hold several roles"), and the scan quick action uses it.
   "POST /api/containers/:id/usage": SIGNED_IN,
   "POST /api/containers/:id/move": SIGNED_IN,
+  "POST /api/containers/:id/waste": SIGNED_IN,
   "POST /api/containers/:id/hold": ["manager", "safety_officer"],
   "POST /api/containers/:id/release": ["manager", "safety_officer"],
   "POST /api/containers/:id/empty": SIGNED_IN,
