@@ -351,7 +351,7 @@ describe("POST /api/containers/:id/waste", () => {
     expect(r.body.container.quantity).toBeCloseTo(0.25, 12);
   });
 
-  it("converts a mass through the density: 125.69 g of 1,2-dichloroethane is 100 mL (1.2569 g/mL, CRC Handbook, from memory)", async () => {
+  it("converts a mass through the density: 125.69 g of 1,2-dichloroethane is 100 mL (1.2569 g/mL at 20 °C, Merck Index)", async () => {
     const w = await carboy();
     const r = await member.post(`/api/containers/${w.id}/waste`, { amount: 125.69, unit: "g" });
     expect(r.status, r.text).toBe(200);

@@ -130,7 +130,7 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
           </div>
         )}
       </Card>
-      {!finished && r.status !== "on_hold" && <UsageForm containerId={scan.id} defaultUnit={r.unit} />}
+      {!finished && r.status !== "on_hold" && <UsageForm containerId={scan.id} defaultUnit={r.unit} waste={r.kind === "waste"} />}
       {r.mayHandle && !finished && (
         <Section title="Move to another place" testId="scan-move">
           <MoveForm containerId={scan.id} currentLocationId={r.locationId} />
@@ -182,7 +182,8 @@ const usageForm = z.object({
   unit: z.string().min(1, "Choose a unit"),
 });
 
-function UsageForm({ containerId, defaultUnit }: { containerId: number; defaultUnit: string }) {
+/** Log what was taken, or for a waste container what was poured in (the stockroom's /usage and /waste routes). */
+function UsageForm({ containerId, defaultUnit, waste = false }: { containerId: number; defaultUnit: string; waste?: boolean }) {
   const action = useScanAction();
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
@@ -192,15 +193,15 @@ function UsageForm({ containerId, defaultUnit }: { containerId: number; defaultU
     setError(null);
     setDone(null);
     try {
-      await action.mutateAsync({ kind: "usage", containerId, amount: v.amount, unit: v.unit });
-      setDone(`Logged ${v.amount} ${v.unit}.`);
+      await action.mutateAsync({ kind: waste ? "waste" : "usage", containerId, amount: v.amount, unit: v.unit });
+      setDone(waste ? `Added ${v.amount} ${v.unit} to the waste.` : `Logged ${v.amount} ${v.unit}.`);
       form.reset({ amount: "" as unknown as number, unit: v.unit });
     } catch (e) {
-      if (!applyServerFieldErrors(e, form.setError, ["amount", "unit"])) setError(actionError(e, "Logging a usage"));
+      if (!applyServerFieldErrors(e, form.setError, ["amount", "unit"])) setError(actionError(e, waste ? "Adding to the waste" : "Logging a usage"));
     }
   });
   return (
-    <Card title="Log what you used" bodyClassName="p-3">
+    <Card title={waste ? "Add to this waste container" : "Log what you used"} bodyClassName="p-3">
       <form onSubmit={submit} noValidate className="flex flex-col gap-2" data-testid="scan-usage-form">
         {error && <Alert tone="danger">{error}</Alert>}
         {done && <Alert tone="ok">{done}</Alert>}
@@ -223,7 +224,7 @@ function UsageForm({ containerId, defaultUnit }: { containerId: number; defaultU
         </div>
         <div>
           <Button type="submit" variant="primary" loading={form.formState.isSubmitting} data-testid="scan-usage-submit">
-            Log usage
+            {waste ? "Add to the waste" : "Log usage"}
           </Button>
         </div>
       </form>

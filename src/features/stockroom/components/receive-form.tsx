@@ -18,8 +18,7 @@ import { useLocations } from "../api/get-locations";
 import { useReceiveContainers } from "../api/receive-containers";
 import { HandlingCautions } from "./hazard-panel";
 
-// Waste containers are not received here: a received container starts full, a waste container empty.
-const RECEIVED_KINDS = ["bottle", "vial"] as const;
+const RECEIVED_KINDS = ["bottle", "vial", "waste"] as const;
 
 const schema = z.object({
   chemicalId: z.coerce.number({ message: "Choose the chemical" }).int().positive("Choose the chemical"),
@@ -81,7 +80,7 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
           <Input label="Size of each" required inputMode="decimal" {...form.register("quantity")} error={err.quantity?.message} />
           <Select label="Unit" {...form.register("unit")} error={err.unit?.message}>{STOCK_UNITS.map((u) => <option key={u}>{u}</option>)}</Select>
         </div>
-        <Select label="Kind" {...form.register("kind")} fieldClassName="w-60">
+        <Select label="Kind" {...form.register("kind")} hint="A waste container's size is its capacity; it starts empty." fieldClassName="w-60">
           {RECEIVED_KINDS.map((k) => <option key={k} value={k}>{CONTAINER_KIND_LABELS[k]}</option>)}
         </Select>
         {chosen && <HandlingCautions chemical={chosen} title={`Caution: ${chosen.name}`} />}
