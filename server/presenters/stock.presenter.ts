@@ -1,5 +1,6 @@
 /** Chemicals, containers and locations → the DTOs of shared/schemas/stock. */
-import { ghsFlammableCategory, isAcutelyToxic, isCarcinogen, isHalogenated, nfpaClass } from "@shared/domain/hazards";
+import { isHalogenated } from "@shared/domain/chemistry";
+import { ghsFlammableCategory, isAcutelyToxic, isCarcinogen, nfpaClass } from "@shared/domain/hazards";
 import type { ChemicalDto, ContainerDto, LocationDto } from "@shared/schemas/stock";
 import type { Chemical, Container, Location } from "../entities";
 

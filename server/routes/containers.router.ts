@@ -1,7 +1,7 @@
 /**
  * Containers: the Stockroom search (contract GET /api/containers), receiving a delivery, one
  * container with its history, usage (contract POST /api/containers/:id/usage), moves, holds,
- * emptying, disposal, CSV import and export.
+ * emptying, pouring into a waste container, disposal, CSV import and export.
  */
 import { Router } from "express";
 import { idParam } from "@shared/schemas/common";
@@ -12,12 +12,14 @@ import {
   moveInput,
   receiveInput,
   usageInput,
+  wasteAddInput,
   type ContainerListQuery,
   type DisposeInput,
   type HoldInput,
   type MoveInput,
   type ReceiveInput,
   type UsageInput,
+  type WasteAddInput,
 } from "@shared/schemas/stock";
 import type { Ctx } from "../context";
 import { currentUser, requireAuth, requireRole } from "../middleware/auth";
@@ -93,6 +95,11 @@ export function createContainersRouter(ctx: Ctx): Router {
 
   r.post("/:id/move", requireAuth, validate({ params: idParam, body: moveInput }), async (req, res) => {
     res.json({ container: presentContainer(await containers.move(currentUser(req), id(req), body<MoveInput>(req))) });
+  });
+
+  // Anyone at the bench pours into the halogenated waste, as anyone logs usage.
+  r.post("/:id/waste", requireAuth, validate({ params: idParam, body: wasteAddInput }), async (req, res) => {
+    res.json({ container: presentContainer(await containers.addWaste(currentUser(req), id(req), body<WasteAddInput>(req))) });
   });
 
   r.post("/:id/hold", requireRole(...STOCK_KEEPERS), validate({ params: idParam, body: holdInput }), async (req, res) => {

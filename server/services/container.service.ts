@@ -6,7 +6,7 @@
 import type { DataSource, EntityManager } from "typeorm";
 import { UnitError } from "@shared/domain/units";
 import { amountInContainerUnit, usageCostCents } from "@shared/domain/stock";
-import type { ContainerListQuery, DisposeInput, MoveInput, ReceiveInput, UsageInput } from "@shared/schemas/stock";
+import type { ContainerListQuery, DisposeInput, MoveInput, ReceiveInput, UsageInput, WasteAddInput } from "@shared/schemas/stock";
 import { Booking, Chemical, Container, ContainerMovement, ContainerUsage, Location } from "../entities";
 import type { MovementKind } from "../entities/container-movement.entity";
 import { Conflict, NotFound, RuleBroken } from "../errors";
@@ -240,16 +240,18 @@ export function createContainerService(deps: ContainerServiceDeps) {
       }
       const ids: number[] = [];
       const at = now().toISOString();
+      // A waste container fills rather than empties: its size is the capacity, it starts empty and in use.
+      const waste = input.kind === "waste";
       for (let i = 0; i < input.count; i++) {
         const res = await em.insert(Container, {
           chemicalId: chem.id,
           kind: input.kind,
-          quantity: input.quantity,
+          quantity: waste ? 0 : input.quantity,
           initialQuantity: input.quantity,
           unit: input.unit,
           locationId,
-          status: "sealed",
-          openedAt: null,
+          status: waste ? "in_use" : "sealed",
+          openedAt: waste ? at : null,
           expiresAt: input.expiresAt ?? null,
           retestAt: input.retestAt ?? null,
           groupId: input.groupId ?? null,
@@ -386,6 +388,34 @@ export function createContainerService(deps: ContainerServiceDeps) {
       await audit(em, now(), actor.id, "container.emptied", "container", c.id, { quantityBefore: c.quantity, unit: c.unit });
     });
 
+  /**
+   * Pour into a waste container: the amount, in any unit the container's chemical converts to,
+   * adds to what it holds; more than its capacity (initialQuantity) is refused (422) so the
+   * fill level the safety review shows never passes 100 %.
+   */
+  const addWaste = (actor: AuthUser, id: number, input: WasteAddInput) =>
+    change(id, async (em, c) => {
+      if (c.kind !== "waste") throw new Conflict(`Container ${c.id} is not a waste container.`, "not_waste_container");
+      if (c.status === "on_hold") throw new Conflict(`Container ${c.id} is on hold: ${c.holdReason ?? "no reason given"}`, "container_on_hold");
+      if (c.status === "empty" || c.status === "disposed") throw new Conflict(`Waste container ${c.id} has been ${c.status === "empty" ? "emptied" : "collected"}; use another.`, "container_" + c.status);
+      const chem = (await em.findOneBy(Chemical, { id: c.chemicalId }))!;
+      let add: number;
+      try {
+        add = amountInContainerUnit(input.amount, input.unit, c, chem);
+      } catch (e) {
+        if (e instanceof UnitError) throw unitProblem(e, { amount: "amount", unit: "unit" });
+        throw e;
+      }
+      const room = c.initialQuantity - c.quantity;
+      if (add > room * (1 + EPSILON_REL) + 1e-12) {
+        const msg = `Waste container ${c.id} has room for ${formatQty(Math.max(0, room))} ${c.unit}; ${formatQty(input.amount)} ${input.unit} is ${formatQty(add)} ${c.unit}. Use another container and arrange collection.`;
+        throw new RuleBroken(msg, [{ path: "amount", message: msg }], "waste_container_full", { room, unit: c.unit });
+      }
+      const filled = Math.min(c.initialQuantity, c.quantity + add);
+      await em.update(Container, c.id, { quantity: filled, status: "in_use", openedAt: c.openedAt ?? now().toISOString() });
+      await audit(em, now(), actor.id, "container.waste_added", "container", c.id, { amount: input.amount, unit: input.unit, amountInContainerUnit: add, note: input.note ?? "" });
+    });
+
   const dispose = (actor: AuthUser, id: number, input: DisposeInput) =>
     change(id, async (em, c) => {
       if (c.status === "disposed") throw new Conflict(`Container ${c.id} is already disposed of.`, "container_disposed");
@@ -393,7 +423,7 @@ export function createContainerService(deps: ContainerServiceDeps) {
       await audit(em, now(), actor.id, "container.disposed", "container", c.id, { reason: input.reason ?? "", quantityBefore: c.quantity, unit: c.unit });
     });
 
-  return { list, detail, row: (id: number) => row(ds.manager, id), receive, withdraw, logUsage, move, hold, release, markEmpty, dispose, recordMovement, requireLocation, rowIn: row };
+  return { list, detail, row: (id: number) => row(ds.manager, id), receive, withdraw, logUsage, move, hold, release, markEmpty, addWaste, dispose, recordMovement, requireLocation, rowIn: row };
 }
 
 /** Ids of a location and everything inside it. */

@@ -7,6 +7,8 @@ import type { DataSource, EntityManager } from "typeorm";
 import { In } from "typeorm";
 import { DateTime } from "luxon";
 import { isLabelTokenShape, labelUrl, MAX_LABELS_PER_REQUEST, SINGLE_LABEL, stockProblems, type LabelStockLayout } from "@shared/domain/labels";
+import { handlingCautions } from "@shared/domain/cautions";
+import { presentChemical } from "../presenters/stock.presenter";
 import { pictogramsFor, signalWordFor, type GhsPictogram } from "@shared/domain/hazards";
 import {
   recordPath,
@@ -107,6 +109,7 @@ export function createLabelService(deps: LabelServiceDeps) {
       hazardStatements: hCodes,
       pictograms: stored.length ? stored : pictogramsFor(hCodes),
       signalWord: signal === "none" || signal === "undetermined" ? null : signal,
+      cautions: handlingCautions(presentChemical(chem)),
       mayHandle: await mayHandleContainer(ds, user, c),
     };
   }

@@ -6,7 +6,7 @@
  * usage and checking in or out go through the stockroom's and the schedule's own routes.
  */
 import type { DataSource, EntityManager } from "typeorm";
-import { isHalogenated } from "@shared/domain/hazards";
+import { isHalogenated } from "@shared/domain/chemistry";
 import type { Role } from "@shared/schemas/auth";
 import { Chemical, Container, Instrument, Location, User, UserRole } from "../entities";
 import { Conflict, Forbidden, NotFound, RuleBroken } from "../errors";

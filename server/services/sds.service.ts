@@ -17,8 +17,8 @@ import { serialTransaction } from "../db/serial";
 import { audit } from "./audit.service";
 import { facilityToday, sdsReviewMonths } from "./safety.service";
 
-/** Supplier sheets are a few hundred kB; 10 MB leaves room for scanned ones. */
-export const SDS_MAX_BYTES = 10 * 1024 * 1024;
+// The limit is shared with the upload form, which checks it before sending.
+export { SDS_MAX_BYTES } from "@shared/schemas/stock";
 
 export class UnsupportedMedia extends AppError {
   constructor(message: string, field: string) {

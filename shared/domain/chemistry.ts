@@ -312,3 +312,14 @@ export function normaliseFormula(formula: string, options: NormaliseFormulaOptio
   const analysis = analyseFormula(formula);
   return options.hill ? analysis.hillFormula : analysis.formula;
 }
+
+/**
+ * A halogenated organic for waste segregation: the formula has carbon and F, Cl, Br or I.
+ * A formula cannot show bonds, so an organic salt with a halide ion (tetrabutylammonium
+ * chloride) counts too; that errs towards the halogenated waste stream, which is the safe
+ * side. Inorganic halides (LiCl, NaCl) do not count. Throws FormulaError for a bad formula.
+ */
+export function isHalogenated(formula: string): boolean {
+  const symbols = new Set(analyseFormula(formula).atoms.map((a) => a.symbol));
+  return symbols.has("C") && ["F", "Cl", "Br", "I"].some((x) => symbols.has(x));
+}

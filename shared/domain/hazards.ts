@@ -12,8 +12,10 @@
  * - Pictograms and signal words per hazard class and category: UN GHS Annex 1 and the
  *   chapter tables; precedence of pictograms: UN GHS 1.4.10.5.3.1 (same rule in EU CLP
  *   Art. 26). Those tables were applied FROM MEMORY, not re-read in the documents.
+ *
+ * Nothing here parses formulas: the browser imports this module for pictogram names, and the
+ * formula parser is a large package. isHalogenated lives in chemistry.ts for that reason.
  */
-import { analyseFormula } from "./chemistry";
 import { splitHCode } from "./ghs-statements";
 
 export type GhsFlammableCategory = 1 | 2 | 3 | 4;
@@ -138,17 +140,6 @@ export const ACUTELY_TOXIC_CODES: readonly string[] = ["H300", "H301", "H310", "
 export function isAcutelyToxic(hCodes: readonly string[]): boolean {
   const codes = singleCodes(hCodes);
   return ACUTELY_TOXIC_CODES.some((c) => codes.has(c));
-}
-
-/**
- * A halogenated organic for waste segregation: the formula has carbon and F, Cl, Br or I.
- * A formula cannot show bonds, so an organic salt with a halide ion (tetrabutylammonium
- * chloride) counts too; that errs towards the halogenated waste stream, which is the safe
- * side. Inorganic halides (LiCl, NaCl) do not count. Throws FormulaError for a bad formula.
- */
-export function isHalogenated(formula: string): boolean {
-  const symbols = new Set(analyseFormula(formula).atoms.map((a) => a.symbol));
-  return symbols.has("C") && ["F", "Cl", "Br", "I"].some((x) => symbols.has(x));
 }
 
 type SignalVerdict = SignalWord | "none" | "either";

@@ -121,6 +121,8 @@ export const scanContainerRecord = z.object({
   hazardStatements: z.array(z.string()),
   pictograms: z.array(z.string()),
   signalWord: z.string().nullable(),
+  /** handlingCautions() of the chemical (shared/domain/cautions.ts), computed by the server with its formula-derived flags. */
+  cautions: z.array(z.string()),
   /** The caller may move, empty or dispose of it (role and ownership). */
   mayHandle: z.boolean(),
 });

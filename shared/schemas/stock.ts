@@ -178,6 +178,10 @@ export const usageInput = z.object({
 });
 export type UsageInput = z.infer<typeof usageInput>;
 
+/** Pouring into a waste container (POST /api/containers/:id/waste). */
+export const wasteAddInput = usageInput.pick({ amount: true, unit: true, note: true });
+export type WasteAddInput = z.infer<typeof wasteAddInput>;
+
 export const receiveInput = z.object({
   chemicalId: z.number({ message: "Choose the chemical" }).int().positive(),
   count: z.number({ message: "Enter how many containers came" }).int("Whole containers only").min(1, "At least one container").max(100, "At most 100 containers per delivery"),
@@ -356,6 +360,9 @@ export const sdsDto = z.object({
   due: z.boolean(),
 });
 export type SdsDto = z.infer<typeof sdsDto>;
+
+/** Supplier sheets are a few hundred kB; 10 MB leaves room for scanned ones. */
+export const SDS_MAX_BYTES = 10 * 1024 * 1024;
 
 export const sdsUploadFields = z.object({
   reviewedOn: isoDate,

@@ -84,6 +84,7 @@ export function createAppRouter() {
           screen(paths.safety.path, () => import("./routes/safety").then((m) => ({ Component: m.SafetyRoute }))),
           screen(paths.safetyLocations.path, () => import("./routes/safety").then((m) => ({ Component: m.SafetyLocationsRoute }))),
           screen(paths.receive.path, () => import("./routes/stockroom-receive").then((m) => ({ Component: m.ReceiveRoute }))),
+          screen(paths.stockImport.path, () => import("./routes/stockroom-import").then((m) => ({ Component: m.StockImportRoute }))),
         ]),
         restricted(AREA_ROLES.admin, [
           screen(paths.admin.people.path, () => import("./routes/admin/people").then((m) => ({ Component: m.PeopleRoute }))),

@@ -28,6 +28,7 @@ export const paths = {
   container: { path: "/stockroom/containers/:id", getHref: (id: number) => `/stockroom/containers/${id}` },
   receive: { path: "/stockroom/receive", getHref: (chemicalId?: number) => (chemicalId ? `/stockroom/receive?chemicalId=${chemicalId}` : "/stockroom/receive") },
   prepareSolution: { path: "/stockroom/prepare", getHref: () => "/stockroom/prepare" },
+  stockImport: { path: "/stockroom/import", getHref: () => "/stockroom/import" },
   scan: { path: "/scan", getHref: () => "/scan" },
   scanToken: { path: "/s/:token", getHref: (token: string) => `/s/${enc(token)}` },
   recharge: { path: "/recharge", getHref: () => "/recharge" },

@@ -130,14 +130,16 @@ async function toApiError(res: Response): Promise<ApiError> {
 
 async function send(method: string, url: string, body: unknown, signal: AbortSignal | undefined): Promise<Response> {
   const headers: Record<string, string> = { accept: "application/json, application/problem+json" };
-  if (body !== undefined) headers["content-type"] = "application/json";
+  // A FormData body (a file upload) sets its own multipart boundary header.
+  const form = typeof FormData !== "undefined" && body instanceof FormData;
+  if (body !== undefined && !form) headers["content-type"] = "application/json";
   if (UNSAFE_METHODS.has(method)) headers["x-csrf-token"] = await getCsrfToken();
   try {
     return await fetch(url, {
       method,
       headers,
       credentials: "same-origin",
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : form ? (body as FormData) : JSON.stringify(body),
       signal,
     });
   } catch (err) {
@@ -170,6 +172,8 @@ async function request<T>(method: string, path: string, body?: unknown, options:
 export const api = {
   get: <T>(path: string, options?: RequestOptions) => request<T>("GET", path, undefined, options),
   post: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>("POST", path, body, options),
+  /** multipart/form-data, for file uploads. */
+  postForm: <T>(path: string, form: FormData, options?: RequestOptions) => request<T>("POST", path, form, options),
   put: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>("PUT", path, body, options),
   patch: <T>(path: string, body?: unknown, options?: RequestOptions) => request<T>("PATCH", path, body, options),
   delete: <T>(path: string, options?: RequestOptions) => request<T>("DELETE", path, undefined, options),

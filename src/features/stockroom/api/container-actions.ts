@@ -1,10 +1,10 @@
 /**
- * The container's quick actions: POST /api/containers/:id/usage, /move, /hold, /release,
+ * The container's quick actions: POST /api/containers/:id/usage, /waste, /move, /hold, /release,
  * /empty. Each answers { container }; each invalidates that container and the lists.
  */
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
-import { containerDto, type ContainerDto, type MoveInput, type UsageInput } from "@shared/schemas/stock";
+import { containerDto, type ContainerDto, type MoveInput, type UsageInput, type WasteAddInput } from "@shared/schemas/stock";
 import { api, parseResponse } from "@/lib/api-client";
 import { stockKeys } from "./keys";
 
@@ -24,6 +24,7 @@ function useContainerAction<V>(id: number, run: (v: V) => Promise<ContainerDto>)
 }
 
 export const useLogUsage = (id: number) => useContainerAction(id, (v: UsageInput) => act(id, "usage", v));
+export const useAddWaste = (id: number) => useContainerAction(id, (v: WasteAddInput) => act(id, "waste", v));
 export const useMoveContainer = (id: number) => useContainerAction(id, (v: MoveInput) => act(id, "move", v));
 export const useHoldContainer = (id: number) => useContainerAction(id, (v: { reason: string }) => act(id, "hold", v));
 export const useReleaseContainer = (id: number) => useContainerAction(id, () => act(id, "release"));

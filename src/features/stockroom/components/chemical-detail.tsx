@@ -1,5 +1,5 @@
 /** One chemical: identity, computed classes, hazard panel, its containers, its safety data sheets and (for the safety office) a hold. */
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
@@ -15,8 +15,15 @@ import { useChemical, useSheets } from "../api/get-chemical";
 import { useHoldChemical } from "../api/chemical-actions";
 import { ContainersTable } from "./containers-table";
 import { HazardPanel } from "./hazard-panel";
+import { SdsUploadForm } from "./sds-upload-form";
 
-export function ChemicalDetail({ id }: { id: number }) {
+interface ChemicalDetailProps {
+  id: number;
+  /** Passed on to the containers table (the route composes label printing). */
+  containerSelectionActions?: (ids: number[]) => ReactNode;
+}
+
+export function ChemicalDetail({ id, containerSelectionActions }: ChemicalDetailProps) {
   const q = useChemical(id);
   const sheets = useSheets(id);
   const { data: user } = useUser();
@@ -51,16 +58,17 @@ export function ChemicalDetail({ id }: { id: number }) {
           </Card>
           <Card title="Safety data sheets">
             {sheets.data?.length ? (
-              <ul className="text-sm">
+              <ul className="text-sm" data-testid="sds-list">
                 {sheets.data.map((s) => (
                   <li key={s.id}>
-                    <a href={`/api/sds/${s.id}/file`}>{s.originalName}</a> — reviewed {formatDate(s.reviewedOn)} {s.due && <strong className="text-warning-800">(due for review)</strong>}
+                    <a href={`/api/sds/${s.id}/file`}>{s.originalName}</a> — reviewed {formatDate(s.reviewedOn)}{s.supplier && `, ${s.supplier}`} {s.due && <strong className="text-warning-800">(due for review)</strong>}
                   </li>
                 ))}
               </ul>
             ) : (
               <p className="text-sm text-grey-600">No safety data sheet on file.</p>
             )}
+            {keeper && <SdsUploadForm chemicalId={c.id} />}
           </Card>
           {keeper && (
             <Card title="Hold">
@@ -81,7 +89,7 @@ export function ChemicalDetail({ id }: { id: number }) {
         <HazardPanel chemical={c} />
       </div>
       <h2 className="mb-2 mt-6 text-sm font-semibold">Containers</h2>
-      <ContainersTable chemicalId={c.id} />
+      <ContainersTable chemicalId={c.id} selectionActions={containerSelectionActions} />
     </>
   );
 }

@@ -1,6 +1,7 @@
 /**
  * Quick actions on a container at the bench: log what was used (any compatible unit; the
- * server converts through density and molar mass and refuses over-draws), move it, hold or
+ * server converts through density and molar mass and refuses over-draws) or, for a waste
+ * container, what was poured in (refused beyond its capacity), move it, hold or
  * release it (safety office, manager), mark it empty. Server errors land beside their field.
  */
 import { useState } from "react";
@@ -14,7 +15,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Input, Select } from "@/components/ui/input";
-import { useEmptyContainer, useHoldContainer, useLogUsage, useMoveContainer, useReleaseContainer } from "../api/container-actions";
+import { useAddWaste, useEmptyContainer, useHoldContainer, useLogUsage, useMoveContainer, useReleaseContainer } from "../api/container-actions";
 import { useLocations } from "../api/get-locations";
 import { formatQuantity } from "./stock-format";
 
@@ -24,8 +25,10 @@ const usageForm = z.object({
   note: z.string().max(500).optional(),
 });
 
-function UsageForm({ container }: { container: ContainerDto }) {
-  const logUsage = useLogUsage(container.id);
+function UsageForm({ container, waste = false }: { container: ContainerDto; waste?: boolean }) {
+  const used = useLogUsage(container.id);
+  const poured = useAddWaste(container.id);
+  const logUsage = waste ? poured : used;
   const [done, setDone] = useState<string | null>(null);
   const form = useForm<z.input<typeof usageForm>, unknown, z.output<typeof usageForm>>({
     resolver: zodResolver(usageForm),
@@ -36,7 +39,11 @@ function UsageForm({ container }: { container: ContainerDto }) {
     setDone(null);
     try {
       const after = await logUsage.mutateAsync(v);
-      setDone(`Logged ${v.amount} ${v.unit}; ${formatQuantity(after.quantity, after.unit)} left.`);
+      setDone(
+        waste
+          ? `Added ${v.amount} ${v.unit}; it now holds ${formatQuantity(after.quantity, after.unit)} of ${formatQuantity(after.initialQuantity, after.unit)}.`
+          : `Logged ${v.amount} ${v.unit}; ${formatQuantity(after.quantity, after.unit)} left.`,
+      );
       form.reset({ amount: "" as unknown as number, unit: v.unit, note: "" });
     } catch (e) {
       applyServerFieldErrors(e, form.setError, ["amount", "unit"]);
@@ -44,9 +51,9 @@ function UsageForm({ container }: { container: ContainerDto }) {
   });
   const general = logUsage.error && !Object.keys((logUsage.error as { fieldErrors?: object }).fieldErrors ?? {}).length ? describeError(logUsage.error) : null;
   return (
-    <form onSubmit={onSubmit} className="flex flex-col gap-2" noValidate data-testid="usage-form">
+    <form onSubmit={onSubmit} className="flex flex-col gap-2" noValidate data-testid={waste ? "waste-form" : "usage-form"}>
       <div className="flex flex-wrap items-start gap-2">
-        <Input label="Amount used" inputMode="decimal" {...form.register("amount")} error={form.formState.errors.amount?.message} fieldClassName="w-32" />
+        <Input label={waste ? "Amount poured in" : "Amount used"} inputMode="decimal" {...form.register("amount")} error={form.formState.errors.amount?.message} fieldClassName="w-32" />
         <Select label="Unit" {...form.register("unit")} error={form.formState.errors.unit?.message} fieldClassName="w-24">
           {STOCK_UNITS.map((u) => (
             <option key={u} value={u}>{u}</option>
@@ -55,7 +62,7 @@ function UsageForm({ container }: { container: ContainerDto }) {
         <Input label="Note" {...form.register("note")} fieldClassName="min-w-40 flex-1" />
       </div>
       <div className="flex items-center gap-2">
-        <Button type="submit" variant="primary" loading={form.formState.isSubmitting}>Log usage</Button>
+        <Button type="submit" variant="primary" loading={form.formState.isSubmitting}>{waste ? "Add to the waste" : "Log usage"}</Button>
         <span className="text-xs text-grey-600">Mass, volume or amount of substance; Phasebook converts to {container.unit}.</span>
       </div>
       {done && <Alert tone="ok">{done}</Alert>}
@@ -74,7 +81,8 @@ export function ContainerActions({ container }: { container: ContainerDto }) {
   const empty = useEmptyContainer(container.id);
   const [target, setTarget] = useState("");
   const [reason, setReason] = useState("");
-  const usable = (container.status === "sealed" || container.status === "in_use") && !container.chemicalHoldReason && container.kind !== "waste";
+  const open = container.status === "sealed" || container.status === "in_use";
+  const usable = open && !container.chemicalHoldReason && container.kind !== "waste";
   const error = move.error ?? hold.error ?? release.error ?? empty.error;
 
   return (
@@ -82,6 +90,8 @@ export function ContainerActions({ container }: { container: ContainerDto }) {
       <div className="flex flex-col gap-4">
         {usable ? (
           <UsageForm container={container} />
+        ) : container.kind === "waste" && open ? (
+          <UsageForm container={container} waste />
         ) : (
           <Alert tone="warning">
             {container.chemicalHoldReason

@@ -1,6 +1,7 @@
 /** One container: what and where it is, its hazard panel, quick actions, lineage, usage and movement history. */
 import { Link } from "react-router-dom";
-import { CONTAINER_KIND_LABELS } from "@shared/schemas/stock";
+import type { ReactNode } from "react";
+import { CONTAINER_KIND_LABELS, type ContainerDto } from "@shared/schemas/stock";
 import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
 import { formatDate, formatDateTime, humanize } from "@/lib/format";
@@ -23,7 +24,13 @@ function Fact({ label, children }: { label: string; children: React.ReactNode })
   );
 }
 
-export function ContainerDetail({ id }: { id: number }) {
+interface ContainerDetailProps {
+  id: number;
+  /** The label's print and re-issue tools, composed by the route for those who may print labels. */
+  labelTools?: (container: ContainerDto) => ReactNode;
+}
+
+export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
   const q = useContainer(id);
   if (q.isPending) return <LoadingLine label="Loading the container" />;
   if (q.isError) return <Alert tone="danger">{describeError(q.error)}</Alert>;
@@ -38,9 +45,22 @@ export function ContainerDetail({ id }: { id: number }) {
         <div className="flex flex-col gap-4">
           <Card title="Container">
             <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3" data-testid="container-facts">
-              <Fact label="Left">
-                <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
-              </Fact>
+              {c.kind === "waste" ? (
+                // A waste container fills rather than empties: its quantity is what has been collected, its initial quantity the capacity.
+                <Fact label="Filled">
+                  <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
+                  {c.initialQuantity > 0 && (
+                    <span data-testid="waste-fill">
+                      {" "}({Math.round((c.quantity / c.initialQuantity) * 1000) / 10} % full)
+                      {c.quantity / c.initialQuantity >= 0.8 && <strong className="block text-warning-800">Arrange collection</strong>}
+                    </span>
+                  )}
+                </Fact>
+              ) : (
+                <Fact label="Left">
+                  <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
+                </Fact>
+              )}
               <Fact label="Status"><StatusBadge status={c.status} chemicalHold={c.chemicalHoldReason} /></Fact>
               <Fact label="Location">{locationPath ?? <span className="text-warning-800">No location</span>}</Fact>
               {c.concentrationMolPerL !== null && <Fact label="Concentration">{formatConcentration(c.concentrationMolPerL)}</Fact>}
@@ -51,6 +71,14 @@ export function ContainerDetail({ id }: { id: number }) {
             </dl>
           </Card>
           <ContainerActions container={c} />
+          {labelTools && (
+            <Card title="Label" description="The QR label on this container opens this page when scanned">
+              <div className="flex flex-col gap-3" data-testid="container-label-tools">
+                <p className="text-xs text-grey-600">Label code <span className="font-mono break-all" data-testid="container-label-token">{c.labelToken}</span></p>
+                {labelTools(c)}
+              </div>
+            </Card>
+          )}
           {(parents.length > 0 || children.length > 0) && (
             <Card title="Lineage" description="Prepared solutions and the containers they were made from">
               <div data-testid="lineage">

@@ -1,8 +1,10 @@
 /**
  * The Stockroom's container table: sorting, filtering and paging happen on the server (the
  * facility may hold 20 000 containers), TanStack Table only lays out the page it gets.
+ * With `selectionActions` (the route passes label printing) a checkbox column appears; the
+ * selection survives paging and filtering, so labels for several pages go out in one PDF.
  */
-import { useEffect, useMemo, useState } from "react";
+import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react";
 import { Link } from "react-router-dom";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { CONTAINER_SORTS, CONTAINER_STATUSES, CONTAINER_STATUS_LABELS, type ContainerDto } from "@shared/schemas/stock";
@@ -41,7 +43,13 @@ const columns = [
   col.accessor("lot", { header: "Lot", cell: (c) => (c.row.original.kind === "solution" ? "–" : <span className="text-xs">{c.getValue()}</span>) }),
 ];
 
-export function ContainersTable({ chemicalId }: { chemicalId?: number }) {
+interface ContainersTableProps {
+  chemicalId?: number;
+  /** Actions on the selected containers' ids; without it the table has no selection column. */
+  selectionActions?: (ids: number[]) => ReactNode;
+}
+
+export function ContainersTable({ chemicalId, selectionActions }: ContainersTableProps) {
   const [text, setText] = useState("");
   const [q, setQ] = useState("");
   const [status, setStatus] = useState("sealed,in_use,on_hold");
@@ -49,6 +57,19 @@ export function ContainersTable({ chemicalId }: { chemicalId?: number }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "chemical", desc: false }]);
   const [page, setPage] = useState(0);
   const locations = useLocations();
+  const [selected, setSelected] = useState<ReadonlySet<number>>(new Set());
+  const toggle = useCallback(
+    (ids: number[], on: boolean) =>
+      setSelected((prev) => {
+        const next = new Set(prev);
+        for (const i of ids) {
+          if (on) next.add(i);
+          else next.delete(i);
+        }
+        return next;
+      }),
+    [],
+  );
 
   // Typing settles for a moment before the server is asked, so each key press is not a request.
   useEffect(() => {
@@ -77,9 +98,41 @@ export function ContainersTable({ chemicalId }: { chemicalId?: number }) {
   const containers = useContainers(query);
   const total = containers.data?.total ?? 0;
 
+  const pageIds = useMemo(() => (containers.data?.items ?? []).map((c) => c.id), [containers.data]);
+  const allOnPage = pageIds.length > 0 && pageIds.every((i) => selected.has(i));
+  const someOnPage = pageIds.some((i) => selected.has(i));
+  const shownColumns = useMemo(() => {
+    if (!selectionActions) return columns;
+    const select = col.display({
+      id: "select",
+      header: () => (
+        <input
+          type="checkbox"
+          aria-label="Select every container on this page"
+          checked={allOnPage}
+          ref={(el) => {
+            if (el) el.indeterminate = someOnPage && !allOnPage;
+          }}
+          onChange={(e) => toggle(pageIds, e.target.checked)}
+          data-testid="select-page"
+        />
+      ),
+      cell: (c) => (
+        <input
+          type="checkbox"
+          aria-label={`Select container #${c.row.original.id}`}
+          checked={selected.has(c.row.original.id)}
+          onChange={(e) => toggle([c.row.original.id], e.target.checked)}
+          data-testid={`select-container-${c.row.original.id}`}
+        />
+      ),
+    });
+    return [select, ...columns];
+  }, [selectionActions, allOnPage, someOnPage, pageIds, selected, toggle]);
+
   const table = useReactTable({
     data: containers.data?.items ?? [],
-    columns,
+    columns: shownColumns,
     state: { sorting },
     onSortingChange: (u) => {
       setSorting(u);
@@ -118,6 +171,13 @@ export function ContainersTable({ chemicalId }: { chemicalId?: number }) {
           Export CSV
         </a>
       </div>
+      {selectionActions && selected.size > 0 && (
+        <div className="flex flex-wrap items-end gap-2 rounded-md border border-aqueous-200 bg-aqueous-50 px-3 py-2 text-sm" data-testid="container-selection">
+          <span className="self-center">{selected.size} selected</span>
+          {selectionActions([...selected].sort((a, b) => a - b))}
+          <Button size="sm" variant="ghost" onClick={() => setSelected(new Set())}>Clear the selection</Button>
+        </div>
+      )}
       {containers.isError && <Alert tone="danger">{describeError(containers.error)}</Alert>}
       <Table caption="Containers">
         <THead>
@@ -136,8 +196,8 @@ export function ContainersTable({ chemicalId }: { chemicalId?: number }) {
           ))}
         </THead>
         <TBody>
-          {containers.isPending && <TableMessage colSpan={columns.length}>Loading containers…</TableMessage>}
-          {containers.data?.items.length === 0 && <TableMessage colSpan={columns.length}>No container matches these filters.</TableMessage>}
+          {containers.isPending && <TableMessage colSpan={shownColumns.length}>Loading containers…</TableMessage>}
+          {containers.data?.items.length === 0 && <TableMessage colSpan={shownColumns.length}>No container matches these filters.</TableMessage>}
           {table.getRowModel().rows.map((row) => (
             <Tr key={row.id} data-testid={`container-row-${row.original.id}`}>
               {row.getVisibleCells().map((cell) => (

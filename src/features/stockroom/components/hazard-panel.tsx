@@ -2,36 +2,52 @@
  * The hazard panel on chemical and container pages: GHS pictograms with their names in words,
  * the signal word, each H-statement with its text, and the cautions the brief asks for where a
  * person handles the chemical (flammable, toxic, carcinogen, fume hood, and the precedence of
- * the fire code, safety office and safety data sheet over Phasebook's figures).
+ * the fire code, safety office and safety data sheet over Phasebook's figures). The cautions
+ * themselves are computed in shared/domain/cautions.ts; HandlingCautions is the compact form
+ * for the receive and prepare forms.
  */
 import { hazardStatementText } from "@shared/domain/ghs-statements";
+import { handlingCautions, PRECEDENCE_CAUTION } from "@shared/domain/cautions";
 import { PICTOGRAM_NAMES, type GhsPictogram } from "@shared/domain/hazards";
 import type { ChemicalDto } from "@shared/schemas/stock";
 import { Card } from "@/components/ui/card";
 
-export const PRECEDENCE_CAUTION =
-  "Storage limits and handling rules are those set by the local fire code, the institution's safety office and the safety data sheet, which take precedence over anything Phasebook computes.";
-
-const INHALATION_CODES = ["H330", "H331", "H332", "H335", "H336", "H350", "H351", "H340", "H341", "H370", "H372"];
-
-/** The cautions for a chemical, as sentences; exported for the solution form. */
-export function cautionsFor(c: ChemicalDto): string[] {
-  const out: string[] = [];
-  const codes = c.hazardStatements;
-  const flammable = c.ghsFlammableCategory !== null && c.ghsFlammableCategory <= 3;
-  if (flammable) out.push(`Flammable liquid (GHS category ${c.ghsFlammableCategory}, NFPA class ${c.nfpaClass}): keep away from ignition sources and store it in a flammable-liquids cabinet.`);
-  else if (c.ghsFlammableCategory === 4) out.push("Combustible liquid (GHS category 4): keep away from heat.");
-  if (c.acuteToxic) out.push("Toxic: avoid skin contact and inhalation; wear the gloves the safety data sheet names.");
-  else if (codes.some((h) => ["H302", "H312", "H332"].includes(h))) out.push("Harmful if swallowed, in contact with skin or inhaled, as its statements say.");
-  if (c.carcinogen) out.push(codes.some((h) => h.startsWith("H350")) ? "May cause cancer (known or presumed carcinogen): keep exposure as low as possible." : "Suspected of causing cancer: keep exposure as low as possible.");
-  const volatile = c.flashPointC !== null || (c.boilingPointC !== null && c.boilingPointC < 150);
-  if (volatile || codes.some((h) => INHALATION_CODES.includes(h))) out.push("Work in a fume hood: its vapour is hazardous to breathe.");
-  if (c.halogenated) out.push("Halogenated: collect its waste in the halogenated solvent waste.");
-  return out;
+/** The hazards of one chemical where a person is about to handle it (receiving, preparing a solution): pictograms, statements, cautions. */
+export function HandlingCautions({ chemical, title }: { chemical: ChemicalDto; title?: string }) {
+  const cautions = handlingCautions(chemical);
+  if (chemical.pictograms.length === 0 && chemical.hazardStatements.length === 0 && cautions.length === 0) return null;
+  return (
+    <div role="note" className="rounded-md border border-organic-200 bg-organic-50 px-3 py-2 text-sm text-organic-900" data-testid={`cautions-${chemical.id}`}>
+      <p className="font-medium">
+        {title ?? chemical.name}
+        {chemical.signalWord && <span className="ml-2 uppercase tracking-wide">{chemical.signalWord}</span>}
+      </p>
+      {chemical.pictograms.length > 0 && (
+        <p className="text-xs">{chemical.pictograms.map((p) => `${PICTOGRAM_NAMES[p as GhsPictogram] ?? p} (${p})`).join(" · ")}</p>
+      )}
+      {chemical.hazardStatements.length > 0 && (
+        <ul className="mt-1 text-xs">
+          {chemical.hazardStatements.map((h) => (
+            <li key={h}>
+              <span className="mr-1 font-mono font-medium">{h}</span>
+              {hazardStatementText(h) ?? "(text not on file)"}
+            </li>
+          ))}
+        </ul>
+      )}
+      {cautions.length > 0 && (
+        <ul className="mt-1 list-disc pl-5">
+          {cautions.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
 }
 
 export function HazardPanel({ chemical }: { chemical: ChemicalDto }) {
-  const cautions = cautionsFor(chemical);
+  const cautions = handlingCautions(chemical);
   return (
     <Card title="Hazards" description="GHS label elements as entered for this chemical" as="h2">
       <div className="flex flex-col gap-3 text-sm" data-testid="hazard-panel">

@@ -20,7 +20,8 @@ import { Input, Select } from "@/components/ui/input";
 import { useContainers } from "../api/get-containers";
 import { useChemical } from "../api/get-chemical";
 import { planSolution, usePrepareSolution } from "../api/solutions";
-import { cautionsFor, PRECEDENCE_CAUTION } from "./hazard-panel";
+import { PRECEDENCE_CAUTION } from "@shared/domain/cautions";
+import { HandlingCautions } from "./hazard-panel";
 import { formatConcentration, formatQuantity } from "./stock-format";
 
 const num = (what: string) => z.coerce.number({ message: `Enter the ${what} as a number` });
@@ -85,7 +86,7 @@ export function PrepareSolutionForm() {
     }
   });
   const err = form.formState.errors;
-  const cautions = [...(soluteChem.data && solute ? cautionsFor(soluteChem.data) : []), ...(solventChem.data && solvent ? cautionsFor(solventChem.data) : [])];
+  const handled = [solute && soluteChem.data, solvent && solventChem.data && solventChem.data.id !== soluteChem.data?.id ? solventChem.data : null].filter((c) => !!c);
 
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-4 lg:grid-cols-2" data-testid="prepare-form">
@@ -127,13 +128,13 @@ export function PrepareSolutionForm() {
           )}
           <Input label="Mass actually weighed (mg)" inputMode="decimal" hint="Leave empty to record the planned mass." {...form.register("massWeighedMg")} error={err.massWeighedMg?.message} data-testid="mass-weighed" />
           {actual !== null && <p>That gives <strong>{formatConcentration(actual)}</strong>.</p>}
-          {cautions.length > 0 && (
-            <div role="note" className="rounded-md border border-organic-200 bg-organic-50 px-3 py-2 text-organic-900">
-              <p className="font-medium">Caution</p>
-              <ul className="list-disc pl-5">{[...new Set(cautions)].map((c) => <li key={c}>{c}</li>)}</ul>
+          {handled.length > 0 && (
+            <div className="flex flex-col gap-2" data-testid="prepare-cautions">
+              <p className="font-medium text-organic-900">Caution: what you are handling</p>
+              {handled.map((c) => <HandlingCautions key={c.id} chemical={c} />)}
             </div>
           )}
-          <p className="text-xs text-grey-600">{PRECEDENCE_CAUTION}</p>
+          <p className="text-xs text-grey-600" data-testid="precedence-caution">{PRECEDENCE_CAUTION}</p>
           {prepare.isError && !Object.keys(form.formState.errors).length && <Alert tone="danger">{describeError(prepare.error)}</Alert>}
           <div>
             <Button type="submit" variant="primary" loading={form.formState.isSubmitting} data-testid="prepare-submit">Prepare and deduct both containers</Button>

@@ -1,9 +1,13 @@
-/** Receiving a delivery: n containers of one chemical, size, lot, price and where they go, in one form. */
+/**
+ * Receiving a delivery: n containers of one chemical, size, lot, price and where they go, in one
+ * form, with the chosen chemical's hazards and cautions beside it (a person unpacks and shelves it).
+ */
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
-import { STOCK_UNITS } from "@shared/schemas/stock";
+import { PRECEDENCE_CAUTION } from "@shared/domain/cautions";
+import { CONTAINER_KIND_LABELS, STOCK_UNITS } from "@shared/schemas/stock";
 import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -12,12 +16,16 @@ import { Input, Select } from "@/components/ui/input";
 import { useChemicals } from "../api/get-chemicals";
 import { useLocations } from "../api/get-locations";
 import { useReceiveContainers } from "../api/receive-containers";
+import { HandlingCautions } from "./hazard-panel";
+
+const RECEIVED_KINDS = ["bottle", "vial", "waste"] as const;
 
 const schema = z.object({
   chemicalId: z.coerce.number({ message: "Choose the chemical" }).int().positive("Choose the chemical"),
   count: z.coerce.number({ message: "Enter a whole number" }).int("Whole containers only").min(1, "At least one").max(100, "At most 100 per delivery"),
   quantity: z.coerce.number({ message: "Enter the size as a number" }).positive("The size must be above zero"),
   unit: z.enum(STOCK_UNITS),
+  kind: z.enum(RECEIVED_KINDS),
   locationId: z.coerce.number().int().positive("Choose where they go"),
   supplier: z.string().max(200),
   lot: z.string().max(200),
@@ -35,9 +43,11 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
   const form = useForm<In, unknown, Out>({
     resolver: zodResolver(schema),
     mode: "onChange",
-    defaultValues: { chemicalId: chemicalId ?? "", count: 1, quantity: "", unit: "mL", locationId: "", supplier: "", lot: "", price: "", expiresAt: "" } as unknown as In,
+    defaultValues: { chemicalId: chemicalId ?? "", count: 1, quantity: "", unit: "mL", kind: "bottle", locationId: "", supplier: "", lot: "", price: "", expiresAt: "" } as unknown as In,
   });
   const err = form.formState.errors;
+  const chosenId = Number(useWatch({ control: form.control, name: "chemicalId" }));
+  const chosen = chemicals.data?.items.find((c) => c.id === chosenId);
   const onSubmit = form.handleSubmit(async (v) => {
     setDone(null);
     try {
@@ -46,7 +56,7 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
         count: v.count,
         quantity: v.quantity,
         unit: v.unit,
-        kind: "bottle",
+        kind: v.kind,
         locationId: v.locationId,
         supplier: v.supplier,
         lot: v.lot,
@@ -70,6 +80,11 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
           <Input label="Size of each" required inputMode="decimal" {...form.register("quantity")} error={err.quantity?.message} />
           <Select label="Unit" {...form.register("unit")} error={err.unit?.message}>{STOCK_UNITS.map((u) => <option key={u}>{u}</option>)}</Select>
         </div>
+        <Select label="Kind" {...form.register("kind")} hint="A waste container's size is its capacity; it starts empty." fieldClassName="w-60">
+          {RECEIVED_KINDS.map((k) => <option key={k} value={k}>{CONTAINER_KIND_LABELS[k]}</option>)}
+        </Select>
+        {chosen && <HandlingCautions chemical={chosen} title={`Caution: ${chosen.name}`} />}
+        <p className="text-xs text-grey-600">{PRECEDENCE_CAUTION}</p>
         <Select label="Location" required {...form.register("locationId")} error={err.locationId?.message}>
           <option value="">Choose…</option>
           {locations.data?.map((l) => <option key={l.id} value={l.id}>{l.path}</option>)}
