@@ -1,6 +1,7 @@
 /**
  * Monthly billing runs: preview (computed, nothing stored), finalise (statements and lines
- * stored once, PDFs mailed to the account owners, invoices queued for external accounts), void
+ * stored once as the month is priced, invoices queued for external accounts; the statement PDFs
+ * are mailed to the account owners by the mail-statements job), void
  * (the month may be run again); the finance journal; statement PDFs; payment-service events;
  * the spend and revenue views. Money is integer cents throughout (rounding: money.ts).
  */
@@ -16,7 +17,8 @@ import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import { audit } from "./audit.service";
 import { enqueueMail } from "./mail.service";
-import { type ComputedMonth, type ComputedStatement, computeMonth } from "./billing-compute";
+import { type ComputedMonth, type ComputedStatement, computeMonth, streamMonth } from "./billing-compute";
+import { createRunWriter } from "./billing-writer";
 import { processDueInvoices } from "./invoicing.service";
 import { renderStatementPdf } from "./statement-pdf";
 
@@ -28,7 +30,7 @@ export interface BillingDeps {
   currency: string;
   now: () => Date;
   payments?: Stripe;
-  /** Mail statement PDFs as part of finalising (default); false leaves them to the mail-statements job. */
+  /** true: mail the statement PDFs right after a run's commit. Default: the mail-statements job does. */
   mailStatements?: boolean;
 }
 
@@ -72,18 +74,6 @@ function lineToDto(l: ChargeLine): ChargeLineDto {
     amount: l.amountCents,
     at: l.at,
   };
-}
-
-const LINE_COLUMNS = [
-  "statementId", "runId", "accountId", "kind", "bookingId", "instrumentId", "usageId", "adjustmentId", "userId", "rateId",
-  "description", "quantity", "unit", "unitPriceCents", "amountCents", "at",
-] as const;
-
-/** Many lines at once through one prepared statement: a month can hold tens of thousands. */
-function insertLines(em: EntityManager, rows: unknown[][]): void {
-  const db = (em.connection.driver as unknown as { databaseConnection: { prepare(sql: string): { run(...a: unknown[]): unknown } } }).databaseConnection;
-  const stmt = db.prepare(`INSERT INTO charge_lines (${LINE_COLUMNS.map((c) => `"${c}"`).join(", ")}) VALUES (${LINE_COLUMNS.map(() => "?").join(", ")})`);
-  for (const r of rows) stmt.run(...r);
 }
 
 async function ownerEmail(em: EntityManager, account: Account): Promise<string | null> {
@@ -171,60 +161,45 @@ export function createBillingService(deps: BillingDeps) {
       if (existing) {
         throw new Conflict(`${period} already has a final billing run (#${existing.id}); void it first to run the month again.`, "period_final", { runId: existing.id });
       }
-      const month = await computeMonth(em, { period, tz });
-      if (month.missingRates.length > 0) {
-        throw new RuleBroken(
-          "Some charges have no rate in effect; add the rates and run again.",
-          month.missingRates.map((m) => ({ path: "rates", message: `No rate for ${m}` })),
-          "missing_rates",
-        );
-      }
       const nowIso = deps.now().toISOString();
+      // The run row first (its statements refer to it); its total is set once the month is priced.
       const run = await em.save(BillingRun, {
         period,
         status: "final",
         currency,
-        totalCents: month.totalCents,
+        totalCents: 0,
         createdById: actor.id,
         createdAt: nowIso,
         voidedAt: null,
         voidedById: null,
         voidReason: null,
       });
-      for (const s of month.statements) {
-        const external = s.account.kind === "external";
-        const st = await em.save(Statement, {
-          runId: run.id,
-          accountId: s.account.id,
-          period,
-          totalCents: s.totalCents,
-          currency,
-          invoiceStatus: external && s.totalCents > 0 ? "queued" : "none",
-          invoiceId: null,
-          invoiceNumber: null,
-          invoiceUrl: null,
-          invoiceAttempts: 0,
-          invoiceNextAttemptAt: external && s.totalCents > 0 ? nowIso : null,
-          invoiceLastError: null,
-          paidAt: null,
-          mailedAt: null,
-          createdAt: nowIso,
-        });
-        insertLines(
-          em,
-          s.lines.map((l) => [
-            st.id, run.id, s.account.id, l.kind, l.bookingId, l.instrumentId, l.usageId, l.adjustmentId, l.userId, l.rateId,
-            l.description, l.quantity, l.unit, l.unitPriceCents, l.amountCents, l.at,
-          ]),
+      const writer = createRunWriter(em, { id: run.id, period, currency, createdAt: nowIso });
+      const month = await streamMonth(em, { period, tz, ownRunId: run.id }, (lines) => writer.write(lines));
+      if (month.missingRates.length > 0) {
+        // Throwing rolls back the run, its statements and the lines written so far.
+        throw new RuleBroken(
+          "Some charges have no rate in effect; add the rates and run again.",
+          month.missingRates.map((m) => ({ path: "rates", message: `No rate for ${m}` })),
+          "missing_rates",
         );
       }
-      await audit(em, deps.now(), actor.id, "billing.run_finalised", "billing_run", run.id, { period, totalCents: month.totalCents, statements: month.statements.length });
+      await em.update(BillingRun, run.id, { totalCents: month.totalCents });
+      for (const s of month.accounts) {
+        const external = s.account.kind === "external";
+        await em.update(Statement, writer.statementId(s.account.id)!, {
+          totalCents: s.totalCents,
+          invoiceStatus: external && s.totalCents > 0 ? "queued" : "none",
+          invoiceNextAttemptAt: external && s.totalCents > 0 ? nowIso : null,
+        });
+      }
+      await audit(em, deps.now(), actor.id, "billing.run_finalised", "billing_run", run.id, { period, totalCents: month.totalCents, statements: month.accounts.length });
       return run.id;
     });
-    // After the commit: statements are mailed and invoiced outside the run's transaction, so a
-    // slow PDF or an unreachable payment service never undoes a finished run; the jobs finish
-    // whatever is left.
-    if (deps.mailStatements !== false) await mailDueStatements(ds, deps.now, { runId }).catch(() => undefined);
+    // After the commit: invoices go out outside the run's transaction, so an unreachable payment
+    // service never undoes a finished run (send-invoices retries). Statement PDFs are rendered
+    // and mailed by the mail-statements job, never by the run: a large month has many pages.
+    if (deps.mailStatements === true) await mailDueStatements(ds, deps.now, { runId }).catch(() => undefined);
     await processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { runId, force: true }).catch(() => undefined);
     return ds.getRepository(BillingRun).findOneByOrFail({ id: runId });
   }

@@ -14,6 +14,7 @@ import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { makeAccount, makeBooking, makeContainer, makeInstrument, makeRate, makeUsage } from "../support/billing-factories";
 import type { Account, Instrument, User } from "../../server/entities";
 import type { BillingRunDto, StatementDto } from "@shared/schemas/recharge";
+import { jobs, type JobDeps } from "../../server/jobs/scheduler";
 
 let t: TestApp;
 let manager: ApiClient;
@@ -158,7 +159,12 @@ describe("a monthly billing run, worked by hand", () => {
     expect(e.invoiceStatus).toBe("queued");
   });
 
-  it("mails each account owner a PDF statement through the outbox", async () => {
+  it("leaves the statement PDFs to the mail-statements job, which mails each account owner one through the outbox", async () => {
+    // The run itself renders no PDF: a large month would hold the manager's request for minutes.
+    expect((await t.ds.query(`SELECT COUNT(*) AS n FROM outbound_mail`))[0].n).toBe(0);
+    const job = jobs.find((j) => j.name === "mail-statements")!;
+    const deps: JobDeps = { ds: t.ds, clock: t.clock, config: t.ctx.config, mailer: { async send() {}, close() {} } };
+    expect(await job.run(deps)).toBeGreaterThanOrEqual(2);
     const rows: { to: string; subject: string; attachments: string }[] = await t.ds.query(`SELECT "to", subject, attachments FROM outbound_mail ORDER BY id`);
     const toLead = rows.find((m) => m.to === leadUser.email)!;
     expect(toLead.subject).toContain("2026-11");
