@@ -9,7 +9,18 @@ import type { DataSource, EntityManager } from "typeorm";
 import type Stripe from "stripe";
 import { centsToDecimalString } from "@shared/domain/money";
 import { monthRange } from "@shared/domain/utilisation";
-import type { BillingRunDto, BillingRunSummaryDto, ChargeLineDto, ReportQuery, StatementDto } from "@shared/schemas/recharge";
+import type {
+  BillingPreviewDto,
+  BillingRunDto,
+  BillingRunSummaryDto,
+  InvoiceStatusName,
+  MyChargesDto,
+  OutstandingDto,
+  ReportQuery,
+  RevenueReportDto,
+  SpendReportDto,
+  StatementListItemDto,
+} from "@shared/schemas/recharge";
 import type { AuthUser } from "../middleware/auth";
 import { hasRole } from "../middleware/auth";
 import { Account, AccountMember, BillingRun, ChargeLine, ProcessedEvent, Statement, User } from "../entities";
@@ -17,7 +28,8 @@ import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import { audit } from "./audit.service";
 import { enqueueMail } from "./mail.service";
-import { type ComputedMonth, type ComputedStatement, computeMonth, streamMonth } from "./billing-compute";
+import { type ComputedMonth, computeMonth, streamMonth } from "./billing-compute";
+import { presentComputedStatement, presentStatement } from "../presenters/recharge.presenter";
 import { createRunWriter } from "./billing-writer";
 import { processDueInvoices } from "./invoicing.service";
 import { renderStatementPdf } from "./statement-pdf";
@@ -32,48 +44,6 @@ export interface BillingDeps {
   payments?: Stripe;
   /** true: mail the statement PDFs right after a run's commit. Default: the mail-statements job does. */
   mailStatements?: boolean;
-}
-
-function computedToDto(s: ComputedStatement, currency: string): StatementDto {
-  return {
-    accountId: s.account.id,
-    accountCode: s.account.code,
-    accountName: s.account.name,
-    accountKind: s.account.kind,
-    total: s.totalCents,
-    currency,
-    warnings: s.warnings,
-    lines: s.lines.map((l) => ({
-      kind: l.kind,
-      description: l.description,
-      bookingId: l.bookingId,
-      instrumentId: l.instrumentId,
-      usageId: l.usageId,
-      userId: l.userId,
-      quantity: l.quantity,
-      unit: l.unit,
-      unitPriceCents: l.unitPriceCents,
-      amount: l.amountCents,
-      at: l.at,
-    })),
-  };
-}
-
-function lineToDto(l: ChargeLine): ChargeLineDto {
-  return {
-    id: l.id,
-    kind: l.kind,
-    description: l.description,
-    bookingId: l.bookingId,
-    instrumentId: l.instrumentId,
-    usageId: l.usageId,
-    userId: l.userId,
-    quantity: l.quantity,
-    unit: l.unit,
-    unitPriceCents: l.unitPriceCents,
-    amount: l.amountCents,
-    at: l.at,
-  };
 }
 
 async function ownerEmail(em: EntityManager, account: Account): Promise<string | null> {
@@ -243,24 +213,6 @@ export function createBillingService(deps: BillingDeps) {
     return { items, total };
   }
 
-  function statementDto(st: Statement, account: Account, lines: ChargeLine[], warnings: string[] = []): StatementDto {
-    return {
-      id: st.id,
-      accountId: account.id,
-      accountCode: account.code,
-      accountName: account.name,
-      accountKind: account.kind,
-      total: st.totalCents,
-      currency: st.currency,
-      lines: lines.map(lineToDto),
-      warnings,
-      invoiceStatus: st.invoiceStatus,
-      invoiceNumber: st.invoiceNumber,
-      invoiceUrl: st.invoiceUrl,
-      paidAt: st.paidAt,
-    };
-  }
-
   async function getRun(id: number): Promise<BillingRunDto> {
     const run = await ds.getRepository(BillingRun).findOneBy({ id });
     if (!run) throw new NotFound("That billing run");
@@ -278,7 +230,7 @@ export function createBillingService(deps: BillingDeps) {
       createdAt: run.createdAt,
       voidedAt: run.voidedAt,
       voidReason: run.voidReason,
-      statements: statements.map((st) => statementDto(st, accounts.get(st.accountId)!, byStatement.get(st.id) ?? [])),
+      statements: statements.map((st) => presentStatement(st, accounts.get(st.accountId)!, byStatement.get(st.id) ?? [])),
     };
   }
 
@@ -327,7 +279,7 @@ export function createBillingService(deps: BillingDeps) {
     return { pdf, filename: `statement-${st.period}-${account.code}.pdf` };
   }
 
-  async function listStatements(user: AuthUser, q: { limit: number; offset: number }): Promise<{ items: (Omit<StatementDto, "lines"> & { runId: number; period: string; runStatus: string })[]; total: number }> {
+  async function listStatements(user: AuthUser, q: { limit: number; offset: number }): Promise<{ items: StatementListItemDto[]; total: number }> {
     const manager = hasRole(user, "manager");
     const where = manager
       ? ""
@@ -346,7 +298,7 @@ export function createBillingService(deps: BillingDeps) {
         id: Number(r.id),
         runId: Number(r.runId),
         period: String(r.period),
-        runStatus: String(r.runStatus),
+        runStatus: r.runStatus as BillingRunDto["status"],
         accountId: Number(r.accountId),
         accountCode: String(r.code),
         accountName: String(r.name),
@@ -354,7 +306,7 @@ export function createBillingService(deps: BillingDeps) {
         total: Number(r.totalCents),
         currency: String(r.currency),
         warnings: [],
-        invoiceStatus: String(r.invoiceStatus),
+        invoiceStatus: r.invoiceStatus as InvoiceStatusName,
         invoiceNumber: (r.invoiceNumber as string | null) ?? null,
         invoiceUrl: (r.invoiceUrl as string | null) ?? null,
         paidAt: (r.paidAt as string | null) ?? null,
@@ -404,7 +356,7 @@ export function createBillingService(deps: BillingDeps) {
     return { sql: parts.length ? `AND ${parts.join(" AND ")}` : "", params };
   }
 
-  async function revenue(q: ReportQuery) {
+  async function revenue(q: ReportQuery): Promise<RevenueReportDto> {
     const w = rangeWhere(q);
     const from = `FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId AND r.status = 'final' JOIN accounts a ON a.id = cl.accountId`;
     const byMonth: { period: string; internal: number; external: number; total: number }[] = await ds.query(
@@ -419,9 +371,12 @@ export function createBillingService(deps: BillingDeps) {
        ${from} LEFT JOIN instruments i ON i.id = cl.instrumentId WHERE 1 = 1 ${w.sql} GROUP BY cl.instrumentId ORDER BY total DESC`,
       w.params,
     );
-    const byDepartment: { departmentId: number | null; name: string | null; total: number }[] = await ds.query(
-      `SELECT a.departmentId AS departmentId, d.name AS name, SUM(cl.amountCents) AS total
-       ${from} LEFT JOIN departments d ON d.id = a.departmentId WHERE 1 = 1 ${w.sql} GROUP BY a.departmentId ORDER BY total DESC`,
+    // External customers form one group of their own; internal accounts group by department.
+    const byDepartment: { departmentId: number | null; external: number; name: string | null; total: number }[] = await ds.query(
+      `SELECT CASE WHEN a.kind = 'external' THEN NULL ELSE a.departmentId END AS departmentId, a.kind = 'external' AS external,
+         MAX(d.name) AS name, SUM(cl.amountCents) AS total
+       ${from} LEFT JOIN departments d ON d.id = a.departmentId AND a.kind = 'internal' WHERE 1 = 1 ${w.sql}
+       GROUP BY 1, 2 ORDER BY total DESC`,
       w.params,
     );
     const n = (v: unknown) => Number(v ?? 0);
@@ -430,15 +385,20 @@ export function createBillingService(deps: BillingDeps) {
       byMonth: byMonth.map((r) => ({ period: r.period, internal: n(r.internal), external: n(r.external), total: n(r.total) })),
       byInstrument: byInstrument.map((r) => ({
         instrumentId: r.instrumentId,
-        name: r.instrumentId == null ? "Consumables, adjustments and credits" : r.name,
+        name: r.instrumentId == null ? "Consumables, adjustments and credits" : (r.name ?? `Instrument #${r.instrumentId}`),
         total: n(r.total),
         hours: Math.round((n(r.minutes) / 60) * 100) / 100,
       })),
-      byDepartment: byDepartment.map((r) => ({ departmentId: r.departmentId, name: r.departmentId == null ? "External customers" : r.name, total: n(r.total) })),
+      byDepartment: byDepartment.map((r) => ({
+        departmentId: r.departmentId,
+        external: Boolean(r.external),
+        name: r.external ? "External customers" : r.departmentId == null ? "Internal, no department" : (r.name ?? `Department #${r.departmentId}`),
+        total: n(r.total),
+      })),
     };
   }
 
-  async function spend(user: AuthUser, q: ReportQuery) {
+  async function spend(user: AuthUser, q: ReportQuery): Promise<SpendReportDto> {
     const w = rangeWhere(q);
     const manager = hasRole(user, "manager");
     const rows: Record<string, unknown>[] = await ds.query(
@@ -464,7 +424,7 @@ export function createBillingService(deps: BillingDeps) {
     };
   }
 
-  async function myCharges(user: AuthUser, q: ReportQuery & { limit: number; offset: number }) {
+  async function myCharges(user: AuthUser, q: ReportQuery & { limit: number; offset: number }): Promise<MyChargesDto> {
     const w = rangeWhere(q);
     const base = `FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId AND r.status = 'final' JOIN accounts a ON a.id = cl.accountId
       WHERE cl.userId = ? ${w.sql}`;
@@ -484,7 +444,7 @@ export function createBillingService(deps: BillingDeps) {
         period: String(r.period),
         accountCode: String(r.accountCode),
         accountName: String(r.accountName),
-        kind: String(r.kind),
+        kind: r.kind as MyChargesDto["items"][number]["kind"],
         description: String(r.description),
         quantity: Number(r.quantity),
         unit: String(r.unit),
@@ -495,7 +455,7 @@ export function createBillingService(deps: BillingDeps) {
     };
   }
 
-  async function outstanding() {
+  async function outstanding(): Promise<OutstandingDto> {
     const rows: Record<string, unknown>[] = await ds.query(
       `SELECT s.id, s.runId, s.period, s.accountId, a.code, a.name, a.billingEmail, s.totalCents, s.currency, s.invoiceStatus, s.invoiceNumber, s.invoiceUrl,
          s.invoiceLastError, s.invoiceAttempts
@@ -512,7 +472,7 @@ export function createBillingService(deps: BillingDeps) {
       billingEmail: (r.billingEmail as string | null) ?? null,
       total: Number(r.totalCents),
       currency: String(r.currency),
-      invoiceStatus: String(r.invoiceStatus),
+      invoiceStatus: r.invoiceStatus as InvoiceStatusName,
       invoiceNumber: (r.invoiceNumber as string | null) ?? null,
       invoiceUrl: (r.invoiceUrl as string | null) ?? null,
       lastError: (r.invoiceLastError as string | null) ?? null,
@@ -523,7 +483,7 @@ export function createBillingService(deps: BillingDeps) {
 
   return {
     preview,
-    previewDto: async (period: string) => {
+    previewDto: async (period: string): Promise<BillingPreviewDto> => {
       const m = await preview(period);
       return {
         period,
@@ -531,7 +491,7 @@ export function createBillingService(deps: BillingDeps) {
         total: m.totalCents,
         missingRates: m.missingRates,
         unbillableUsages: m.unbillableUsages,
-        statements: m.statements.map((s) => computedToDto(s, currency)),
+        statements: m.statements.map((s) => presentComputedStatement(s, currency)),
       };
     },
     createRun,
