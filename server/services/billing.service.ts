@@ -52,7 +52,13 @@ async function ownerEmail(em: EntityManager, account: Account): Promise<string |
   return account.billingEmail;
 }
 
-export async function pdfFor(em: EntityManager, st: Statement, account: Account, lines: { at: string; description: string; amountCents: number; userId: number | null }[]) {
+export async function pdfFor(
+  em: EntityManager,
+  st: Statement,
+  account: Account,
+  lines: { at: string; description: string; amountCents: number; userId: number | null }[],
+  tz?: string,
+) {
   const ids = [...new Set(lines.map((l) => l.userId).filter((x): x is number => x != null))];
   const names = new Map<number, string>();
   for (let i = 0; i < ids.length; i += 500) {
@@ -71,6 +77,8 @@ export async function pdfFor(em: EntityManager, st: Statement, account: Account,
         ? { none: "nothing to pay", queued: "invoice being prepared", open: "invoice open", paid: "paid", payment_failed: "payment declined; invoice open", void: "void" }[st.invoiceStatus]
         : "settled by journal",
     invoiceNumber: st.invoiceNumber,
+    paymentUrl: account.kind === "external" && st.invoiceStatus !== "paid" && st.invoiceStatus !== "void" ? st.invoiceUrl : null,
+    tz,
   });
 }
 
@@ -78,7 +86,7 @@ export async function pdfFor(em: EntityManager, st: Statement, account: Account,
  * Renders and queues the PDF of every final statement not yet mailed (one transaction each, so
  * a crash loses nothing: the next pass picks up what is left). Used after a run and by the job.
  */
-export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number } = {}): Promise<number> {
+export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number; tz?: string } = {}): Promise<number> {
   const qb = ds
     .getRepository(Statement)
     .createQueryBuilder("s")
@@ -92,7 +100,7 @@ export async function mailDueStatements(ds: DataSource, now: () => Date, opts: {
       const to = await ownerEmail(em, account);
       if (to) {
         const lines = await em.find(ChargeLine, { where: { statementId: st.id }, order: { at: "ASC", id: "ASC" } });
-        const pdf = await pdfFor(em, st, account, lines);
+        const pdf = await pdfFor(em, st, account, lines, opts.tz);
         await enqueueMail(em, now(), {
           to,
           subject: `${FACILITY_NAME} statement ${st.period} — ${account.code}`,
@@ -169,7 +177,7 @@ export function createBillingService(deps: BillingDeps) {
     // After the commit: invoices go out outside the run's transaction, so an unreachable payment
     // service never undoes a finished run (send-invoices retries). Statement PDFs are rendered
     // and mailed by the mail-statements job, never by the run: a large month has many pages.
-    if (deps.mailStatements === true) await mailDueStatements(ds, deps.now, { runId }).catch(() => undefined);
+    if (deps.mailStatements === true) await mailDueStatements(ds, deps.now, { runId, tz }).catch(() => undefined);
     await processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { runId, force: true }).catch(() => undefined);
     return ds.getRepository(BillingRun).findOneByOrFail({ id: runId });
   }
@@ -275,7 +283,7 @@ export function createBillingService(deps: BillingDeps) {
     const account = st ? await ds.getRepository(Account).findOneBy({ id: st.accountId }) : null;
     if (!st || !account || !(await canSeeAccount(user, account))) throw new NotFound("That statement");
     const lines = await ds.getRepository(ChargeLine).find({ where: { statementId }, order: { at: "ASC", id: "ASC" } });
-    const pdf = await ds.transaction((em) => pdfFor(em, st, account, lines));
+    const pdf = await ds.transaction((em) => pdfFor(em, st, account, lines, tz));
     return { pdf, filename: `statement-${st.period}-${account.code}.pdf` };
   }
 
