@@ -53,7 +53,7 @@ export const jobs: Job[] = [
     // Statement PDFs of final runs not yet in the outbox (a large month, or a crash mid-way).
     name: "mail-statements",
     everyMs: 15_000,
-    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20 }),
+    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20, tz: d.config.FACILITY_TZ }),
   },
 ];
 

@@ -26,13 +26,13 @@ import {
   rateFor,
   statementTotal,
 } from "@shared/domain/billing";
+import { sumCents } from "@shared/domain/money";
 import type { BookableHours } from "@shared/domain/booking-rules";
 import { monthRange } from "@shared/domain/utilisation";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
 import type { ChargeKind } from "../entities/charge-line.entity";
 import { Account, Rate } from "../entities";
 import { readBillingPolicy } from "./billing-policy";
-import { prepared } from "../db/prepared";
 
 export interface ComputedLine {
   kind: ChargeKind;
@@ -243,14 +243,60 @@ async function loadInstruments(em: EntityManager): Promise<Map<number, Instrumen
 
 const BOOKING_COLUMNS = `b.id, b.userId, b.accountId, b.status, b.startsAt, b.endsAt, b.checkedInAt, b.checkedOutAt, b.cancelledAt, b.lateCancel, bi.instrumentId`;
 
+/** Bookings per page: a month is read in pages so only one page of rows is ever in memory. */
+const BOOKING_PAGE = 2_000;
+/** Usages per page, for the same reason. */
+const USAGE_PAGE = 5_000;
+
 function validityWarning(account: Account, day: string): string | null {
   if (account.validFrom && day < account.validFrom) return `Charges dated ${day} fall before the account opened (${account.validFrom}).`;
   if (account.validTo && day > account.validTo) return `Charges dated ${day} fall after the account closed (${account.validTo}).`;
   return null;
 }
 
-export async function computeMonth(em: EntityManager, opts: { period: string; tz: string }): Promise<ComputedMonth> {
+/**
+ * Where priced lines go, a page at a time, in the order they are priced: the preview keeps them,
+ * the finalising run writes them to the database at once, so a month never sits in memory whole.
+ */
+export type LineSink = (lines: ComputedLine[]) => void | Promise<void>;
+
+/** One account's month as a running tally: its statement without the lines. */
+export interface AccountTally {
+  account: Account;
+  totalCents: number;
+  lineCount: number;
+  warnings: string[];
+}
+
+export interface MonthSummary {
+  period: string;
+  /** Every account with at least one line, by id. */
+  accounts: AccountTally[];
+  totalCents: number;
+  missingRates: string[];
+  unbillableUsages: number;
+}
+
+/**
+ * Prices one month and hands the lines to `sink` page by page. Running totals per account and per
+ * member (for the monthly caps) are kept as the lines pass, so nothing needs them all at once.
+ */
+export async function streamMonth(
+  em: EntityManager,
+  opts: {
+    period: string;
+    tz: string;
+    /** The run being written: its own lines are not "billed earlier". */
+    ownRunId?: number;
+    /** Rows per page (bookings, usages); small pages let a test cross page edges with a few rows. */
+    pageSize?: { bookings: number; usages: number };
+  },
+  sink: LineSink,
+): Promise<MonthSummary> {
   const { period, tz } = opts;
+  const ownRun = opts.ownRunId ?? -1;
+  const bookingPage = opts.pageSize?.bookings ?? BOOKING_PAGE;
+  const usagePage = opts.pageSize?.usages ?? USAGE_PAGE;
   const { monthStart, monthEnd } = monthRange(period, tz);
   const startMs = monthStart.getTime();
   const endMs = monthEnd.getTime();
@@ -264,31 +310,74 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
   const pricer = new MonthPricer(tz, policy, rates, instruments);
   const accounts = new Map((await em.find(Account)).map((a) => [a.id, a]));
 
-  const finalRuns: { period: string; createdAt: string }[] = await em.query(`SELECT period, createdAt FROM billing_runs WHERE status = 'final'`);
+  const finalRuns: { period: string; createdAt: string }[] = await em.query(`SELECT period, createdAt FROM billing_runs WHERE status = 'final' AND id <> ?`, [ownRun]);
   const locked = new Set(finalRuns.map((r) => r.period));
   const earliestFinal = finalRuns.reduce<string | null>((m, r) => (m === null || r.createdAt < m ? r.createdAt : m), null);
 
-  const lines: ComputedLine[] = [];
   const missing = new Set<string>();
-  const push = (accountId: number, kind: ChargeKind, l: Omit<ComputedLine, "kind" | "accountId">) => lines.push({ ...l, kind, accountId });
+  const tallies = new Map<number, { totalCents: number; lineCount: number; outsideDays: Set<string> }>();
+  /** This month's own charges (instrument time and consumables) per account|member, for the caps. */
+  const memberTotals = new Map<string, number>();
+  let page: ComputedLine[] = [];
 
-  // ---- this month's bookings
-  // Streamed row by row (the loop body makes no query): a month of rows is never held at once.
-  const bookings = prepared(
-    em.connection,
-    `SELECT ${BOOKING_COLUMNS} FROM bookings b JOIN booking_instruments bi ON bi.bookingId = b.id
-     WHERE b.startMs >= ? AND b.startMs < ? AND b.status IN ('confirmed', 'in_progress', 'completed', 'no_show', 'cancelled')
-     ORDER BY b.startMs, b.id, bi.instrumentId`,
-  ).iterate(startMs, endMs) as IterableIterator<BookingRow>;
-  for (const b of bookings) {
-    const account = accounts.get(b.accountId);
-    if (!account) continue;
-    try {
-      for (const l of pricer.price(b, account.customerClass)) push(account.id, "instrument", l);
-    } catch (e) {
-      if (!(e instanceof NoRateError)) throw e;
-      missing.add(`${instruments.get(b.instrumentId)?.name ?? `instrument ${b.instrumentId}`} (${account.customerClass}) on ${clock.date(b.startsAt)}`);
+  const push = (accountId: number, kind: ChargeKind, l: Omit<ComputedLine, "kind" | "accountId">) => {
+    const line = l as ComputedLine;
+    line.kind = kind;
+    line.accountId = accountId;
+    let tally = tallies.get(accountId);
+    if (!tally) tallies.set(accountId, (tally = { totalCents: 0, lineCount: 0, outsideDays: new Set() }));
+    tally.totalCents = sumCents([tally.totalCents, line.amountCents]);
+    tally.lineCount++;
+    if (kind === "instrument" || kind === "consumable") {
+      const account = accounts.get(accountId)!;
+      if (account.validFrom || account.validTo) {
+        const day = clock.date(line.at);
+        if (validityWarning(account, day)) tally.outsideDays.add(day);
+      }
+      if (line.userId != null) {
+        const key = `${accountId}|${line.userId}`;
+        memberTotals.set(key, (memberTotals.get(key) ?? 0) + line.amountCents);
+      }
     }
+    page.push(line);
+  };
+  const flush = async () => {
+    if (page.length === 0) return;
+    const out = page;
+    page = [];
+    await sink(out);
+  };
+
+  // ---- this month's bookings, a page of bookings (with all their instruments) at a time
+  let after: { startMs: number; id: number } | null = null;
+  for (;;) {
+    const ids: { id: number; startMs: number }[] = await em.query(
+      `SELECT id, startMs FROM bookings
+       WHERE startMs >= ? AND startMs < ? AND status IN ('confirmed', 'in_progress', 'completed', 'no_show', 'cancelled')
+         ${after ? "AND (startMs > ? OR (startMs = ? AND id > ?))" : ""}
+       ORDER BY startMs, id LIMIT ?`,
+      after ? [startMs, endMs, after.startMs, after.startMs, after.id, bookingPage] : [startMs, endMs, bookingPage],
+    );
+    if (ids.length === 0) break;
+    const rows: BookingRow[] = await em.query(
+      `SELECT ${BOOKING_COLUMNS} FROM bookings b JOIN booking_instruments bi ON bi.bookingId = b.id
+       WHERE b.id IN (${ids.map(() => "?").join(",")}) ORDER BY b.startMs, b.id, bi.instrumentId`,
+      ids.map((r) => r.id),
+    );
+    for (const b of rows) {
+      const account = accounts.get(b.accountId);
+      if (!account) continue;
+      try {
+        for (const l of pricer.price(b, account.customerClass)) push(account.id, "instrument", l);
+      } catch (e) {
+        if (!(e instanceof NoRateError)) throw e;
+        missing.add(`${instruments.get(b.instrumentId)?.name ?? `instrument ${b.instrumentId}`} (${account.customerClass}) on ${clock.date(b.startsAt)}`);
+      }
+    }
+    await flush();
+    if (ids.length < bookingPage) break;
+    const last = ids[ids.length - 1];
+    after = { startMs: Number(last.startMs), id: Number(last.id) };
   }
 
   // ---- bookings of locked months changed since they were billed
@@ -302,7 +391,8 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
     if (candidates.length > 0) {
       const billedRows: { bookingId: number; instrumentId: number; total: number }[] = await em.query(
         `SELECT cl.bookingId, cl.instrumentId, SUM(cl.amountCents) AS total FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId
-         WHERE r.status = 'final' AND cl.bookingId IS NOT NULL AND cl.kind IN ('instrument', 'correction') GROUP BY cl.bookingId, cl.instrumentId`,
+         WHERE r.status = 'final' AND r.id <> ? AND cl.bookingId IS NOT NULL AND cl.kind IN ('instrument', 'correction') GROUP BY cl.bookingId, cl.instrumentId`,
+        [ownRun],
       );
       const billed = new Map(billedRows.map((r) => [`${r.bookingId}|${r.instrumentId}`, Number(r.total)]));
       for (const b of candidates) {
@@ -333,30 +423,31 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
           at: b.startsAt,
         });
       }
+      await flush();
     }
   }
 
-  // ---- consumables: this month's usages, and late-logged usages of locked months
+  // ---- consumables: this month's usages a page at a time, then late-logged usages of locked months
   type UsageRow = { id: number; userId: number; accountId: number | null; amount: number; unit: string; costCents: number | null; at: string; chemicalName: string };
   const usageSql = `SELECT u.id, u.userId, COALESCE(u.accountId, b.accountId) AS accountId, u.amount, u.unit, u.costCents, u.at, ch.name AS chemicalName
     FROM container_usages u LEFT JOIN bookings b ON b.id = u.bookingId
     JOIN containers c ON c.id = u.containerId JOIN chemicals ch ON ch.id = c.chemicalId`;
   let unpricedUsages = 0;
-  const consume = (u: UsageRow & { late?: boolean }) => {
+  const chargeUsage = (u: UsageRow, late: boolean) => {
     const account = u.accountId == null ? undefined : accounts.get(u.accountId);
     if (!account || u.costCents == null) {
       unpricedUsages++;
       return;
     }
     const c = consumableCharge({ quantityUsed: 1, unitCostCents: u.costCents, markupPercent: policy.consumableMarkupPercent });
-    push(account.id, u.late ? "correction" : "consumable", {
+    push(account.id, late ? "correction" : "consumable", {
       bookingId: null,
       instrumentId: null,
       usageId: u.id,
       adjustmentId: null,
       userId: u.userId,
       rateId: null,
-      description: `${u.late ? `Late-logged (${clock.period(u.at)}): ` : ""}${u.chemicalName}, ${round6(u.amount)} ${u.unit}` +
+      description: `${late ? `Late-logged (${clock.period(u.at)}): ` : ""}${u.chemicalName}, ${round6(u.amount)} ${u.unit}` +
         (c.markupCents !== 0 ? ` (cost ${u.costCents} cents + ${policy.consumableMarkupPercent}% mark-up)` : " at cost"),
       quantity: u.amount,
       unit: u.unit,
@@ -365,53 +456,53 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
       at: u.at,
     });
   };
-  // This month's usages streamed (tens of thousands of rows), then late-logged ones of locked months.
-  for (const u of prepared(em.connection, `${usageSql} WHERE u.at >= ? AND u.at < ? ORDER BY u.at, u.id`).iterate(startIso, endIso) as IterableIterator<UsageRow>) {
-    consume(u);
+  let usageAfter: { at: string; id: number } | null = null;
+  for (;;) {
+    const rows: UsageRow[] = await em.query(
+      `${usageSql} WHERE u.at >= ? AND u.at < ? ${usageAfter ? "AND (u.at > ? OR (u.at = ? AND u.id > ?))" : ""} ORDER BY u.at, u.id LIMIT ?`,
+      usageAfter ? [startIso, endIso, usageAfter.at, usageAfter.at, usageAfter.id, usagePage] : [startIso, endIso, usagePage],
+    );
+    for (const u of rows) chargeUsage(u, false);
+    await flush();
+    if (rows.length < usagePage) break;
+    const last = rows[rows.length - 1];
+    usageAfter = { at: last.at, id: Number(last.id) };
   }
   if (locked.size > 0) {
     const lateRows: UsageRow[] = await em.query(
       `${usageSql} WHERE u.at < ? AND u.id NOT IN (SELECT cl.usageId FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId
-        WHERE r.status = 'final' AND cl.usageId IS NOT NULL) ORDER BY u.at, u.id`,
-      [startIso],
+        WHERE r.status = 'final' AND r.id <> ? AND cl.usageId IS NOT NULL) ORDER BY u.at, u.id`,
+      [startIso, ownRun],
     );
-    for (const u of lateRows) if (locked.has(clock.period(u.at))) consume({ ...u, late: true });
+    for (const u of lateRows) if (locked.has(clock.period(u.at))) chargeUsage(u, true);
+    await flush();
   }
 
   // ---- monthly caps: one credit per member and account over the cap (this month's own charges)
   const caps: { accountId: number; userId: number; monthlyCapCents: number }[] = await em.query(
     `SELECT accountId, userId, monthlyCapCents FROM account_members WHERE monthlyCapCents IS NOT NULL`,
   );
-  if (caps.length > 0) {
-    const byMember = new Map<string, ComputedLine[]>();
-    for (const l of lines) {
-      if ((l.kind !== "instrument" && l.kind !== "consumable") || l.userId == null) continue;
-      const key = `${l.accountId}|${l.userId}`;
-      const list = byMember.get(key);
-      if (list) list.push(l);
-      else byMember.set(key, [l]);
-    }
-    for (const cap of caps) {
-      const own = byMember.get(`${cap.accountId}|${cap.userId}`);
-      if (!own) continue;
-      const capped = applyMonthlyCap(own, cap.monthlyCapCents);
-      const credit = capped.length > own.length ? capped[capped.length - 1] : null;
-      if (credit) {
-        push(cap.accountId, "cap_credit", {
-          bookingId: null,
-          instrumentId: null,
-          usageId: null,
-          adjustmentId: null,
-          userId: cap.userId,
-          rateId: null,
-          description: `Monthly cap of ${cap.monthlyCapCents} cents for this member reached`,
-          quantity: 1,
-          unit: "each",
-          unitPriceCents: credit.amountCents,
-          amountCents: credit.amountCents,
-          at: new Date(endMs - 1).toISOString(),
-        });
-      }
+  for (const cap of caps) {
+    const own = memberTotals.get(`${cap.accountId}|${cap.userId}`);
+    if (own === undefined) continue;
+    // The member's month as one amount: the cap compares totals, so the credit is the same.
+    const capped = applyMonthlyCap([{ amountCents: own }], cap.monthlyCapCents);
+    const credit = capped.length > 1 ? capped[capped.length - 1] : null;
+    if (credit) {
+      push(cap.accountId, "cap_credit", {
+        bookingId: null,
+        instrumentId: null,
+        usageId: null,
+        adjustmentId: null,
+        userId: cap.userId,
+        rateId: null,
+        description: `Monthly cap of ${cap.monthlyCapCents} cents for this member reached`,
+        quantity: 1,
+        unit: "each",
+        unitPriceCents: credit.amountCents,
+        amountCents: credit.amountCents,
+        at: new Date(endMs - 1).toISOString(),
+      });
     }
   }
 
@@ -419,8 +510,8 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
   const adjustments: { id: number; accountId: number; amountCents: number; reason: string; period: string; createdAt: string }[] = await em.query(
     `SELECT a.id, a.accountId, a.amountCents, a.reason, a.period, a.createdAt FROM billing_adjustments a
      WHERE a.period <= ? AND a.id NOT IN (SELECT cl.adjustmentId FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId
-       WHERE r.status = 'final' AND cl.adjustmentId IS NOT NULL) ORDER BY a.id`,
-    [period],
+       WHERE r.status = 'final' AND r.id <> ? AND cl.adjustmentId IS NOT NULL) ORDER BY a.id`,
+    [period, ownRun],
   );
   for (const a of adjustments) {
     push(a.accountId, "adjustment", {
@@ -438,34 +529,46 @@ export async function computeMonth(em: EntityManager, opts: { period: string; tz
       at: a.createdAt,
     });
   }
+  await flush();
 
-  // ---- statements
-  const byAccount = new Map<number, ComputedLine[]>();
-  for (const l of lines) {
-    const list = byAccount.get(l.accountId);
-    if (list) list.push(l);
-    else byAccount.set(l.accountId, [l]);
-  }
-  const statements: ComputedStatement[] = [];
-  for (const [accountId, list] of [...byAccount.entries()].sort((a, b) => a[0] - b[0])) {
+  // ---- per-account tallies; warnings in date order, as the lines read on the statement
+  const summaries: AccountTally[] = [];
+  for (const [accountId, tally] of [...tallies.entries()].sort((a, b) => a[0] - b[0])) {
     const account = accounts.get(accountId)!;
-    list.sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
-    const warnings = new Set<string>();
-    for (const l of list) {
-      if (l.kind === "instrument" || l.kind === "consumable") {
-        const w = account.validFrom || account.validTo ? validityWarning(account, clock.date(l.at)) : null;
-        if (w) warnings.add(w);
-      }
-    }
-    if (!account.active) warnings.add("The account is no longer active.");
-    statements.push({ account, lines: list, totalCents: statementTotal(list), warnings: [...warnings] });
+    const warnings = [...tally.outsideDays].sort().map((day) => validityWarning(account, day)!);
+    if (!account.active) warnings.push("The account is no longer active.");
+    summaries.push({ account, totalCents: tally.totalCents, lineCount: tally.lineCount, warnings: [...new Set(warnings)] });
   }
   return {
     period,
-    statements,
-    totalCents: statementTotal(statements.map((s) => ({ amountCents: s.totalCents }))),
+    accounts: summaries,
+    totalCents: statementTotal(summaries.map((s) => ({ amountCents: s.totalCents }))),
     missingRates: [...missing].sort(),
     unbillableUsages: unpricedUsages,
+  };
+}
+
+/** The whole month in memory, statement by statement (the preview shows every line). */
+export async function computeMonth(em: EntityManager, opts: Parameters<typeof streamMonth>[1]): Promise<ComputedMonth> {
+  const byAccount = new Map<number, ComputedLine[]>();
+  const summary = await streamMonth(em, opts, (lines) => {
+    for (const l of lines) {
+      const list = byAccount.get(l.accountId);
+      if (list) list.push(l);
+      else byAccount.set(l.accountId, [l]);
+    }
+  });
+  const statements: ComputedStatement[] = summary.accounts.map((s) => {
+    const lines = byAccount.get(s.account.id) ?? [];
+    lines.sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
+    return { account: s.account, lines, totalCents: statementTotal(lines), warnings: s.warnings };
+  });
+  return {
+    period: summary.period,
+    statements,
+    totalCents: summary.totalCents,
+    missingRates: summary.missingRates,
+    unbillableUsages: summary.unbillableUsages,
   };
 }
 

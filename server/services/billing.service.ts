@@ -1,6 +1,7 @@
 /**
  * Monthly billing runs: preview (computed, nothing stored), finalise (statements and lines
- * stored once, PDFs mailed to the account owners, invoices queued for external accounts), void
+ * stored once as the month is priced, invoices queued for external accounts; the statement PDFs
+ * are mailed to the account owners by the mail-statements job), void
  * (the month may be run again); the finance journal; statement PDFs; payment-service events;
  * the spend and revenue views. Money is integer cents throughout (rounding: money.ts).
  */
@@ -8,7 +9,18 @@ import type { DataSource, EntityManager } from "typeorm";
 import type Stripe from "stripe";
 import { centsToDecimalString } from "@shared/domain/money";
 import { monthRange } from "@shared/domain/utilisation";
-import type { BillingRunDto, BillingRunSummaryDto, ChargeLineDto, ReportQuery, StatementDto } from "@shared/schemas/recharge";
+import type {
+  BillingPreviewDto,
+  BillingRunDto,
+  BillingRunSummaryDto,
+  InvoiceStatusName,
+  MyChargesDto,
+  OutstandingDto,
+  ReportQuery,
+  RevenueReportDto,
+  SpendReportDto,
+  StatementListItemDto,
+} from "@shared/schemas/recharge";
 import type { AuthUser } from "../middleware/auth";
 import { hasRole } from "../middleware/auth";
 import { Account, AccountMember, BillingRun, ChargeLine, ProcessedEvent, Statement, User } from "../entities";
@@ -16,7 +28,9 @@ import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import { audit } from "./audit.service";
 import { enqueueMail } from "./mail.service";
-import { type ComputedMonth, type ComputedStatement, computeMonth } from "./billing-compute";
+import { type ComputedMonth, computeMonth, streamMonth } from "./billing-compute";
+import { presentComputedStatement, presentStatement } from "../presenters/recharge.presenter";
+import { createRunWriter } from "./billing-writer";
 import { processDueInvoices } from "./invoicing.service";
 import { renderStatementPdf } from "./statement-pdf";
 
@@ -28,62 +42,8 @@ export interface BillingDeps {
   currency: string;
   now: () => Date;
   payments?: Stripe;
-  /** Mail statement PDFs as part of finalising (default); false leaves them to the mail-statements job. */
+  /** true: mail the statement PDFs right after a run's commit. Default: the mail-statements job does. */
   mailStatements?: boolean;
-}
-
-function computedToDto(s: ComputedStatement, currency: string): StatementDto {
-  return {
-    accountId: s.account.id,
-    accountCode: s.account.code,
-    accountName: s.account.name,
-    accountKind: s.account.kind,
-    total: s.totalCents,
-    currency,
-    warnings: s.warnings,
-    lines: s.lines.map((l) => ({
-      kind: l.kind,
-      description: l.description,
-      bookingId: l.bookingId,
-      instrumentId: l.instrumentId,
-      usageId: l.usageId,
-      userId: l.userId,
-      quantity: l.quantity,
-      unit: l.unit,
-      unitPriceCents: l.unitPriceCents,
-      amount: l.amountCents,
-      at: l.at,
-    })),
-  };
-}
-
-function lineToDto(l: ChargeLine): ChargeLineDto {
-  return {
-    id: l.id,
-    kind: l.kind,
-    description: l.description,
-    bookingId: l.bookingId,
-    instrumentId: l.instrumentId,
-    usageId: l.usageId,
-    userId: l.userId,
-    quantity: l.quantity,
-    unit: l.unit,
-    unitPriceCents: l.unitPriceCents,
-    amount: l.amountCents,
-    at: l.at,
-  };
-}
-
-const LINE_COLUMNS = [
-  "statementId", "runId", "accountId", "kind", "bookingId", "instrumentId", "usageId", "adjustmentId", "userId", "rateId",
-  "description", "quantity", "unit", "unitPriceCents", "amountCents", "at",
-] as const;
-
-/** Many lines at once through one prepared statement: a month can hold tens of thousands. */
-function insertLines(em: EntityManager, rows: unknown[][]): void {
-  const db = (em.connection.driver as unknown as { databaseConnection: { prepare(sql: string): { run(...a: unknown[]): unknown } } }).databaseConnection;
-  const stmt = db.prepare(`INSERT INTO charge_lines (${LINE_COLUMNS.map((c) => `"${c}"`).join(", ")}) VALUES (${LINE_COLUMNS.map(() => "?").join(", ")})`);
-  for (const r of rows) stmt.run(...r);
 }
 
 async function ownerEmail(em: EntityManager, account: Account): Promise<string | null> {
@@ -92,7 +52,13 @@ async function ownerEmail(em: EntityManager, account: Account): Promise<string |
   return account.billingEmail;
 }
 
-export async function pdfFor(em: EntityManager, st: Statement, account: Account, lines: { at: string; description: string; amountCents: number; userId: number | null }[]) {
+export async function pdfFor(
+  em: EntityManager,
+  st: Statement,
+  account: Account,
+  lines: { at: string; description: string; amountCents: number; userId: number | null }[],
+  tz?: string,
+) {
   const ids = [...new Set(lines.map((l) => l.userId).filter((x): x is number => x != null))];
   const names = new Map<number, string>();
   for (let i = 0; i < ids.length; i += 500) {
@@ -111,6 +77,8 @@ export async function pdfFor(em: EntityManager, st: Statement, account: Account,
         ? { none: "nothing to pay", queued: "invoice being prepared", open: "invoice open", paid: "paid", payment_failed: "payment declined; invoice open", void: "void" }[st.invoiceStatus]
         : "settled by journal",
     invoiceNumber: st.invoiceNumber,
+    paymentUrl: account.kind === "external" && st.invoiceStatus !== "paid" && st.invoiceStatus !== "void" ? st.invoiceUrl : null,
+    tz,
   });
 }
 
@@ -118,7 +86,7 @@ export async function pdfFor(em: EntityManager, st: Statement, account: Account,
  * Renders and queues the PDF of every final statement not yet mailed (one transaction each, so
  * a crash loses nothing: the next pass picks up what is left). Used after a run and by the job.
  */
-export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number } = {}): Promise<number> {
+export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number; tz?: string } = {}): Promise<number> {
   const qb = ds
     .getRepository(Statement)
     .createQueryBuilder("s")
@@ -132,7 +100,7 @@ export async function mailDueStatements(ds: DataSource, now: () => Date, opts: {
       const to = await ownerEmail(em, account);
       if (to) {
         const lines = await em.find(ChargeLine, { where: { statementId: st.id }, order: { at: "ASC", id: "ASC" } });
-        const pdf = await pdfFor(em, st, account, lines);
+        const pdf = await pdfFor(em, st, account, lines, opts.tz);
         await enqueueMail(em, now(), {
           to,
           subject: `${FACILITY_NAME} statement ${st.period} — ${account.code}`,
@@ -171,60 +139,45 @@ export function createBillingService(deps: BillingDeps) {
       if (existing) {
         throw new Conflict(`${period} already has a final billing run (#${existing.id}); void it first to run the month again.`, "period_final", { runId: existing.id });
       }
-      const month = await computeMonth(em, { period, tz });
-      if (month.missingRates.length > 0) {
-        throw new RuleBroken(
-          "Some charges have no rate in effect; add the rates and run again.",
-          month.missingRates.map((m) => ({ path: "rates", message: `No rate for ${m}` })),
-          "missing_rates",
-        );
-      }
       const nowIso = deps.now().toISOString();
+      // The run row first (its statements refer to it); its total is set once the month is priced.
       const run = await em.save(BillingRun, {
         period,
         status: "final",
         currency,
-        totalCents: month.totalCents,
+        totalCents: 0,
         createdById: actor.id,
         createdAt: nowIso,
         voidedAt: null,
         voidedById: null,
         voidReason: null,
       });
-      for (const s of month.statements) {
-        const external = s.account.kind === "external";
-        const st = await em.save(Statement, {
-          runId: run.id,
-          accountId: s.account.id,
-          period,
-          totalCents: s.totalCents,
-          currency,
-          invoiceStatus: external && s.totalCents > 0 ? "queued" : "none",
-          invoiceId: null,
-          invoiceNumber: null,
-          invoiceUrl: null,
-          invoiceAttempts: 0,
-          invoiceNextAttemptAt: external && s.totalCents > 0 ? nowIso : null,
-          invoiceLastError: null,
-          paidAt: null,
-          mailedAt: null,
-          createdAt: nowIso,
-        });
-        insertLines(
-          em,
-          s.lines.map((l) => [
-            st.id, run.id, s.account.id, l.kind, l.bookingId, l.instrumentId, l.usageId, l.adjustmentId, l.userId, l.rateId,
-            l.description, l.quantity, l.unit, l.unitPriceCents, l.amountCents, l.at,
-          ]),
+      const writer = createRunWriter(em, { id: run.id, period, currency, createdAt: nowIso });
+      const month = await streamMonth(em, { period, tz, ownRunId: run.id }, (lines) => writer.write(lines));
+      if (month.missingRates.length > 0) {
+        // Throwing rolls back the run, its statements and the lines written so far.
+        throw new RuleBroken(
+          "Some charges have no rate in effect; add the rates and run again.",
+          month.missingRates.map((m) => ({ path: "rates", message: `No rate for ${m}` })),
+          "missing_rates",
         );
       }
-      await audit(em, deps.now(), actor.id, "billing.run_finalised", "billing_run", run.id, { period, totalCents: month.totalCents, statements: month.statements.length });
+      await em.update(BillingRun, run.id, { totalCents: month.totalCents });
+      for (const s of month.accounts) {
+        const external = s.account.kind === "external";
+        await em.update(Statement, writer.statementId(s.account.id)!, {
+          totalCents: s.totalCents,
+          invoiceStatus: external && s.totalCents > 0 ? "queued" : "none",
+          invoiceNextAttemptAt: external && s.totalCents > 0 ? nowIso : null,
+        });
+      }
+      await audit(em, deps.now(), actor.id, "billing.run_finalised", "billing_run", run.id, { period, totalCents: month.totalCents, statements: month.accounts.length });
       return run.id;
     });
-    // After the commit: statements are mailed and invoiced outside the run's transaction, so a
-    // slow PDF or an unreachable payment service never undoes a finished run; the jobs finish
-    // whatever is left.
-    if (deps.mailStatements !== false) await mailDueStatements(ds, deps.now, { runId }).catch(() => undefined);
+    // After the commit: invoices go out outside the run's transaction, so an unreachable payment
+    // service never undoes a finished run (send-invoices retries). Statement PDFs are rendered
+    // and mailed by the mail-statements job, never by the run: a large month has many pages.
+    if (deps.mailStatements === true) await mailDueStatements(ds, deps.now, { runId, tz }).catch(() => undefined);
     await processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { runId, force: true }).catch(() => undefined);
     return ds.getRepository(BillingRun).findOneByOrFail({ id: runId });
   }
@@ -268,24 +221,6 @@ export function createBillingService(deps: BillingDeps) {
     return { items, total };
   }
 
-  function statementDto(st: Statement, account: Account, lines: ChargeLine[], warnings: string[] = []): StatementDto {
-    return {
-      id: st.id,
-      accountId: account.id,
-      accountCode: account.code,
-      accountName: account.name,
-      accountKind: account.kind,
-      total: st.totalCents,
-      currency: st.currency,
-      lines: lines.map(lineToDto),
-      warnings,
-      invoiceStatus: st.invoiceStatus,
-      invoiceNumber: st.invoiceNumber,
-      invoiceUrl: st.invoiceUrl,
-      paidAt: st.paidAt,
-    };
-  }
-
   async function getRun(id: number): Promise<BillingRunDto> {
     const run = await ds.getRepository(BillingRun).findOneBy({ id });
     if (!run) throw new NotFound("That billing run");
@@ -303,7 +238,7 @@ export function createBillingService(deps: BillingDeps) {
       createdAt: run.createdAt,
       voidedAt: run.voidedAt,
       voidReason: run.voidReason,
-      statements: statements.map((st) => statementDto(st, accounts.get(st.accountId)!, byStatement.get(st.id) ?? [])),
+      statements: statements.map((st) => presentStatement(st, accounts.get(st.accountId)!, byStatement.get(st.id) ?? [])),
     };
   }
 
@@ -348,11 +283,11 @@ export function createBillingService(deps: BillingDeps) {
     const account = st ? await ds.getRepository(Account).findOneBy({ id: st.accountId }) : null;
     if (!st || !account || !(await canSeeAccount(user, account))) throw new NotFound("That statement");
     const lines = await ds.getRepository(ChargeLine).find({ where: { statementId }, order: { at: "ASC", id: "ASC" } });
-    const pdf = await ds.transaction((em) => pdfFor(em, st, account, lines));
+    const pdf = await ds.transaction((em) => pdfFor(em, st, account, lines, tz));
     return { pdf, filename: `statement-${st.period}-${account.code}.pdf` };
   }
 
-  async function listStatements(user: AuthUser, q: { limit: number; offset: number }): Promise<{ items: (Omit<StatementDto, "lines"> & { runId: number; period: string; runStatus: string })[]; total: number }> {
+  async function listStatements(user: AuthUser, q: { limit: number; offset: number }): Promise<{ items: StatementListItemDto[]; total: number }> {
     const manager = hasRole(user, "manager");
     const where = manager
       ? ""
@@ -371,7 +306,7 @@ export function createBillingService(deps: BillingDeps) {
         id: Number(r.id),
         runId: Number(r.runId),
         period: String(r.period),
-        runStatus: String(r.runStatus),
+        runStatus: r.runStatus as BillingRunDto["status"],
         accountId: Number(r.accountId),
         accountCode: String(r.code),
         accountName: String(r.name),
@@ -379,7 +314,7 @@ export function createBillingService(deps: BillingDeps) {
         total: Number(r.totalCents),
         currency: String(r.currency),
         warnings: [],
-        invoiceStatus: String(r.invoiceStatus),
+        invoiceStatus: r.invoiceStatus as InvoiceStatusName,
         invoiceNumber: (r.invoiceNumber as string | null) ?? null,
         invoiceUrl: (r.invoiceUrl as string | null) ?? null,
         paidAt: (r.paidAt as string | null) ?? null,
@@ -429,7 +364,7 @@ export function createBillingService(deps: BillingDeps) {
     return { sql: parts.length ? `AND ${parts.join(" AND ")}` : "", params };
   }
 
-  async function revenue(q: ReportQuery) {
+  async function revenue(q: ReportQuery): Promise<RevenueReportDto> {
     const w = rangeWhere(q);
     const from = `FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId AND r.status = 'final' JOIN accounts a ON a.id = cl.accountId`;
     const byMonth: { period: string; internal: number; external: number; total: number }[] = await ds.query(
@@ -444,9 +379,12 @@ export function createBillingService(deps: BillingDeps) {
        ${from} LEFT JOIN instruments i ON i.id = cl.instrumentId WHERE 1 = 1 ${w.sql} GROUP BY cl.instrumentId ORDER BY total DESC`,
       w.params,
     );
-    const byDepartment: { departmentId: number | null; name: string | null; total: number }[] = await ds.query(
-      `SELECT a.departmentId AS departmentId, d.name AS name, SUM(cl.amountCents) AS total
-       ${from} LEFT JOIN departments d ON d.id = a.departmentId WHERE 1 = 1 ${w.sql} GROUP BY a.departmentId ORDER BY total DESC`,
+    // External customers form one group of their own; internal accounts group by department.
+    const byDepartment: { departmentId: number | null; external: number; name: string | null; total: number }[] = await ds.query(
+      `SELECT CASE WHEN a.kind = 'external' THEN NULL ELSE a.departmentId END AS departmentId, a.kind = 'external' AS external,
+         MAX(d.name) AS name, SUM(cl.amountCents) AS total
+       ${from} LEFT JOIN departments d ON d.id = a.departmentId AND a.kind = 'internal' WHERE 1 = 1 ${w.sql}
+       GROUP BY 1, 2 ORDER BY total DESC`,
       w.params,
     );
     const n = (v: unknown) => Number(v ?? 0);
@@ -455,15 +393,20 @@ export function createBillingService(deps: BillingDeps) {
       byMonth: byMonth.map((r) => ({ period: r.period, internal: n(r.internal), external: n(r.external), total: n(r.total) })),
       byInstrument: byInstrument.map((r) => ({
         instrumentId: r.instrumentId,
-        name: r.instrumentId == null ? "Consumables, adjustments and credits" : r.name,
+        name: r.instrumentId == null ? "Consumables, adjustments and credits" : (r.name ?? `Instrument #${r.instrumentId}`),
         total: n(r.total),
         hours: Math.round((n(r.minutes) / 60) * 100) / 100,
       })),
-      byDepartment: byDepartment.map((r) => ({ departmentId: r.departmentId, name: r.departmentId == null ? "External customers" : r.name, total: n(r.total) })),
+      byDepartment: byDepartment.map((r) => ({
+        departmentId: r.departmentId,
+        external: Boolean(r.external),
+        name: r.external ? "External customers" : r.departmentId == null ? "Internal, no department" : (r.name ?? `Department #${r.departmentId}`),
+        total: n(r.total),
+      })),
     };
   }
 
-  async function spend(user: AuthUser, q: ReportQuery) {
+  async function spend(user: AuthUser, q: ReportQuery): Promise<SpendReportDto> {
     const w = rangeWhere(q);
     const manager = hasRole(user, "manager");
     const rows: Record<string, unknown>[] = await ds.query(
@@ -489,7 +432,7 @@ export function createBillingService(deps: BillingDeps) {
     };
   }
 
-  async function myCharges(user: AuthUser, q: ReportQuery & { limit: number; offset: number }) {
+  async function myCharges(user: AuthUser, q: ReportQuery & { limit: number; offset: number }): Promise<MyChargesDto> {
     const w = rangeWhere(q);
     const base = `FROM charge_lines cl JOIN billing_runs r ON r.id = cl.runId AND r.status = 'final' JOIN accounts a ON a.id = cl.accountId
       WHERE cl.userId = ? ${w.sql}`;
@@ -509,7 +452,7 @@ export function createBillingService(deps: BillingDeps) {
         period: String(r.period),
         accountCode: String(r.accountCode),
         accountName: String(r.accountName),
-        kind: String(r.kind),
+        kind: r.kind as MyChargesDto["items"][number]["kind"],
         description: String(r.description),
         quantity: Number(r.quantity),
         unit: String(r.unit),
@@ -520,7 +463,7 @@ export function createBillingService(deps: BillingDeps) {
     };
   }
 
-  async function outstanding() {
+  async function outstanding(): Promise<OutstandingDto> {
     const rows: Record<string, unknown>[] = await ds.query(
       `SELECT s.id, s.runId, s.period, s.accountId, a.code, a.name, a.billingEmail, s.totalCents, s.currency, s.invoiceStatus, s.invoiceNumber, s.invoiceUrl,
          s.invoiceLastError, s.invoiceAttempts
@@ -537,7 +480,7 @@ export function createBillingService(deps: BillingDeps) {
       billingEmail: (r.billingEmail as string | null) ?? null,
       total: Number(r.totalCents),
       currency: String(r.currency),
-      invoiceStatus: String(r.invoiceStatus),
+      invoiceStatus: r.invoiceStatus as InvoiceStatusName,
       invoiceNumber: (r.invoiceNumber as string | null) ?? null,
       invoiceUrl: (r.invoiceUrl as string | null) ?? null,
       lastError: (r.invoiceLastError as string | null) ?? null,
@@ -548,7 +491,7 @@ export function createBillingService(deps: BillingDeps) {
 
   return {
     preview,
-    previewDto: async (period: string) => {
+    previewDto: async (period: string): Promise<BillingPreviewDto> => {
       const m = await preview(period);
       return {
         period,
@@ -556,7 +499,7 @@ export function createBillingService(deps: BillingDeps) {
         total: m.totalCents,
         missingRates: m.missingRates,
         unbillableUsages: m.unbillableUsages,
-        statements: m.statements.map((s) => computedToDto(s, currency)),
+        statements: m.statements.map((s) => presentComputedStatement(s, currency)),
       };
     },
     createRun,

@@ -1,10 +1,16 @@
 /**
  * A statement as a PDF (pdfkit): the facility, the account, the month, one row per line with its
- * amount, and the total, which is the sum of the rows. Sent to the account's owner and
- * downloadable from the billing run.
+ * amount, and the total, which is the sum of the rows; the currency and the rounding rule; for
+ * an external account the invoice's number, status and payment link. Mailed to the account's
+ * owner by the mail-statements job and downloadable from the billing run.
  */
 import PDFDocument from "pdfkit";
+import { DateTime } from "luxon";
 import { formatMoney } from "@shared/domain/money";
+
+/** The rounding rule of shared/domain/money.ts and billing.ts, in words, printed on every statement. */
+export const ROUNDING_RULE =
+  "Amounts are in whole cents. Each line is rounded to the cent, half away from zero; billed minutes are rounded up to the rate's increment; the total is the sum of the rounded lines.";
 
 export interface StatementPdfInput {
   facility: string;
@@ -15,6 +21,10 @@ export interface StatementPdfInput {
   totalCents: number;
   status?: string;
   invoiceNumber?: string | null;
+  /** The payment service's hosted invoice page, for external accounts. */
+  paymentUrl?: string | null;
+  /** Dates print in the facility's time zone (a session at 23:00 local belongs to that day). */
+  tz?: string;
 }
 
 export function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
@@ -23,13 +33,20 @@ export function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
   doc.on("data", (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve) => doc.on("end", () => resolve(Buffer.concat(chunks))));
   const money = (c: number) => formatMoney(c, input.currency);
+  const tz = input.tz ?? "UTC";
+  const localDate = (iso: string) => DateTime.fromISO(iso, { zone: tz }).toISODate() ?? iso.slice(0, 10);
 
   doc.font("Helvetica-Bold").fontSize(16).text(`${input.facility} — statement for ${input.period}`);
   doc.moveDown(0.4).font("Helvetica").fontSize(10);
   doc.text(`Account: ${input.account.code} — ${input.account.name}`);
   if (input.account.organisation) doc.text(`Organisation: ${input.account.organisation}`);
-  doc.text(input.account.kind === "internal" ? "Settled by internal journal transfer." : `Settled by invoice${input.invoiceNumber ? ` ${input.invoiceNumber}` : ""}.`);
+  doc.text(`Currency: ${input.currency}. Dates in ${tz}.`);
+  doc.text(input.account.kind === "internal" ? "Settled by internal journal transfer." : `Settled by invoice${input.invoiceNumber ? ` ${input.invoiceNumber}` : " (number to follow)"}.`);
   if (input.status) doc.text(`Status: ${input.status}`);
+  if (input.account.kind !== "internal" && input.paymentUrl) {
+    doc.text("Pay online: ", { continued: true }).fillColor("#1d4f73").text(input.paymentUrl, { link: input.paymentUrl, underline: true }).fillColor("black");
+  }
+  doc.moveDown(0.3).fontSize(8).text(ROUNDING_RULE);
   doc.moveDown(0.8);
 
   const left = doc.page.margins.left;
@@ -53,7 +70,7 @@ export function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
     doc.y = y + rowHeight;
   };
   row("Date", "Description", `Amount (${input.currency})`, true);
-  for (const l of input.lines) row(l.at.slice(0, 10), l.person ? `${l.description} — ${l.person}` : l.description, money(l.amountCents));
+  for (const l of input.lines) row(localDate(l.at), l.person ? `${l.description} — ${l.person}` : l.description, money(l.amountCents));
   doc.moveDown(0.5);
   row("", "Total (sum of the lines above)", money(input.totalCents), true);
   doc.end();

@@ -1,6 +1,7 @@
 /**
  * Recharge: rates, billing policy, accounts and who may charge them, billing runs, statements,
- * the rate review and the spend views. Inputs and DTOs shared by client and server.
+ * the rate review and the spend views. Inputs and DTOs shared by client and server: the server's
+ * presenters return these types, the client parses every answer with these schemas.
  */
 import { z } from "zod";
 import { isoDate, pageQuery } from "./common";
@@ -21,6 +22,11 @@ const cents = (what: string) => z.number({ message: `Give ${what} in whole cents
 const minutes = (what: string) => z.number({ message: `Give ${what} in whole minutes` }).int(`Give ${what} in whole minutes`).min(0).max(24 * 60);
 
 export const period = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Give the month as YYYY-MM");
+
+/** Answers of list routes: `{ items, total }`. */
+export const pageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int() });
+/** Whole cents in an answer. */
+const amount = z.number().int();
 
 // ---- rates ------------------------------------------------------------------------------------
 
@@ -54,21 +60,24 @@ export const rateUpdateInput = z.object({
 });
 export type RateUpdateInput = z.infer<typeof rateUpdateInput>;
 
-export interface RateDto {
-  id: number;
-  instrumentId: number | null;
-  instrumentName: string | null;
-  instrumentKind: string | null;
-  customerClass: CustomerClassName;
-  hourlyRateCents: number;
-  effectiveFrom: string;
-  effectiveTo: string | null;
-  minimumMinutes: number | null;
-  roundingIncrementMinutes: number | null;
-  afterHoursFactor: number | null;
-  note: string;
-  inEffect: boolean;
-}
+export const rateDto = z.object({
+  id: z.number().int(),
+  instrumentId: z.number().int().nullable(),
+  instrumentName: z.string().nullable(),
+  instrumentKind: instrumentKind.nullable(),
+  customerClass,
+  hourlyRateCents: amount,
+  effectiveFrom: z.string(),
+  effectiveTo: z.string().nullable(),
+  minimumMinutes: z.number().int().nullable(),
+  roundingIncrementMinutes: z.number().int().nullable(),
+  afterHoursFactor: z.number().nullable(),
+  note: z.string(),
+  inEffect: z.boolean(),
+});
+export type RateDto = z.infer<typeof rateDto>;
+export const ratePage = pageOf(rateDto);
+export const rateResponse = z.object({ rate: rateDto });
 
 export const rateListQuery = z.object({ at: isoDate.optional() });
 
@@ -83,32 +92,37 @@ export const billingPolicyInput = z.object({
   consumableMarkupPercent: z.number().min(0).max(500),
 });
 export type BillingPolicyDto = z.infer<typeof billingPolicyInput>;
+export const policyResponse = z.object({ policy: billingPolicyInput });
 
 // ---- accounts -----------------------------------------------------------------------------------
 
 export const accountListQuery = pageQuery.extend({ all: z.enum(["true", "false"]).optional() });
 
-export interface AccountDto {
-  id: number;
-  code: string;
-  name: string;
-  kind: "internal" | "external";
-  customerClass: CustomerClassName;
-  departmentId: number | null;
-  ownerId: number | null;
-  ownerName: string | null;
-  validFrom: string | null;
-  validTo: string | null;
-  organisation: string | null;
-  billingEmail: string | null;
-  active: boolean;
+export const accountKind = z.enum(["internal", "external"]);
+
+export const accountDto = z.object({
+  id: z.number().int(),
+  code: z.string(),
+  name: z.string(),
+  kind: accountKind,
+  customerClass,
+  departmentId: z.number().int().nullable(),
+  ownerId: z.number().int().nullable(),
+  ownerName: z.string().nullable(),
+  validFrom: z.string().nullable(),
+  validTo: z.string().nullable(),
+  organisation: z.string().nullable(),
+  billingEmail: z.string().nullable(),
+  active: z.boolean(),
   /** Active and within its validity dates today. */
-  chargeable: boolean;
+  chargeable: z.boolean(),
   /** The caller's monthly cap on this account, when the caller may charge it. */
-  myMonthlyCapCents?: number | null;
+  myMonthlyCapCents: amount.nullable().optional(),
   /** The caller owns it (group lead) or manages all accounts: may change who charges it. */
-  canManageMembers: boolean;
-}
+  canManageMembers: z.boolean(),
+});
+export type AccountDto = z.infer<typeof accountDto>;
+export const accountPage = pageOf(accountDto);
 
 export const accountCreateInput = z.object({
   code: z.string().trim().min(2).max(40),
@@ -138,12 +152,14 @@ export type AccountMemberUpdateInput = z.infer<typeof accountMemberUpdateInput>;
 
 export const memberParams = z.object({ id: z.coerce.number().int().positive(), userId: z.coerce.number().int().positive() });
 
-export interface AccountMemberDto {
-  userId: number;
-  name: string;
-  email: string;
-  monthlyCapCents: number | null;
-}
+export const accountMemberDto = z.object({
+  userId: z.number().int(),
+  name: z.string(),
+  email: z.string(),
+  monthlyCapCents: amount.nullable(),
+});
+export type AccountMemberDto = z.infer<typeof accountMemberDto>;
+export const accountMemberPage = pageOf(accountMemberDto);
 
 export const adjustmentInput = z.object({
   amountCents: cents("the amount").refine((v) => v !== 0, "An adjustment of zero changes nothing"),
@@ -152,15 +168,16 @@ export const adjustmentInput = z.object({
 });
 export type AdjustmentInput = z.infer<typeof adjustmentInput>;
 
-export interface AdjustmentDto {
-  id: number;
-  accountId: number;
-  amountCents: number;
-  reason: string;
-  period: string;
-  createdAt: string;
-  billedRunId: number | null;
-}
+export const adjustmentDto = z.object({
+  id: z.number().int(),
+  accountId: z.number().int(),
+  amountCents: amount,
+  reason: z.string(),
+  period: z.string(),
+  createdAt: z.string(),
+  billedRunId: z.number().int().nullable(),
+});
+export type AdjustmentDto = z.infer<typeof adjustmentDto>;
 
 // ---- billing runs and statements ----------------------------------------------------------------
 
@@ -168,69 +185,102 @@ export const runInput = z.object({ period });
 export const previewQuery = z.object({ period });
 export const voidInput = z.object({ reason: z.string().trim().min(3, "Say why the run is voided").max(500) });
 
-export interface ChargeLineDto {
-  id?: number;
-  kind: "instrument" | "consumable" | "adjustment" | "correction" | "cap_credit";
-  description: string;
-  bookingId: number | null;
-  instrumentId: number | null;
-  usageId: number | null;
-  userId: number | null;
-  quantity: number;
-  unit: string;
-  unitPriceCents: number;
+export const CHARGE_KINDS = ["instrument", "consumable", "adjustment", "correction", "cap_credit"] as const;
+export const INVOICE_STATUSES = ["none", "queued", "open", "paid", "payment_failed", "void"] as const;
+export const invoiceStatus = z.enum(INVOICE_STATUSES);
+export type InvoiceStatusName = z.infer<typeof invoiceStatus>;
+export const runStatus = z.enum(["final", "voided"]);
+
+export const chargeLineDto = z.object({
+  /** Absent on a preview's lines, which are not stored. */
+  id: z.number().int().optional(),
+  kind: z.enum(CHARGE_KINDS),
+  description: z.string(),
+  bookingId: z.number().int().nullable(),
+  instrumentId: z.number().int().nullable(),
+  usageId: z.number().int().nullable(),
+  userId: z.number().int().nullable(),
+  quantity: z.number(),
+  unit: z.string(),
+  unitPriceCents: amount,
   /** Integer cents. */
-  amount: number;
-  at: string;
-}
+  amount,
+  at: z.string(),
+});
+export type ChargeLineDto = z.infer<typeof chargeLineDto>;
 
-export interface StatementDto {
-  id?: number;
-  accountId: number;
-  accountCode: string;
-  accountName: string;
-  accountKind: "internal" | "external";
+export const statementDto = z.object({
+  /** Absent on a preview's statements, which are not stored. */
+  id: z.number().int().optional(),
+  accountId: z.number().int(),
+  accountCode: z.string(),
+  accountName: z.string(),
+  accountKind: accountKind,
   /** Integer cents: the sum of the lines' amounts. */
-  total: number;
-  currency: string;
-  lines: ChargeLineDto[];
-  warnings: string[];
-  invoiceStatus?: string;
-  invoiceNumber?: string | null;
-  invoiceUrl?: string | null;
-  paidAt?: string | null;
-}
+  total: amount,
+  currency: z.string(),
+  lines: z.array(chargeLineDto),
+  warnings: z.array(z.string()),
+  invoiceStatus: invoiceStatus.optional(),
+  invoiceNumber: z.string().nullable().optional(),
+  invoiceUrl: z.string().nullable().optional(),
+  paidAt: z.string().nullable().optional(),
+});
+export type StatementDto = z.infer<typeof statementDto>;
 
-export interface BillingRunDto {
-  id: number;
-  period: string;
-  status: "final" | "voided";
-  currency: string;
-  total: number;
-  createdAt: string;
-  voidedAt: string | null;
-  voidReason: string | null;
-  statements: StatementDto[];
-}
+export const billingRunDto = z.object({
+  id: z.number().int(),
+  period: z.string(),
+  status: runStatus,
+  currency: z.string(),
+  total: amount,
+  createdAt: z.string(),
+  voidedAt: z.string().nullable(),
+  voidReason: z.string().nullable(),
+  statements: z.array(statementDto),
+});
+export type BillingRunDto = z.infer<typeof billingRunDto>;
+export const billingRunResponse = z.object({ run: billingRunDto });
 
-export interface BillingRunSummaryDto {
-  id: number;
-  period: string;
-  status: "final" | "voided";
-  currency: string;
-  total: number;
-  createdAt: string;
-  voidedAt: string | null;
-  statementCount: number;
-  invoices: Record<string, number>;
-}
+export const billingRunSummaryDto = z.object({
+  id: z.number().int(),
+  period: z.string(),
+  status: runStatus,
+  currency: z.string(),
+  total: amount,
+  createdAt: z.string(),
+  voidedAt: z.string().nullable(),
+  statementCount: z.number().int(),
+  /** How many statements of the run are in each invoice status (internal ones are left out). */
+  invoices: z.record(z.string(), z.number().int()),
+});
+export type BillingRunSummaryDto = z.infer<typeof billingRunSummaryDto>;
+export const billingRunPage = pageOf(billingRunSummaryDto);
 
-export interface BillingPreviewDto {
-  period: string;
-  currency: string;
-  total: number;
-  statements: StatementDto[];
-}
+export const billingPreviewDto = z.object({
+  period: z.string(),
+  currency: z.string(),
+  total: amount,
+  /** Charges with no rate in effect: the month cannot be finalised until they have one. */
+  missingRates: z.array(z.string()),
+  /** Usages with no account or no unit cost: shown, not billed. */
+  unbillableUsages: z.number().int(),
+  statements: z.array(statementDto),
+});
+export type BillingPreviewDto = z.infer<typeof billingPreviewDto>;
+export const billingPreviewResponse = z.object({ preview: billingPreviewDto });
+
+/** A statement in the list of statements the caller may see (without its lines). */
+export const statementListItemDto = statementDto.omit({ lines: true }).extend({
+  id: z.number().int(),
+  runId: z.number().int(),
+  period: z.string(),
+  runStatus,
+});
+export type StatementListItemDto = z.infer<typeof statementListItemDto>;
+export const statementPage = pageOf(statementListItemDto);
+
+export const invoiceRetryResult = z.object({ done: z.number().int(), failed: z.number().int() });
 
 // ---- rate review ------------------------------------------------------------------------------
 
@@ -253,15 +303,17 @@ export const rateReviewInput = z.object({
 });
 export type RateReviewInput = z.infer<typeof rateReviewInput>;
 
-export interface RateReviewRowDto {
-  instrumentId: number;
-  instrumentName: string;
-  totalCostCents: number;
-  recoverableCents: number;
-  breakEvenCents: number;
-  proposed: Record<CustomerClassName, number>;
-  current: Record<CustomerClassName, number | null>;
-}
+export const rateReviewRowDto = z.object({
+  instrumentId: z.number().int(),
+  instrumentName: z.string(),
+  totalCostCents: amount,
+  recoverableCents: amount,
+  breakEvenCents: amount,
+  proposed: z.record(customerClass, amount),
+  current: z.record(customerClass, amount.nullable()),
+});
+export type RateReviewRowDto = z.infer<typeof rateReviewRowDto>;
+export const rateReviewResponse = z.object({ items: z.array(rateReviewRowDto) });
 
 export const rateApplyInput = z.object({
   effectiveFrom: isoDate,
@@ -276,3 +328,65 @@ export type RateApplyInput = z.infer<typeof rateApplyInput>;
 
 export const reportQuery = z.object({ from: period.optional(), to: period.optional() });
 export type ReportQuery = z.infer<typeof reportQuery>;
+
+export const revenueReportDto = z.object({
+  currency: z.string(),
+  byMonth: z.array(z.object({ period: z.string(), internal: amount, external: amount, total: amount })),
+  /** instrumentId null: consumables, adjustments and credits, which belong to no instrument. */
+  byInstrument: z.array(z.object({ instrumentId: z.number().int().nullable(), name: z.string(), total: amount, hours: z.number() })),
+  /** External customers are one row (external: true); internal accounts group by department (null: none). */
+  byDepartment: z.array(z.object({ departmentId: z.number().int().nullable(), external: z.boolean(), name: z.string(), total: amount })),
+});
+export type RevenueReportDto = z.infer<typeof revenueReportDto>;
+
+export const spendRowDto = z.object({
+  period: z.string(),
+  accountId: z.number().int(),
+  accountCode: z.string(),
+  accountName: z.string(),
+  /** null: account-level lines (credits, adjustments) that belong to no member. */
+  userId: z.number().int().nullable(),
+  userName: z.string(),
+  total: amount,
+});
+export type SpendRowDto = z.infer<typeof spendRowDto>;
+export const spendReportDto = z.object({ currency: z.string(), items: z.array(spendRowDto) });
+export type SpendReportDto = z.infer<typeof spendReportDto>;
+
+export const myChargeDto = z.object({
+  id: z.number().int(),
+  period: z.string(),
+  accountCode: z.string(),
+  accountName: z.string(),
+  kind: z.enum(CHARGE_KINDS),
+  description: z.string(),
+  quantity: z.number(),
+  unit: z.string(),
+  amount,
+  at: z.string(),
+  bookingId: z.number().int().nullable(),
+});
+export type MyChargeDto = z.infer<typeof myChargeDto>;
+/** A page of the caller's lines; `sum` is the amount of every matching line, not only this page's. */
+export const myChargesDto = pageOf(myChargeDto).extend({ currency: z.string(), sum: amount });
+export type MyChargesDto = z.infer<typeof myChargesDto>;
+
+export const outstandingRowDto = z.object({
+  statementId: z.number().int(),
+  runId: z.number().int(),
+  period: z.string(),
+  accountId: z.number().int(),
+  accountCode: z.string(),
+  accountName: z.string(),
+  billingEmail: z.string().nullable(),
+  total: amount,
+  currency: z.string(),
+  invoiceStatus,
+  invoiceNumber: z.string().nullable(),
+  invoiceUrl: z.string().nullable(),
+  lastError: z.string().nullable(),
+  attempts: z.number().int(),
+});
+export type OutstandingRowDto = z.infer<typeof outstandingRowDto>;
+export const outstandingDto = pageOf(outstandingRowDto).extend({ currency: z.string(), sum: amount });
+export type OutstandingDto = z.infer<typeof outstandingDto>;

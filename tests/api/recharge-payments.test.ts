@@ -14,6 +14,7 @@ import { createPaymentsClient } from "../../server/integrations/payments";
 import { processDueInvoices } from "../../server/services/invoicing.service";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
+import { readPdf } from "../support/pdf-text";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { makeAccount, makeBooking, makeInstrument, makeRate } from "../support/billing-factories";
 import type { Account } from "../../server/entities";
@@ -73,6 +74,23 @@ describe("external invoices", () => {
     const row = await statementRow(customer.id);
     const inv = await sdk.invoices.retrieve(row.invoiceId!);
     expect(inv).toMatchObject({ status: "open", amount_due: 18000, currency: "cad" });
+  });
+
+  it("prints the invoice's number, its status and a link to pay it on the external statement's PDF", async () => {
+    const row = await statementRow(customer.id);
+    const [{ invoiceNumber }] = await t.ds.query(`SELECT invoiceNumber FROM statements WHERE id = ?`, [row.id]);
+    expect(invoiceNumber).toBeTruthy();
+    const res = await fetch(`${t.url}/api/billing/statements/${row.id}/statement.pdf`, { headers: { cookie: manager.cookieHeader } });
+    expect(res.status).toBe(200);
+    const pdf = await readPdf(new Uint8Array(await res.arrayBuffer()));
+    const flat = pdf.text.replace(/\s+/g, " ");
+    expect(flat).toContain("Organisation: Harbour Analytical Ltd");
+    expect(flat).toContain(`Settled by invoice ${invoiceNumber}.`);
+    expect(flat).toContain("Status: invoice open");
+    expect(flat).toContain(`Pay online: ${row.invoiceUrl}`);
+    expect(pdf.links).toContain(row.invoiceUrl);
+    // 90 booked minutes × 12000/60 = 18000 cents = $180.00, the only line and the total.
+    expect(pdf.text.split("\n").filter((r) => r === "$180.00")).toHaveLength(2);
   });
 
   it("marks the statement paid when the signed invoice.paid event arrives, and a replay changes nothing", async () => {

@@ -14,6 +14,9 @@ import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { makeAccount, makeBooking, makeContainer, makeInstrument, makeRate, makeUsage } from "../support/billing-factories";
 import type { Account, Instrument, User } from "../../server/entities";
 import type { BillingRunDto, StatementDto } from "@shared/schemas/recharge";
+import { jobs, type JobDeps } from "../../server/jobs/scheduler";
+import { ROUNDING_RULE } from "../../server/services/statement-pdf";
+import { readPdf } from "../support/pdf-text";
 
 let t: TestApp;
 let manager: ApiClient;
@@ -158,7 +161,12 @@ describe("a monthly billing run, worked by hand", () => {
     expect(e.invoiceStatus).toBe("queued");
   });
 
-  it("mails each account owner a PDF statement through the outbox", async () => {
+  it("leaves the statement PDFs to the mail-statements job, which mails each account owner one through the outbox", async () => {
+    // The run itself renders no PDF: a large month would hold the manager's request for minutes.
+    expect((await t.ds.query(`SELECT COUNT(*) AS n FROM outbound_mail`))[0].n).toBe(0);
+    const job = jobs.find((j) => j.name === "mail-statements")!;
+    const deps: JobDeps = { ds: t.ds, clock: t.clock, config: t.ctx.config, mailer: { async send() {}, close() {} } };
+    expect(await job.run(deps)).toBeGreaterThanOrEqual(2);
     const rows: { to: string; subject: string; attachments: string }[] = await t.ds.query(`SELECT "to", subject, attachments FROM outbound_mail ORDER BY id`);
     const toLead = rows.find((m) => m.to === leadUser.email)!;
     expect(toLead.subject).toContain("2026-11");
@@ -239,6 +247,28 @@ describe("a monthly billing run, worked by hand", () => {
     expect(pdf.status).toBe(200);
     expect(pdf.headers.get("content-type")).toBe("application/pdf");
     expect((await member.get(`/api/billing/statements/${st.id}/statement.pdf`)).status).toBe(404);
+  });
+
+  it("prints the facility, account, month, every line, the total, the currency and the rounding rule on the statement PDF", async () => {
+    const st = statementOf(run, internal.id);
+    const res = await fetch(`${t.url}/api/billing/statements/${st.id}/statement.pdf`, { headers: { cookie: lead.cookieHeader } });
+    expect(res.status).toBe(200);
+    const pdf = await readPdf(new Uint8Array(await res.arrayBuffer()));
+    const flat = pdf.text.replace(/\s+/g, " ");
+    expect(flat).toContain("Liquid Interfaces Core — statement for 2026-11");
+    expect(flat).toContain(`Account: CHEM-0001 — ${internal.name}`);
+    expect(flat).toContain("Currency: CAD. Dates in America/Halifax.");
+    expect(flat).toContain("Settled by internal journal transfer.");
+    expect(flat).toContain(ROUNDING_RULE);
+    // Every line's amount in statement order, then the total: 46357 cents = $463.57.
+    const rows = pdf.text.split("\n");
+    const amounts = rows.filter((r) => /^-?\$[\d,]+\.\d\d$/.test(r));
+    expect(amounts).toEqual(["$160.00", "$50.00", "$20.00", "$40.00", "$30.00", "$13.57", "$60.00", "$90.00", "$463.57"]);
+    expect(rows[rows.indexOf("$463.57") - 1]).toBe("Total (sum of the lines above)");
+    // The first half of the rate-change session began at 23:00 on 14 November, Halifax time
+    // (03:00Z on the 15th): the statement dates it by the facility's calendar.
+    expect(rows[rows.indexOf("$60.00") - 2]).toBe("2026-11-14");
+    expect(rows[rows.indexOf("$60.00") - 1]).toContain("PS-2");
   });
 
   it("puts a manager's credit on the next open month's statement with its reason", async () => {

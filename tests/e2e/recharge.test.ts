@@ -6,7 +6,7 @@
 import fs from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DateTime } from "luxon";
-import type { Browser } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
 import { launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
 
 let server: RunningServer;
@@ -57,5 +57,39 @@ describe("a month of recharge billing in the browser", () => {
     } finally {
       await context.close();
     }
+  });
+
+  it("shows the manager revenue and payments outstanding, the group lead their accounts' spend, and a member their own charges", async () => {
+    // Runs after the test above: last month is final.
+    const period = DateTime.now().setZone("America/Halifax").minus({ months: 1 }).toFormat("yyyy-MM");
+    const as = async (email: string, look: (page: Page) => Promise<void>) => {
+      const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+      const page = await context.newPage();
+      try {
+        await signIn(page, server.url, email);
+        await look(page);
+      } finally {
+        await context.close();
+      }
+    };
+    await as("manager@kestrelbay.example", async (page) => {
+      await page.click('[data-testid="nav-recharge"]');
+      await page.click('[data-testid="recharge-tab-spend"]');
+      await expect.poll(() => page.getByRole("table", { name: "Revenue by month" }).getByRole("row", { name: new RegExp(period) }).count(), { timeout: 15_000 }).toBe(1);
+      await expect.poll(() => page.getByRole("table", { name: "Revenue by department" }).getByRole("row", { name: /External customers/ }).count()).toBe(1);
+      await expect.poll(() => page.getByRole("table", { name: "Invoices not yet paid" }).isVisible()).toBe(true);
+    });
+    await as("lead@kestrelbay.example", async (page) => {
+      await page.click('[data-testid="nav-recharge"]');
+      await page.click('[data-testid="recharge-tab-spend"]');
+      await expect.poll(() => page.getByRole("table", { name: "Spend per account and member" }).getByRole("row", { name: new RegExp(period) }).count(), { timeout: 15_000 }).toBeGreaterThan(0);
+      // Revenue is the manager's view alone.
+      expect(await page.getByRole("table", { name: "Revenue by month" }).count()).toBe(0);
+    });
+    await as("member@kestrelbay.example", async (page) => {
+      expect(await page.locator('[data-testid="nav-recharge"]').count()).toBe(0);
+      await page.click('[data-testid="nav-charges"]');
+      await expect.poll(() => page.getByRole("table", { name: "My charges" }).getByRole("row", { name: new RegExp(period) }).count(), { timeout: 15_000 }).toBeGreaterThan(0);
+    });
   });
 });

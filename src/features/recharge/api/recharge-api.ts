@@ -1,22 +1,33 @@
 /**
  * Recharge requests: rates, policy, billing runs, statements, accounts and who may charge them,
- * the rate review and the spend views. Types come from shared/schemas/recharge.
+ * the rate review and the spend views. Every answer is parsed with its schema from
+ * shared/schemas/recharge, so a server that drifts from the contract fails here, loudly.
  */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type {
-  AccountDto,
-  AccountMemberDto,
-  BillingPolicyDto,
-  BillingPreviewDto,
-  BillingRunDto,
-  BillingRunSummaryDto,
-  RateDto,
-  RateInput,
-  RateReviewInput,
-  RateReviewRowDto,
-  RateApplyInput,
+import type { z } from "zod";
+import {
+  accountMemberPage,
+  accountPage,
+  billingPreviewResponse,
+  billingRunPage,
+  billingRunResponse,
+  invoiceRetryResult,
+  myChargesDto,
+  outstandingDto,
+  policyResponse,
+  ratePage,
+  rateResponse,
+  rateReviewResponse,
+  revenueReportDto,
+  spendReportDto,
+  type BillingPolicyDto,
+  type RateApplyInput,
+  type RateInput,
+  type RateReviewInput,
 } from "@shared/schemas/recharge";
-import { api } from "@/lib/api-client";
+import { api, parseResponse, type RequestOptions } from "@/lib/api-client";
+
+export type { MyChargeDto as MyChargeRow, OutstandingRowDto as OutstandingRow, RevenueReportDto as RevenueReport, SpendRowDto as SpendRow } from "@shared/schemas/recharge";
 
 export const rechargeKeys = {
   all: ["recharge"] as const,
@@ -33,95 +44,44 @@ export const rechargeKeys = {
   myCharges: () => ["recharge", "my-charges"] as const,
 };
 
-export interface Page<T> {
-  items: T[];
-  total: number;
+/** GET a route and parse its answer with the shared schema. */
+async function getParsed<S extends z.ZodType>(schema: S, path: string, options?: RequestOptions): Promise<z.output<S>> {
+  return parseResponse(schema, await api.get<unknown>(path, options), `GET /api${path}`);
 }
 
-export const useRates = () => useQuery({ queryKey: rechargeKeys.rates(), queryFn: ({ signal }) => api.get<Page<RateDto>>("/rates", { signal }) });
-export const usePolicy = () =>
-  useQuery({ queryKey: rechargeKeys.policy(), queryFn: ({ signal }) => api.get<{ policy: BillingPolicyDto }>("/billing/policy", { signal }) });
-export const useRuns = () =>
-  useQuery({ queryKey: rechargeKeys.runs(), queryFn: ({ signal }) => api.get<Page<BillingRunSummaryDto>>("/billing/runs", { query: { limit: 100 }, signal }) });
+export const getRates = (signal?: AbortSignal) => getParsed(ratePage, "/rates", { signal });
+export const getPolicy = (signal?: AbortSignal) => getParsed(policyResponse, "/billing/policy", { signal });
+export const getRuns = (signal?: AbortSignal) => getParsed(billingRunPage, "/billing/runs", { query: { limit: 100 }, signal });
+export const getRun = (id: number, signal?: AbortSignal) => getParsed(billingRunResponse, `/billing/runs/${id}`, { signal });
+export const getPreview = (period: string, signal?: AbortSignal) => getParsed(billingPreviewResponse, "/billing/preview", { query: { period }, signal });
+export const getAccounts = (signal?: AbortSignal) => getParsed(accountPage, "/accounts", { query: { limit: 500 }, signal });
+export const getMembers = (id: number, signal?: AbortSignal) => getParsed(accountMemberPage, `/accounts/${id}/members`, { signal });
+export const getSpend = (signal?: AbortSignal) => getParsed(spendReportDto, "/billing/spend", { signal });
+export const getRevenue = (signal?: AbortSignal) => getParsed(revenueReportDto, "/billing/revenue", { signal });
+export const getOutstanding = (signal?: AbortSignal) => getParsed(outstandingDto, "/billing/outstanding", { signal });
+export const getMyCharges = (signal?: AbortSignal) => getParsed(myChargesDto, "/billing/my-charges", { query: { limit: 200 }, signal });
+
+export const useRates = () => useQuery({ queryKey: rechargeKeys.rates(), queryFn: ({ signal }) => getRates(signal) });
+export const usePolicy = () => useQuery({ queryKey: rechargeKeys.policy(), queryFn: ({ signal }) => getPolicy(signal) });
+export const useRuns = () => useQuery({ queryKey: rechargeKeys.runs(), queryFn: ({ signal }) => getRuns(signal) });
 export const useRun = (id: number | null) =>
   useQuery({
     queryKey: rechargeKeys.run(id ?? 0),
     enabled: id != null,
-    queryFn: ({ signal }) => api.get<{ run: BillingRunDto }>(`/billing/runs/${id}`, { signal }),
+    queryFn: ({ signal }) => getRun(id!, signal),
     // Invoice status follows the payment service's events; look again now and then.
     refetchInterval: 5_000,
   });
 export const usePreview = (period: string | null) =>
-  useQuery({
-    queryKey: rechargeKeys.preview(period ?? ""),
-    enabled: period != null,
-    retry: false,
-    queryFn: ({ signal }) =>
-      api.get<{ preview: BillingPreviewDto & { missingRates: string[]; unbillableUsages: number } }>("/billing/preview", { query: { period }, signal }),
-  });
-export const useAccounts = () =>
-  useQuery({ queryKey: rechargeKeys.accounts(), queryFn: ({ signal }) => api.get<Page<AccountDto>>("/accounts", { query: { limit: 500 }, signal }) });
+  useQuery({ queryKey: rechargeKeys.preview(period ?? ""), enabled: period != null, retry: false, queryFn: ({ signal }) => getPreview(period!, signal) });
+export const useAccounts = () => useQuery({ queryKey: rechargeKeys.accounts(), queryFn: ({ signal }) => getAccounts(signal) });
 export const useMembers = (id: number | null) =>
-  useQuery({
-    queryKey: rechargeKeys.members(id ?? 0),
-    enabled: id != null,
-    queryFn: ({ signal }) => api.get<Page<AccountMemberDto>>(`/accounts/${id}/members`, { signal }),
-  });
-
-export interface SpendRow {
-  period: string;
-  accountId: number;
-  accountCode: string;
-  accountName: string;
-  userId: number | null;
-  userName: string;
-  total: number;
-}
-export const useSpend = () =>
-  useQuery({ queryKey: rechargeKeys.spend(), queryFn: ({ signal }) => api.get<{ currency: string; items: SpendRow[] }>("/billing/spend", { signal }) });
-
-export interface RevenueReport {
-  currency: string;
-  byMonth: { period: string; internal: number; external: number; total: number }[];
-  byInstrument: { instrumentId: number | null; name: string; total: number; hours: number }[];
-  byDepartment: { departmentId: number | null; name: string; total: number }[];
-}
-export const useRevenue = (enabled: boolean) =>
-  useQuery({ queryKey: rechargeKeys.revenue(), enabled, queryFn: ({ signal }) => api.get<RevenueReport>("/billing/revenue", { signal }) });
-
-export interface OutstandingRow {
-  statementId: number;
-  period: string;
-  accountCode: string;
-  accountName: string;
-  total: number;
-  currency: string;
-  invoiceStatus: string;
-  invoiceNumber: string | null;
-  invoiceUrl: string | null;
-  lastError: string | null;
-}
+  useQuery({ queryKey: rechargeKeys.members(id ?? 0), enabled: id != null, queryFn: ({ signal }) => getMembers(id!, signal) });
+export const useSpend = () => useQuery({ queryKey: rechargeKeys.spend(), queryFn: ({ signal }) => getSpend(signal) });
+export const useRevenue = (enabled: boolean) => useQuery({ queryKey: rechargeKeys.revenue(), enabled, queryFn: ({ signal }) => getRevenue(signal) });
 export const useOutstanding = (enabled: boolean) =>
-  useQuery({
-    queryKey: rechargeKeys.outstanding(),
-    enabled,
-    queryFn: ({ signal }) => api.get<{ items: OutstandingRow[]; sum: number; currency: string }>("/billing/outstanding", { signal }),
-  });
-
-export interface MyChargeRow {
-  id: number;
-  period: string;
-  accountCode: string;
-  kind: string;
-  description: string;
-  amount: number;
-  at: string;
-}
-export const useMyCharges = () =>
-  useQuery({
-    queryKey: rechargeKeys.myCharges(),
-    queryFn: ({ signal }) => api.get<{ items: MyChargeRow[]; total: number; sum: number; currency: string }>("/billing/my-charges", { query: { limit: 200 }, signal }),
-  });
+  useQuery({ queryKey: rechargeKeys.outstanding(), enabled, queryFn: ({ signal }) => getOutstanding(signal) });
+export const useMyCharges = () => useQuery({ queryKey: rechargeKeys.myCharges(), queryFn: ({ signal }) => getMyCharges(signal) });
 
 function useInvalidate() {
   const qc = useQueryClient();
@@ -130,7 +90,10 @@ function useInvalidate() {
 
 export function useCreateRate() {
   const done = useInvalidate();
-  return useMutation({ mutationFn: (input: RateInput) => api.post<{ rate: RateDto }>("/rates", input), onSuccess: done });
+  return useMutation({
+    mutationFn: async (input: RateInput) => parseResponse(rateResponse, await api.post<unknown>("/rates", input), "POST /api/rates"),
+    onSuccess: done,
+  });
 }
 export function useEndRate() {
   const done = useInvalidate();
@@ -142,7 +105,10 @@ export function useSavePolicy() {
 }
 export function useFinaliseRun() {
   const done = useInvalidate();
-  return useMutation({ mutationFn: (period: string) => api.post<{ run: BillingRunDto }>("/billing/runs", { period }), onSuccess: done });
+  return useMutation({
+    mutationFn: async (period: string) => parseResponse(billingRunResponse, await api.post<unknown>("/billing/runs", { period }), "POST /api/billing/runs"),
+    onSuccess: done,
+  });
 }
 export function useVoidRun() {
   const done = useInvalidate();
@@ -150,10 +116,15 @@ export function useVoidRun() {
 }
 export function useRetryInvoices() {
   const done = useInvalidate();
-  return useMutation({ mutationFn: () => api.post("/billing/invoices/retry"), onSuccess: done });
+  return useMutation({
+    mutationFn: async () => parseResponse(invoiceRetryResult, await api.post<unknown>("/billing/invoices/retry"), "POST /api/billing/invoices/retry"),
+    onSuccess: done,
+  });
 }
 export function useReview() {
-  return useMutation({ mutationFn: (input: RateReviewInput) => api.post<{ items: RateReviewRowDto[] }>("/rates/review", input) });
+  return useMutation({
+    mutationFn: async (input: RateReviewInput) => parseResponse(rateReviewResponse, await api.post<unknown>("/rates/review", input), "POST /api/rates/review"),
+  });
 }
 export function useApplyRates() {
   const done = useInvalidate();

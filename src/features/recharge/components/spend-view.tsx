@@ -52,7 +52,7 @@ export function SpendView({ isManager }: { isManager: boolean }) {
             <Table caption="Revenue by department">
               <TBody>
                 {revenue.data.byDepartment.map((r) => (
-                  <Tr key={r.departmentId ?? "external"}>
+                  <Tr key={`${r.external ? "external" : "internal"}-${r.departmentId ?? "none"}`}>
                     <Td>{r.name}</Td>
                     <Td className="text-right tabular-nums">{money(r.total)}</Td>
                   </Tr>

@@ -1,0 +1,82 @@
+/**
+ * Writes a finalising billing run's statements and charge lines while the month is being priced
+ * (billing-compute's streamMonth hands over one page of lines at a time), so a month of tens of
+ * thousands of lines never sits in memory whole. Runs on the run's own transaction connection:
+ * better-sqlite3 has one connection, and the TypeORM transaction that owns the run has begun on it.
+ */
+import type { EntityManager } from "typeorm";
+import type { ComputedLine } from "./billing-compute";
+
+interface RawStatement {
+  run(...params: unknown[]): { lastInsertRowid: number | bigint };
+}
+interface RawDb {
+  prepare(sql: string): RawStatement;
+  inTransaction: boolean;
+}
+
+const LINE_COLUMNS = [
+  "statementId", "runId", "accountId", "kind", "bookingId", "instrumentId", "usageId", "adjustmentId", "userId", "rateId",
+  "description", "quantity", "unit", "unitPriceCents", "amountCents", "at",
+] as const;
+
+/** Rows per multi-row INSERT: 16 columns × 64 rows = 1,024 parameters, far below SQLite's limit. */
+const CHUNK = 64;
+
+function rawDb(em: EntityManager): RawDb {
+  return (em.connection.driver as unknown as { databaseConnection: RawDb }).databaseConnection;
+}
+
+export interface RunWriter {
+  /** A LineSink: stores a page of lines, opening an account's statement on its first line. */
+  write(lines: ComputedLine[]): void;
+  /** The statement opened for an account, if any line of it was written. */
+  statementId(accountId: number): number | undefined;
+}
+
+export function createRunWriter(em: EntityManager, run: { id: number; period: string; currency: string; createdAt: string }): RunWriter {
+  const db = rawDb(em);
+  // Raw writes outside the run's transaction would survive its rollback; refuse rather than risk it.
+  if (!db.inTransaction) throw new Error("createRunWriter must be used inside the run's transaction");
+  const row = `(${LINE_COLUMNS.map(() => "?").join(", ")})`;
+  const insert = `INSERT INTO charge_lines (${LINE_COLUMNS.map((c) => `"${c}"`).join(", ")}) VALUES `;
+  const one = db.prepare(insert + row);
+  const chunk = db.prepare(insert + Array.from({ length: CHUNK }, () => row).join(", "));
+  // Totals and invoice state are set once the month is complete (finishRun in billing.service).
+  const openStatement = db.prepare(
+    `INSERT INTO statements (runId, accountId, period, totalCents, currency, invoiceStatus, invoiceAttempts, createdAt) VALUES (?, ?, ?, 0, ?, 'none', 0, ?)`,
+  );
+  const statements = new Map<number, number>();
+
+  const statementFor = (accountId: number): number => {
+    let id = statements.get(accountId);
+    if (id === undefined) {
+      id = Number(openStatement.run(run.id, accountId, run.period, run.currency, run.createdAt).lastInsertRowid);
+      statements.set(accountId, id);
+    }
+    return id;
+  };
+  const params = (l: ComputedLine, out: unknown[]) => {
+    out.push(
+      statementFor(l.accountId), run.id, l.accountId, l.kind, l.bookingId, l.instrumentId, l.usageId, l.adjustmentId, l.userId, l.rateId,
+      l.description, l.quantity, l.unit, l.unitPriceCents, l.amountCents, l.at,
+    );
+  };
+
+  return {
+    write(lines) {
+      let i = 0;
+      for (; i + CHUNK <= lines.length; i += CHUNK) {
+        const values: unknown[] = [];
+        for (let k = i; k < i + CHUNK; k++) params(lines[k], values);
+        chunk.run(...values);
+      }
+      for (; i < lines.length; i++) {
+        const values: unknown[] = [];
+        params(lines[i], values);
+        one.run(...values);
+      }
+    },
+    statementId: (accountId) => statements.get(accountId),
+  };
+}
