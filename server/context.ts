@@ -37,7 +37,7 @@ export interface AppDeps {
 export function createServices(deps: AppDeps) {
   const now = () => deps.clock.now();
   return {
-    users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, bcryptCost: deps.bcryptCost }),
+    users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityName: deps.config.FACILITY_NAME, bcryptCost: deps.bcryptCost }),
     bookings: createBookingService({ ds: deps.ds, now, config: deps.config }),
     instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
     setups: createSetupService({ ds: deps.ds, now }),
@@ -47,7 +47,7 @@ export function createServices(deps: AppDeps) {
     ...createStockServices({ ds: deps.ds, now, dataDir: deps.config.dataDir, tz: deps.config.FACILITY_TZ }),
     accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
     rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
-    billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments }),
+    billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments, facilityName: deps.config.FACILITY_NAME }),
   };
 }
 

@@ -47,13 +47,13 @@ export const jobs: Job[] = [
     // Invoices the payment service did not take when a run was finalised (or voided), retried with backoff.
     name: "send-invoices",
     everyMs: 30_000,
-    run: (d) => processDueInvoices({ ds: d.ds, payments: d.payments, now: () => d.clock.now() }),
+    run: (d) => processDueInvoices({ ds: d.ds, payments: d.payments, now: () => d.clock.now(), facilityName: d.config.FACILITY_NAME }),
   },
   {
     // Statement PDFs of final runs not yet in the outbox (a large month, or a crash mid-way).
     name: "mail-statements",
     everyMs: 15_000,
-    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20, tz: d.config.FACILITY_TZ }),
+    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20, tz: d.config.FACILITY_TZ, facility: d.config.FACILITY_NAME }),
   },
 ];
 

@@ -59,7 +59,7 @@ export function createBookingsRouter(ctx: Ctx): Router {
     const viewer = currentUser(req);
     const found = await svc.get(id(req)).catch(() => null);
     if (!found || !canSeeInFull(viewer, found.booking.userId)) throw new NotFound("That booking");
-    const text = await bookingIcs(ctx.ds, found.booking.id, ctx.now(), ctx.config.PUBLIC_URL);
+    const text = await bookingIcs(ctx.ds, found.booking.id, ctx.now(), ctx.config.PUBLIC_URL, ctx.config.FACILITY_NAME);
     res.type("text/calendar; charset=utf-8").set("Content-Disposition", `attachment; filename="booking-${found.booking.id}.ics"`).send(text);
   });
 

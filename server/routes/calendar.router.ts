@@ -31,7 +31,7 @@ export function createCalendarRouter(ctx: Ctx): Router {
   r.get("/:token.ics", async (req, res) => {
     const token = String(req.params.token ?? "");
     // Tokens are base64url; anything else cannot be one, and is answered like an unknown token.
-    const text = /^[A-Za-z0-9_-]{16,64}$/.test(token) ? await feedForToken(ctx.ds, token, ctx.now(), ctx.config.PUBLIC_URL) : null;
+    const text = /^[A-Za-z0-9_-]{16,64}$/.test(token) ? await feedForToken(ctx.ds, token, ctx.now(), ctx.config.PUBLIC_URL, ctx.config.FACILITY_NAME) : null;
     if (text === null) throw new NotFound("That calendar feed");
     res.type("text/calendar; charset=utf-8").set("Cache-Control", "private, max-age=300").send(text);
   });

@@ -34,7 +34,8 @@ import { createRunWriter } from "./billing-writer";
 import { processDueInvoices } from "./invoicing.service";
 import { renderStatementPdf } from "./statement-pdf";
 
-export const FACILITY_NAME = "Liquid Interfaces Core";
+/** Used where no facility name is passed in (the bench, older callers); FACILITY_NAME sets it. */
+export const DEFAULT_FACILITY_NAME = "Liquid Interfaces Core";
 
 export interface BillingDeps {
   ds: DataSource;
@@ -42,6 +43,8 @@ export interface BillingDeps {
   currency: string;
   now: () => Date;
   payments?: Stripe;
+  /** The facility's name on statements, journal lines and invoices. */
+  facilityName?: string;
   /** true: mail the statement PDFs right after a run's commit. Default: the mail-statements job does. */
   mailStatements?: boolean;
 }
@@ -58,6 +61,7 @@ export async function pdfFor(
   account: Account,
   lines: { at: string; description: string; amountCents: number; userId: number | null }[],
   tz?: string,
+  facility = DEFAULT_FACILITY_NAME,
 ) {
   const ids = [...new Set(lines.map((l) => l.userId).filter((x): x is number => x != null))];
   const names = new Map<number, string>();
@@ -66,7 +70,7 @@ export async function pdfFor(
     for (const r of rows) names.set(r.id, r.name);
   }
   return renderStatementPdf({
-    facility: FACILITY_NAME,
+    facility,
     period: st.period,
     currency: st.currency,
     account: { code: account.code, name: account.name, kind: account.kind, organisation: account.organisation },
@@ -86,7 +90,7 @@ export async function pdfFor(
  * Renders and queues the PDF of every final statement not yet mailed (one transaction each, so
  * a crash loses nothing: the next pass picks up what is left). Used after a run and by the job.
  */
-export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number; tz?: string } = {}): Promise<number> {
+export async function mailDueStatements(ds: DataSource, now: () => Date, opts: { runId?: number; limit?: number; tz?: string; facility?: string } = {}): Promise<number> {
   const qb = ds
     .getRepository(Statement)
     .createQueryBuilder("s")
@@ -100,10 +104,10 @@ export async function mailDueStatements(ds: DataSource, now: () => Date, opts: {
       const to = await ownerEmail(em, account);
       if (to) {
         const lines = await em.find(ChargeLine, { where: { statementId: st.id }, order: { at: "ASC", id: "ASC" } });
-        const pdf = await pdfFor(em, st, account, lines, opts.tz);
+        const pdf = await pdfFor(em, st, account, lines, opts.tz, opts.facility);
         await enqueueMail(em, now(), {
           to,
-          subject: `${FACILITY_NAME} statement ${st.period} — ${account.code}`,
+          subject: `${opts.facility ?? DEFAULT_FACILITY_NAME} statement ${st.period} — ${account.code}`,
           text:
             `The statement for ${account.name} (${account.code}) for ${st.period} is attached: ` +
             `${lines.length} line(s), total ${centsToDecimalString(st.totalCents)} ${st.currency}.` +
@@ -119,6 +123,7 @@ export async function mailDueStatements(ds: DataSource, now: () => Date, opts: {
 
 export function createBillingService(deps: BillingDeps) {
   const { ds, tz, currency } = deps;
+  const facility = deps.facilityName ?? DEFAULT_FACILITY_NAME;
 
   function assertEnded(period: string): void {
     const { monthEnd } = monthRange(period, tz);
@@ -177,8 +182,8 @@ export function createBillingService(deps: BillingDeps) {
     // After the commit: invoices go out outside the run's transaction, so an unreachable payment
     // service never undoes a finished run (send-invoices retries). Statement PDFs are rendered
     // and mailed by the mail-statements job, never by the run: a large month has many pages.
-    if (deps.mailStatements === true) await mailDueStatements(ds, deps.now, { runId, tz }).catch(() => undefined);
-    await processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { runId, force: true }).catch(() => undefined);
+    if (deps.mailStatements === true) await mailDueStatements(ds, deps.now, { runId, tz, facility }).catch(() => undefined);
+    await processDueInvoices({ ds, payments: deps.payments, now: deps.now, facilityName: facility }, { runId, force: true }).catch(() => undefined);
     return ds.getRepository(BillingRun).findOneByOrFail({ id: runId });
   }
 
@@ -194,7 +199,7 @@ export function createBillingService(deps: BillingDeps) {
       await em.update(BillingRun, id, { status: "voided", voidedAt: deps.now().toISOString(), voidedById: actor.id, voidReason: reason });
       await audit(em, deps.now(), actor.id, "billing.run_voided", "billing_run", id, { period: run.period, reason });
     });
-    await processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { runId: id, force: true }).catch(() => undefined);
+    await processDueInvoices({ ds, payments: deps.payments, now: deps.now, facilityName: facility }, { runId: id, force: true }).catch(() => undefined);
     return ds.getRepository(BillingRun).findOneByOrFail({ id });
   }
 
@@ -262,7 +267,7 @@ export function createBillingService(deps: BillingDeps) {
           r.department ?? "",
           centsToDecimalString(Number(r.totalCents)),
           run.currency,
-          `${FACILITY_NAME} recharge ${run.period}: ${r.name} (${r.lines} line${Number(r.lines) === 1 ? "" : "s"})${run.status === "voided" ? " [VOID RUN]" : ""}`,
+          `${facility} recharge ${run.period}: ${r.name} (${r.lines} line${Number(r.lines) === 1 ? "" : "s"})${run.status === "voided" ? " [VOID RUN]" : ""}`,
         ]
           .map((v) => esc(String(v)))
           .join(","),
@@ -283,7 +288,7 @@ export function createBillingService(deps: BillingDeps) {
     const account = st ? await ds.getRepository(Account).findOneBy({ id: st.accountId }) : null;
     if (!st || !account || !(await canSeeAccount(user, account))) throw new NotFound("That statement");
     const lines = await ds.getRepository(ChargeLine).find({ where: { statementId }, order: { at: "ASC", id: "ASC" } });
-    const pdf = await ds.transaction((em) => pdfFor(em, st, account, lines, tz));
+    const pdf = await ds.transaction((em) => pdfFor(em, st, account, lines, tz, facility));
     return { pdf, filename: `statement-${st.period}-${account.code}.pdf` };
   }
 
@@ -514,7 +519,7 @@ export function createBillingService(deps: BillingDeps) {
     spend,
     myCharges,
     outstanding,
-    retryInvoices: () => processDueInvoices({ ds, payments: deps.payments, now: deps.now }, { force: true }),
+    retryInvoices: () => processDueInvoices({ ds, payments: deps.payments, now: deps.now, facilityName: facility }, { force: true }),
   };
 }
 

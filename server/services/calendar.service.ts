@@ -28,8 +28,8 @@ function statusOf(s: BookingStatus): ICalEventStatus {
   return ICalEventStatus.CONFIRMED;
 }
 
-export function bookingsCalendar(opts: { name: string; host: string; publicUrl: string; bookings: CalendarBooking[]; stamp: Date }): string {
-  const cal = ical({ name: opts.name, prodId: { company: "Kestrel Bay University", product: "Phasebook", language: "EN" } });
+export function bookingsCalendar(opts: { name: string; host: string; publicUrl: string; bookings: CalendarBooking[]; stamp: Date; location?: string }): string {
+  const cal = ical({ name: opts.name, prodId: { company: "Phasebook", product: "Phasebook", language: "EN" } });
   for (const b of opts.bookings) {
     const what = b.instruments.join(" + ");
     cal.createEvent({
@@ -44,7 +44,7 @@ export function bookingsCalendar(opts: { name: string; host: string; publicUrl: 
       description: [b.purpose && `Purpose: ${b.purpose}`, `State: ${BOOKING_STATUS_LABELS[b.status]}`, `Phasebook: ${opts.publicUrl}/bookings`]
         .filter(Boolean)
         .join("\n"),
-      location: "Liquid Interfaces Core",
+      location: opts.location ?? "",
       status: statusOf(b.status),
       url: `${opts.publicUrl}/bookings`,
     });
@@ -65,15 +65,15 @@ async function calendarBookings(ds: DataSource, where: string, args: unknown[]):
   return rows.map(({ names, ...r }) => ({ ...r, instruments: (names ?? "").split("|").filter(Boolean).sort() }));
 }
 
-export async function feedForToken(ds: DataSource, token: string, now: Date, publicUrl: string): Promise<string | null> {
+export async function feedForToken(ds: DataSource, token: string, now: Date, publicUrl: string, facility?: string): Promise<string | null> {
   const user = await ds.getRepository(User).findOneBy({ calendarToken: token, active: true });
   if (!user) return null;
   const since = now.getTime() - FEED_PAST_DAYS * 24 * 3600 * 1000;
   const bookings = await calendarBookings(ds, `b.userId = ? AND b.endMs > ? AND b.status <> 'declined'`, [user.id, since]);
-  return bookingsCalendar({ name: `Phasebook – ${user.name}`, host: new URL(publicUrl).hostname, publicUrl, bookings, stamp: now });
+  return bookingsCalendar({ name: `Phasebook – ${user.name}`, host: new URL(publicUrl).hostname, publicUrl, bookings, stamp: now, location: facility });
 }
 
-export async function bookingIcs(ds: DataSource, bookingId: number, now: Date, publicUrl: string): Promise<string> {
+export async function bookingIcs(ds: DataSource, bookingId: number, now: Date, publicUrl: string, facility?: string): Promise<string> {
   const bookings = await calendarBookings(ds, `b.id = ?`, [bookingId]);
-  return bookingsCalendar({ name: "Phasebook booking", host: new URL(publicUrl).hostname, publicUrl, bookings, stamp: now });
+  return bookingsCalendar({ name: "Phasebook booking", host: new URL(publicUrl).hostname, publicUrl, bookings, stamp: now, location: facility });
 }

@@ -16,6 +16,8 @@ export interface InvoicingDeps {
   ds: DataSource;
   payments?: Stripe;
   now: () => Date;
+  /** Names the invoice; FACILITY_NAME. */
+  facilityName?: string;
 }
 
 async function ensureCustomer(deps: InvoicingDeps, stripe: Stripe, account: Account): Promise<string> {
@@ -60,7 +62,7 @@ export async function pushInvoice(deps: InvoicingDeps, statementId: number): Pro
         auto_advance: false,
         currency,
         pending_invoice_items_behavior: "exclude",
-        description: `Liquid Interfaces Core recharge, ${st.period}`,
+        description: `${deps.facilityName ?? "Liquid Interfaces Core"} recharge, ${st.period}`,
         metadata: { statementId: String(st.id), runId: String(st.runId), period: st.period, accountCode: account.code },
       },
       { idempotencyKey: `phasebook-statement-${st.id}-${account.code}-${st.createdAt}` },

@@ -26,6 +26,7 @@ export interface UserServiceDeps {
   ds: DataSource;
   now: () => Date;
   publicUrl: string;
+  facilityName?: string;
   bcryptCost?: number;
 }
 
@@ -167,7 +168,7 @@ export function createUserService(deps: UserServiceDeps) {
       subject: kind === "welcome" ? "Your Phasebook account: choose a password" : "Reset your Phasebook password",
       text:
         (kind === "welcome"
-          ? "An account has been made for you in Phasebook, the Liquid Interfaces Core's booking and stock portal.\n\n"
+          ? `An account has been made for you in Phasebook, the ${deps.facilityName ?? "facility"}'s booking and stock portal.\n\n`
           : "Someone (hopefully you) asked to reset your Phasebook password.\n\n") +
         `Choose a password here within the next hour:\n${link}\n\nThe link works once. If you did not ask for this, ignore this mail.`,
     });

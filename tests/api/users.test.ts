@@ -106,3 +106,20 @@ describe("sessions survive a restart of the app", () => {
     }
   });
 });
+
+describe("the facility's name", () => {
+  it("comes from FACILITY_NAME into the welcome mail", async () => {
+    const other = await startTestApp({ env: { FACILITY_NAME: "Biphasic Electrochemistry Lab" } });
+    try {
+      const a = await makeUser(other.ds, { roles: ["admin"], email: "root2@kestrelbay.example" });
+      const c = new ApiClient(other.url);
+      await c.login(a.email, TEST_PASSWORD);
+      expect((await c.get("/api/facility")).body.name).toBe("Biphasic Electrochemistry Lab");
+      await c.post("/api/users", { email: "welcome@kestrelbay.example", name: "Ines Welcome", roles: ["member"] });
+      const [mail] = await other.ds.query(`SELECT text FROM outbound_mail WHERE "to" = ?`, ["welcome@kestrelbay.example"]);
+      expect(mail.text).toContain("the Biphasic Electrochemistry Lab's booking and stock portal");
+    } finally {
+      await other.close();
+    }
+  });
+});
