@@ -46,7 +46,8 @@ export function createApp(deps: AppDeps): CreatedApp {
           "style-src": ["'self'", "'unsafe-inline'"],
           "script-src": ["'self'"],
           "connect-src": ["'self'"],
-          "font-src": ["'self'"],
+          // FullCalendar ships its arrow icons as an embedded (data:) font.
+          "font-src": ["'self'", "data:"],
           "frame-ancestors": ["'none'"],
           "upgrade-insecure-requests": secureCookies ? [] : null,
         },

@@ -127,6 +127,8 @@ describe("request limits", () => {
     const r = await new ApiClient(t.url).get("/api/health");
     expect(r.headers.get("x-content-type-options")).toBe("nosniff");
     expect(r.headers.get("content-security-policy")).toContain("default-src 'self'");
+    // The calendar's arrow icons are an embedded font; without data: they render as empty boxes.
+    expect(r.headers.get("content-security-policy")).toContain("font-src 'self' data:");
   });
 });
 

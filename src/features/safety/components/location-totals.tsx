@@ -47,12 +47,12 @@ export function LocationTotals() {
                   {t.limitNote && <span className="block text-xs text-grey-600">{t.limitNote}</span>}
                 </span>
               </Td>
-              <Td className="text-right font-mono text-xs">{L(t.litresByCategory["1"])}</Td>
-              <Td className="text-right font-mono text-xs">{L(t.litresByCategory["2"])}</Td>
-              <Td className="text-right font-mono text-xs">{L(t.litresByCategory["3"])}</Td>
-              <Td className="text-right font-mono text-xs font-semibold">{L(t.flammableLitres)}</Td>
-              <Td className="text-right font-mono text-xs">{t.flammableLimitLitres === null ? "none set" : L(t.flammableLimitLitres)}</Td>
-              <Td className="text-right font-mono text-xs">{L(t.combustibleLitres)}{t.combustibleLimitLitres !== null && ` / ${L(t.combustibleLimitLitres)}`}</Td>
+              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.litresByCategory["1"])}</Td>
+              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.litresByCategory["2"])}</Td>
+              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.litresByCategory["3"])}</Td>
+              <Td className="text-right font-mono text-xs whitespace-nowrap font-semibold">{L(t.flammableLitres)}</Td>
+              <Td className="text-right font-mono text-xs whitespace-nowrap">{t.flammableLimitLitres === null ? "none set" : L(t.flammableLimitLitres)}</Td>
+              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.combustibleLitres)}{t.combustibleLimitLitres !== null && ` / ${L(t.combustibleLimitLitres)}`}</Td>
               <Td>
                 {t.flammableOverLimit && <Badge tone="danger">Over limit by {L(t.flammableLitres - t.flammableLimitLitres!)}</Badge>}
                 {t.combustibleOverLimit && <Badge tone="danger">Combustible over limit by {L(t.combustibleLitres - t.combustibleLimitLitres!)}</Badge>}
