@@ -6,9 +6,11 @@ import type { ChargeLineDto, StatementDto } from "@shared/schemas/recharge";
 import type { Account, ChargeLine, Statement } from "../entities";
 import type { ComputedStatement } from "../services/billing-compute";
 
-export function presentChargeLine(l: ChargeLine): ChargeLineDto {
+type LineFields = Pick<ChargeLine, "kind" | "description" | "bookingId" | "instrumentId" | "usageId" | "userId" | "quantity" | "unit" | "unitPriceCents" | "amountCents" | "at">;
+
+/** The fields a stored line and a previewed (computed, unstored) line share. */
+function lineFields(l: LineFields): Omit<ChargeLineDto, "id"> {
   return {
-    id: l.id,
     kind: l.kind,
     description: l.description,
     bookingId: l.bookingId,
@@ -21,6 +23,10 @@ export function presentChargeLine(l: ChargeLine): ChargeLineDto {
     amount: l.amountCents,
     at: l.at,
   };
+}
+
+export function presentChargeLine(l: ChargeLine): ChargeLineDto {
+  return { id: l.id, ...lineFields(l) };
 }
 
 /** A stored statement with its lines (in statement order: by date, then as priced). */
@@ -52,18 +58,6 @@ export function presentComputedStatement(s: ComputedStatement, currency: string)
     total: s.totalCents,
     currency,
     warnings: s.warnings,
-    lines: s.lines.map((l) => ({
-      kind: l.kind,
-      description: l.description,
-      bookingId: l.bookingId,
-      instrumentId: l.instrumentId,
-      usageId: l.usageId,
-      userId: l.userId,
-      quantity: l.quantity,
-      unit: l.unit,
-      unitPriceCents: l.unitPriceCents,
-      amount: l.amountCents,
-      at: l.at,
-    })),
+    lines: s.lines.map(lineFields),
   };
 }

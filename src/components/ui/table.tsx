@@ -3,6 +3,7 @@
  * compact cells, and a sortable header that tells screen readers its order (aria-sort).
  */
 import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
+import { flexRender, type Table as DataTable } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
 
 export function Table({ className, children, caption }: { className?: string; children: ReactNode; caption?: ReactNode }) {
@@ -79,5 +80,29 @@ export function TableMessage({ colSpan, children }: { colSpan: number; children:
         {children}
       </td>
     </tr>
+  );
+}
+
+/**
+ * The header rows of a TanStack table: a sortable header where the column sorts (by default
+ * where TanStack says it can; server-sorted tables name their columns), a plain one elsewhere.
+ */
+export function HeaderRows<T>({ table, isSortable }: { table: DataTable<T>; isSortable?: (columnId: string) => boolean }) {
+  return (
+    <>
+      {table.getHeaderGroups().map((hg) => (
+        <tr key={hg.id}>
+          {hg.headers.map((h) =>
+            (isSortable ? isSortable(h.column.id) : h.column.getCanSort()) ? (
+              <SortableTh key={h.id} direction={h.column.getIsSorted()} onToggle={h.column.getToggleSortingHandler()}>
+                {flexRender(h.column.columnDef.header, h.getContext())}
+              </SortableTh>
+            ) : (
+              <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
+            ),
+          )}
+        </tr>
+      ))}
+    </>
   );
 }

@@ -25,7 +25,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Dialog } from "@/components/ui/dialog";
 import { Spinner } from "@/components/ui/spinner";
-import { SortableTh, TBody, THead, Table, TableMessage, Td, Th, Tr } from "@/components/ui/table";
+import { HeaderRows, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
 import { AddPersonForm } from "./add-person-form";
 import { EditPersonForm } from "./edit-person-form";
 import { ActiveToggleDialog } from "./active-toggle-dialog";
@@ -168,23 +168,7 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
 
       <Table caption="People with a Phasebook account">
         <THead>
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((header) =>
-                header.column.getCanSort() ? (
-                  <SortableTh
-                    key={header.id}
-                    direction={header.column.getIsSorted()}
-                    onToggle={header.column.getToggleSortingHandler()}
-                  >
-                    {flexRender(header.column.columnDef.header, header.getContext())}
-                  </SortableTh>
-                ) : (
-                  <Th key={header.id}>{flexRender(header.column.columnDef.header, header.getContext())}</Th>
-                ),
-              )}
-            </tr>
-          ))}
+          <HeaderRows table={table} />
         </THead>
         <TBody>
           {users.isPending && (

@@ -9,7 +9,7 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
-import { SortableTh, TBody, THead, Table, TableMessage, Td, Th, Tr } from "@/components/ui/table";
+import { HeaderRows, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
 import { useChemicals } from "../api/get-chemicals";
 
 const PAGE = 50;
@@ -89,19 +89,7 @@ export function ChemicalsTable() {
       {chemicals.isError && <Alert tone="danger">{describeError(chemicals.error)}</Alert>}
       <Table caption="Chemicals">
         <THead>
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) =>
-                SORTABLE.has(h.column.id) ? (
-                  <SortableTh key={h.id} direction={h.column.getIsSorted()} onToggle={h.column.getToggleSortingHandler()}>
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                  </SortableTh>
-                ) : (
-                  <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
-                ),
-              )}
-            </tr>
-          ))}
+          <HeaderRows table={table} isSortable={(id) => SORTABLE.has(id)} />
         </THead>
         <TBody>
           {chemicals.isPending && <TableMessage colSpan={columns.length}>Loading chemicals…</TableMessage>}

@@ -14,7 +14,7 @@ import { formatDate } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/input";
-import { SortableTh, TBody, THead, Table, TableMessage, Td, Th, Tr } from "@/components/ui/table";
+import { HeaderRows, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
 import { useContainers } from "../api/get-containers";
 import { useLocations } from "../api/get-locations";
 import { StatusBadge, formatQuantity } from "./stock-format";
@@ -181,19 +181,7 @@ export function ContainersTable({ chemicalId, selectionActions }: ContainersTabl
       {containers.isError && <Alert tone="danger">{describeError(containers.error)}</Alert>}
       <Table caption="Containers">
         <THead>
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) =>
-                SORTABLE.has(h.column.id) ? (
-                  <SortableTh key={h.id} direction={h.column.getIsSorted()} onToggle={h.column.getToggleSortingHandler()}>
-                    {flexRender(h.column.columnDef.header, h.getContext())}
-                  </SortableTh>
-                ) : (
-                  <Th key={h.id}>{flexRender(h.column.columnDef.header, h.getContext())}</Th>
-                ),
-              )}
-            </tr>
-          ))}
+          <HeaderRows table={table} isSortable={(id) => SORTABLE.has(id)} />
         </THead>
         <TBody>
           {containers.isPending && <TableMessage colSpan={shownColumns.length}>Loading containers…</TableMessage>}
