@@ -7,18 +7,10 @@ import { DateTime } from "luxon";
 import type { BookableHours } from "@shared/domain/booking-rules";
 import { monthRange, utilisation } from "@shared/domain/utilisation";
 import type { BookingStatus } from "@shared/domain/intervals";
+import type { UtilisationRow } from "@shared/schemas/reports";
 import { MAX_BOOKING_MS } from "./booking.service";
 
-export interface UtilisationRow {
-  instrumentId: number;
-  instrumentName: string;
-  period: string;
-  bookableHours: number;
-  bookedHours: number;
-  usedHours: number;
-  bookedPct: number | null;
-  usedPct: number | null;
-}
+export type { UtilisationRow };
 
 /** The months from `from` to `to` inclusive, "YYYY-MM". */
 export function monthsBetween(from: string, to: string): string[] {

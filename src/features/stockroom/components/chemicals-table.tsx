@@ -1,5 +1,6 @@
 /** The chemicals table: name, CAS, formula and the hazard classes Phasebook computes; sorted and paged on the server. */
-import { useEffect, useState } from "react";
+import { useState } from "react";
+import { useDebouncedValue } from "@/hooks/use-debounced-value";
 import { Link } from "react-router-dom";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { CHEMICAL_SORTS, type ChemicalDto } from "@shared/schemas/stock";
@@ -44,16 +45,10 @@ const columns = [
 
 export function ChemicalsTable() {
   const [text, setText] = useState("");
-  const [q, setQ] = useState("");
   const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
   const [page, setPage] = useState(0);
-  useEffect(() => {
-    const t = setTimeout(() => {
-      setQ(text.trim());
-      setPage(0);
-    }, 250);
-    return () => clearTimeout(t);
-  }, [text]);
+  // Typing settles for a moment before the server is asked, so each key press is not a request.
+  const q = useDebouncedValue(text.trim());
   const sort = sorting[0];
   const chemicals = useChemicals({
     q: q || undefined,
@@ -81,7 +76,10 @@ export function ChemicalsTable() {
   return (
     <div className="flex flex-col gap-2">
       <div className="flex flex-wrap items-end gap-2">
-        <Input label="Search" placeholder="Name, synonym, CAS number or formula" value={text} onChange={(e) => setText(e.target.value)} fieldClassName="w-72" />
+        <Input label="Search" placeholder="Name, synonym, CAS number or formula" value={text} onChange={(e) => {
+          setText(e.target.value);
+          setPage(0);
+        }} fieldClassName="w-72" />
         <a href="/api/chemicals/export.csv" className="ml-auto text-sm" download>
           Export CSV
         </a>

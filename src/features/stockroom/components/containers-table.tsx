@@ -4,7 +4,8 @@
  * With `selectionActions` (the route passes label printing) a checkbox column appears; the
  * selection survives paging and filtering, so labels for several pages go out in one PDF.
  */
-import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react";
+import { useCallback, useMemo, useState, type ReactNode } from "react";
+import { useDebouncedValue } from "@/hooks/use-debounced-value";
 import { Link } from "react-router-dom";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { CONTAINER_SORTS, CONTAINER_STATUSES, CONTAINER_STATUS_LABELS, type ContainerDto } from "@shared/schemas/stock";
@@ -51,7 +52,6 @@ interface ContainersTableProps {
 
 export function ContainersTable({ chemicalId, selectionActions }: ContainersTableProps) {
   const [text, setText] = useState("");
-  const [q, setQ] = useState("");
   const [status, setStatus] = useState("sealed,in_use,on_hold");
   const [locationId, setLocationId] = useState("");
   const [sorting, setSorting] = useState<SortingState>([{ id: "chemical", desc: false }]);
@@ -72,13 +72,7 @@ export function ContainersTable({ chemicalId, selectionActions }: ContainersTabl
   );
 
   // Typing settles for a moment before the server is asked, so each key press is not a request.
-  useEffect(() => {
-    const t = setTimeout(() => {
-      setQ(text.trim());
-      setPage(0);
-    }, 250);
-    return () => clearTimeout(t);
-  }, [text]);
+  const q = useDebouncedValue(text.trim());
 
   const sort = sorting[0];
   const query = useMemo(
@@ -153,7 +147,10 @@ export function ContainersTable({ chemicalId, selectionActions }: ContainersTabl
   return (
     <div className="flex flex-col gap-2">
       <div className="flex flex-wrap items-end gap-2">
-        <Input label="Search" placeholder="Chemical, CAS number, lot or label" value={text} onChange={(e) => setText(e.target.value)} fieldClassName="w-72" data-testid="container-search" />
+        <Input label="Search" placeholder="Chemical, CAS number, lot or label" value={text} onChange={(e) => {
+          setText(e.target.value);
+          setPage(0);
+        }} fieldClassName="w-72" data-testid="container-search" />
         <Select label="Status" value={status} onChange={(e) => { setStatus(e.target.value); setPage(0); }} fieldClassName="w-48">
           <option value="sealed,in_use,on_hold">In stock (sealed, in use, on hold)</option>
           <option value="">Any status</option>
