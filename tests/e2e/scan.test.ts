@@ -15,6 +15,7 @@ import { labelUrl } from "@shared/domain/labels";
 import { CHROMIUM, DEMO_PASSWORD, launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
 import { ApiClient } from "../support/http-client";
 import { writeLabelPng, writeLabelVideo } from "../support/fake-camera";
+import { renderPdfPage } from "../support/pdf-raster";
 
 let server: RunningServer;
 let browser: Browser;
@@ -108,7 +109,7 @@ describe("the Scan page", () => {
 });
 
 describe("a printed label", () => {
-  it("renders in Chromium's PDF viewer to a QR code that jsqr reads as the label URL, and that photo opens the record", async () => {
+  it("renders (pdf.js in Chromium) to a QR code that jsqr reads as the label URL, and that photo opens the record", async () => {
     const manager = new ApiClient(server.url);
     await manager.login("manager@kestrelbay.example", DEMO_PASSWORD);
     const res = await fetch(`${server.url}/api/labels.pdf?containerIds=${bottle.id}`, { headers: { cookie: manager.cookieHeader } });
@@ -116,21 +117,11 @@ describe("a printed label", () => {
     const pdfFile = path.join(server.dir, "label.pdf");
     fs.writeFileSync(pdfFile, Buffer.from(await res.arrayBuffer()));
 
-    const viewer = await browser.newPage({ viewport: { width: 1000, height: 700 } });
+    // Rasterise the printed page with pdf.js in Chromium, as a printer would, and read it with jsqr.
     const shot = path.join(server.dir, "label-printed.png");
-    let read: string | null = null;
-    try {
-      await viewer.goto(`file://${pdfFile}#zoom=200`);
-      // The viewer draws the page a moment after it loads; look until the code reads.
-      for (let i = 0; i < 50 && !read; i++) {
-        await viewer.waitForTimeout(500);
-        await viewer.screenshot({ path: shot });
-        const png = PNG.sync.read(fs.readFileSync(shot));
-        read = jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data ?? null;
-      }
-    } finally {
-      await viewer.close();
-    }
+    fs.writeFileSync(shot, await renderPdfPage(browser, fs.readFileSync(pdfFile)));
+    const png = PNG.sync.read(fs.readFileSync(shot));
+    const read = jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data ?? null;
     expect(read).toBe(labelUrl(server.url, bottle.labelToken));
 
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
