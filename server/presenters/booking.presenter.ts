@@ -5,6 +5,7 @@
 import type { DataSource } from "typeorm";
 import type { BookingDto, BookingListItem, BusyBlockDto } from "@shared/schemas/bookings";
 import { hasRole, type AuthUser } from "../middleware/auth";
+import { prepared } from "../db/prepared";
 import type { BookingWithInstruments } from "../services/booking.service";
 
 interface Names {
@@ -49,12 +50,13 @@ async function lookupNames(ds: DataSource, list: BookingWithInstruments[]): Prom
   const accountIds = [...new Set(list.map((x) => x.booking.accountId))];
   const users = new Map<number, string>();
   const accounts = new Map<number, string>();
+  // One prepared statement each, whatever the number of ids: the list travels as a JSON array.
   if (userIds.length) {
-    const rows: { id: number; name: string }[] = await ds.query(`SELECT id, name FROM users WHERE id IN (${userIds.map(() => "?").join(",")})`, userIds);
+    const rows = prepared(ds, `SELECT id, name FROM users WHERE id IN (SELECT value FROM json_each(?))`).all(JSON.stringify(userIds)) as { id: number; name: string }[];
     for (const r of rows) users.set(r.id, r.name);
   }
   if (accountIds.length) {
-    const rows: { id: number; code: string }[] = await ds.query(`SELECT id, code FROM accounts WHERE id IN (${accountIds.map(() => "?").join(",")})`, accountIds);
+    const rows = prepared(ds, `SELECT id, code FROM accounts WHERE id IN (SELECT value FROM json_each(?))`).all(JSON.stringify(accountIds)) as { id: number; code: string }[];
     for (const r of rows) accounts.set(r.id, r.code);
   }
   return { users, accounts };

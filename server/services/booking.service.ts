@@ -46,6 +46,12 @@ export interface BookingRow {
   createdAt: string;
 }
 
+const BOOKING_ROW_COLUMNS = (
+  ["id", "userId", "accountId", "purpose", "status", "startsAt", "endsAt", "startMs", "endMs", "checkedInAt", "checkedOutAt", "seriesId", "declineReason", "cancelReason", "lateCancel", "createdAt"] satisfies (keyof BookingRow)[]
+)
+  .map((c) => `b.${c}`)
+  .join(", ");
+
 export interface BookingWithInstruments {
   booking: Booking | BookingRow;
   instrumentIds: number[];
@@ -118,20 +124,18 @@ export function createBookingService(deps: BookingServiceDeps) {
     return ids.map((id) => found.find((i) => i.id === id)!);
   }
 
-  async function instrumentIdsOf(em: EntityManager, bookingIds: number[]): Promise<Map<number, number[]>> {
+  function instrumentIdsOf(em: EntityManager, bookingIds: number[]): Map<number, number[]> {
     const map = new Map<number, number[]>();
     if (bookingIds.length === 0) return map;
-    const rows: { bookingId: number; instrumentId: number }[] = [];
-    for (let i = 0; i < bookingIds.length; i += 500) {
-      const chunk = bookingIds.slice(i, i + 500);
-      rows.push(
-        ...(await em.query(`SELECT bookingId, instrumentId FROM booking_instruments WHERE bookingId IN (${chunk.map(() => "?").join(",")}) ORDER BY instrumentId`, chunk)),
-      );
-    }
+    // One statement for any number of ids: the list travels as one JSON array.
+    const rows = prepared(
+      em.connection,
+      `SELECT bookingId, instrumentId FROM booking_instruments WHERE bookingId IN (SELECT value FROM json_each(?)) ORDER BY instrumentId`,
+    ).all(JSON.stringify(bookingIds)) as { bookingId: number; instrumentId: number }[];
     for (const r of rows) {
-      const list = map.get(r.bookingId) ?? [];
-      list.push(r.instrumentId);
-      map.set(r.bookingId, list);
+      const list = map.get(r.bookingId);
+      if (list) list.push(r.instrumentId);
+      else map.set(r.bookingId, [r.instrumentId]);
     }
     return map;
   }
@@ -139,13 +143,14 @@ export function createBookingService(deps: BookingServiceDeps) {
   /** Bookings holding a slot on these instruments near [fromMs, toMs), for the overlap check. */
   async function holdersNear(em: EntityManager, instrumentIds: number[], fromMs: number, toMs: number, excludeId?: number) {
     const marks = instrumentIds.map(() => "?").join(",");
-    return (await em.query(
-      // CROSS JOIN keeps bookings as the outer loop, so SQLite walks the narrow startMs range of
-      // the time index instead of every booking the instrument ever had.
-      `SELECT b.id, b.startMs AS start, b.endMs AS end, bi.instrumentId FROM bookings b CROSS JOIN booking_instruments bi ON bi.bookingId = b.id
-       WHERE bi.instrumentId IN (${marks}) AND ${HOLDING} AND b.startMs < ? AND b.endMs > ? AND b.startMs > ? AND b.id <> ?`,
-      [...instrumentIds, toMs, fromMs, fromMs - MAX_BOOKING_MS, excludeId ?? -1],
-    )) as { id: number; start: number; end: number; instrumentId: number }[];
+    // The booking's times are copied onto booking_instruments (see the entity), so this walks
+    // each instrument's (instrumentId, startMs) index over the narrow window only; CROSS JOIN
+    // keeps that table as the outer loop.
+    return prepared(
+      em.connection,
+      `SELECT bi.bookingId AS id, bi.startMs AS start, bi.endMs AS end, bi.instrumentId FROM booking_instruments bi CROSS JOIN bookings b ON b.id = bi.bookingId
+        WHERE bi.instrumentId IN (${marks}) AND bi.startMs < ? AND bi.endMs > ? AND bi.startMs > ? AND ${HOLDING} AND b.id <> ?`,
+    ).all(...instrumentIds, toMs, fromMs, fromMs - MAX_BOOKING_MS, excludeId ?? -1) as { id: number; start: number; end: number; instrumentId: number }[];
   }
 
   /** Every problem of every session, with the whole series checked against the Schedule at once. */
@@ -233,7 +238,7 @@ export function createBookingService(deps: BookingServiceDeps) {
   async function loadForChange(em: EntityManager, id: number): Promise<{ booking: Booking; instruments: Instrument[]; owner: User }> {
     const booking = await em.findOneBy(Booking, { id });
     if (!booking) throw new NotFound("That booking");
-    const ids = (await instrumentIdsOf(em, [id])).get(id) ?? [];
+    const ids = instrumentIdsOf(em, [id]).get(id) ?? [];
     const instruments = await em.findBy(Instrument, { id: In(ids) });
     const owner = (await em.findOneBy(User, { id: booking.userId }))!;
     return { booking, instruments, owner };
@@ -501,7 +506,7 @@ export function createBookingService(deps: BookingServiceDeps) {
     async get(id: number): Promise<BookingWithInstruments> {
       const booking = await ds.getRepository(Booking).findOneBy({ id });
       if (!booking) throw new NotFound("That booking");
-      const ids = (await instrumentIdsOf(ds.manager, [id])).get(id) ?? [];
+      const ids = instrumentIdsOf(ds.manager, [id]).get(id) ?? [];
       return { booking, instrumentIds: ids };
     },
 
@@ -515,11 +520,15 @@ export function createBookingService(deps: BookingServiceDeps) {
       }
       const where: string[] = [];
       const args: unknown[] = [];
+      // One instrument's window walks its (instrumentId, startMs) index on booking_instruments,
+      // where the booking's times are copied; anything else reads the bookings' time index.
+      const oneInstrumentWindow = Boolean(q.instrumentId && q.from && q.to);
       if (q.from && q.to) {
         const from = new Date(q.from).getTime();
         const to = new Date(q.to).getTime();
         if (to <= from) throw new BadRequest("The window must end after it starts.", [{ path: "query.to", message: "Must be after from" }]);
-        where.push("b.startMs < ? AND b.endMs > ? AND b.startMs > ?");
+        const t = oneInstrumentWindow ? "bi" : "b";
+        where.push(`${t}.startMs < ? AND ${t}.endMs > ? AND ${t}.startMs > ?`);
         args.push(to, from, from - MAX_BOOKING_MS);
       } else if (q.from) {
         where.push("b.endMs > ?");
@@ -529,13 +538,7 @@ export function createBookingService(deps: BookingServiceDeps) {
         args.push(new Date(q.to).getTime());
       }
       if (q.instrumentId) {
-        // With a window, walk the narrow startMs range and look each booking's instrument up by
-        // key, rather than listing every booking the instrument ever had.
-        where.push(
-          q.from && q.to
-            ? "EXISTS (SELECT 1 FROM booking_instruments bi WHERE bi.bookingId = b.id AND bi.instrumentId = ?)"
-            : "b.id IN (SELECT bookingId FROM booking_instruments WHERE instrumentId = ?)",
-        );
+        where.push(oneInstrumentWindow ? "bi.instrumentId = ?" : "b.id IN (SELECT bookingId FROM booking_instruments WHERE instrumentId = ?)");
         args.push(q.instrumentId);
       }
       if (q.status?.length) {
@@ -546,14 +549,18 @@ export function createBookingService(deps: BookingServiceDeps) {
         where.push("b.userId = ?");
         args.push(actor.id);
       }
+      const from = oneInstrumentWindow ? "booking_instruments bi CROSS JOIN bookings b ON b.id = bi.bookingId" : "bookings b";
       const clause = where.length ? `WHERE ${where.join(" AND ")}` : "";
-      const order = q.mine && !q.from ? "b.startMs DESC" : "b.startMs ASC";
-      const rows: BookingRow[] = await ds.query(`SELECT b.* FROM bookings b ${clause} ORDER BY ${order} LIMIT ? OFFSET ?`, [...args, q.limit, q.offset]);
+      // One instrument's window comes out of its index already in time order.
+      const order = q.mine && !q.from ? "b.startMs DESC" : oneInstrumentWindow ? "bi.startMs ASC" : "b.startMs ASC, b.id ASC";
+      // Prepared and cached per shape (the Schedule asks for the same few shapes all day), and
+      // only the columns a booking is shown with: turning columns into JS values is the cost.
+      const rows = prepared(ds, `SELECT ${BOOKING_ROW_COLUMNS} FROM ${from} ${clause} ORDER BY ${order} LIMIT ? OFFSET ?`).all(...args, q.limit, q.offset) as BookingRow[];
       const total =
         rows.length < q.limit && q.offset === 0
           ? rows.length
-          : Number((await ds.query(`SELECT COUNT(*) n FROM bookings b ${clause}`, args))[0].n);
-      const map = await instrumentIdsOf(ds.manager, rows.map((r) => r.id));
+          : (prepared(ds, `SELECT COUNT(*) n FROM ${from} ${clause}`).get(...args) as { n: number }).n;
+      const map = instrumentIdsOf(ds.manager, rows.map((r) => r.id));
       return { items: rows.map((r) => ({ booking: r, instrumentIds: map.get(r.id) ?? [] })), total };
     },
 

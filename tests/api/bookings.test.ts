@@ -286,6 +286,32 @@ describe("GET /api/bookings", () => {
     expect(all.body.items.find((b: { id: number }) => b.id === theirs.body.booking.id)).toMatchObject({ userName: "Otto Other", busy: false });
   });
 
+  it("finds a moved booking in one instrument's window at its new time only, and checks overlaps there", async () => {
+    // One instrument's window reads the times copied onto booking_instruments; a move must carry them.
+    const cell = await trainedInstrument({ cleaningBufferMinutes: 30 });
+    const pot = await trainedInstrument({ kind: "potentiostat" });
+    const b = await book(memberApi, [pot.id, cell.id], dec(16, "10:00"), dec(16, "11:00"));
+    expect(b.status).toBe(201);
+    const window = (id: number, day: number) =>
+      memberApi.get(`/api/bookings?instrumentId=${id}&from=${encodeURIComponent(dec(day, "00:00"))}&to=${encodeURIComponent(dec(day + 1, "00:00"))}`);
+    expect((await window(cell.id, 16)).body.items.map((x: { id: number }) => x.id)).toEqual([b.body.booking.id]);
+    const moved = await memberApi.patch(`/api/bookings/${b.body.booking.id}`, { start: dec(17, "14:00"), end: dec(17, "15:00") });
+    expect(moved.status).toBe(200);
+    for (const id of [pot.id, cell.id]) {
+      expect((await window(id, 16)).body.total).toBe(0);
+      const seen = await window(id, 17);
+      expect(seen.body.items).toHaveLength(1);
+      expect(seen.body.items[0]).toMatchObject({ id: b.body.booking.id, start: "2026-12-17T18:00:00.000Z", end: "2026-12-17T19:00:00.000Z", instrumentIds: [pot.id, cell.id].sort((x, y) => x - y) });
+    }
+    // The old slot is free, the new one holds its cleaning buffer.
+    expect((await book(otherApi, [cell.id], dec(16, "10:00"), dec(16, "11:00"))).status).toBe(201);
+    expect((await book(otherApi, [cell.id], dec(17, "15:15"), dec(17, "16:00"))).status).toBe(409);
+    // Cancelled and declined bookings stay in the window (as their state says) but hold nothing.
+    await memberApi.post(`/api/bookings/${b.body.booking.id}/cancel`);
+    expect((await window(cell.id, 17)).body.items[0]).toMatchObject({ id: b.body.booking.id, status: "cancelled" });
+    expect((await book(otherApi, [cell.id], dec(17, "14:00"), dec(17, "15:00"))).status).toBe(201);
+  });
+
   it("answers 400 without a window unless asking for one's own bookings", async () => {
     expect((await memberApi.get("/api/bookings")).status).toBe(400);
     expect((await memberApi.get("/api/bookings?mine=true")).status).toBe(200);

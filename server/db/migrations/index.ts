@@ -6,6 +6,7 @@ import { ScheduleSetupsAndTrainingRequests1796173773439 } from "./1796173773439-
 import { LabelsAndStocks1796173796292 } from "./1796173796292-labels-and-stocks";
 import { StockroomAndSafety1796173804700 } from "./1796173804700-stockroom-and-safety";
 import { Recharge1796174960945 } from "./1796174960945-recharge";
+import { BookingInstrumentTimes1796183167192 } from "./1796183167192-booking-instrument-times";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -14,4 +15,5 @@ export const migrations = [
   LabelsAndStocks1796173796292,
   StockroomAndSafety1796173804700,
   Recharge1796174960945,
+  BookingInstrumentTimes1796183167192,
 ];
