@@ -1,7 +1,7 @@
 /**
  * Scan and the quick actions a scanned label offers.
- * GET /api/scan/:labelToken → 200 { type, id, url, record }; 400 "label_malformed" for a token of
- * the wrong shape (no lookup is made); 404 "label_unknown"; 410 "label_replaced" for a token
+ * GET /api/scan/:labelToken → 200 { type, id, url, record }; 404 "label_malformed" for a token of
+ * the wrong shape (no lookup is made); 404 "label_unknown"; 404 "label_replaced" for a token
  * retired by a re-issued label. The actions under /api/scan-actions are authorised by role and,
  * for containers, by ownership (own group or shared stock; managers and the safety officer: all).
  */
@@ -32,7 +32,8 @@ export function createScanRouter(ctx: Ctx): Router {
   r.get("/:labelToken", requireAuth, async (req, res) => {
     const token = String(req.params.labelToken);
     if (!isLabelTokenShape(token)) {
-      throw new AppError(400, "label_malformed", "This is not a Phasebook label code: a code is 22 to 64 letters, digits, '-' or '_'.");
+      // 404 like any code that leads nowhere (API.md), with its own code for the Scan page.
+      throw new AppError(404, "label_malformed", "This is not a Phasebook label code: a code is 22 to 64 letters, digits, '-' or '_'.");
     }
     res.json(await ctx.services.labels.resolve(currentUser(req), token));
   });

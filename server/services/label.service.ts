@@ -38,11 +38,14 @@ export interface LabelServiceDeps {
   facilityTz: string;
 }
 
-/** A retired token: 410 Gone, so a client can tell "replaced" from "never existed". */
+/**
+ * A retired token opens nothing: 404 as the contract has it for a token that leads nowhere, with
+ * its own code "label_replaced" (and when) so a client can tell "replaced" from "never existed".
+ */
 export class LabelReplaced extends AppError {
   constructor(replacedAt: string, type: LabelledTypeName) {
     super(
-      410,
+      404,
       "label_replaced",
       `This label was replaced on ${replacedAt.slice(0, 10)}; the ${type} has a newer label. Scan the new label or look the record up.`,
       undefined,
@@ -177,9 +180,9 @@ export function createLabelService(deps: LabelServiceDeps) {
     return { type: "instrument", id, url: recordPath("instrument", id), record: await instrumentRecord(user, i) };
   }
 
-  /** The record a label token stands for; 400 wrong shape, 404 unknown, 410 replaced. */
+  /** The record a label token stands for; 404 with code "label_malformed" (wrong shape, no lookup), "label_unknown" or "label_replaced". */
   async function resolve(user: AuthUser, token: string): Promise<ScanResultDto> {
-    if (!isLabelTokenShape(token)) throw new AppError(400, "label_malformed", "This is not a Phasebook label code.");
+    if (!isLabelTokenShape(token)) throw new AppError(404, "label_malformed", "This is not a Phasebook label code.");
     const c = await ds.getRepository(Container).findOneBy({ labelToken: token });
     if (c) return describeContainer(user, c.id);
     const i = await ds.getRepository(Instrument).findOneBy({ labelToken: token });

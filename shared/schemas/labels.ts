@@ -2,8 +2,8 @@
  * Labels and Scan: what GET /api/scan/:labelToken answers, the label PDF query, label stocks,
  * and the inputs of the quick actions a scan offers.
  *
- * Scan answers: 200 { type, id, url, record }; 400 code "label_malformed" for a token of the
- * wrong shape (checked before any lookup); 404 code "label_unknown"; 410 Gone with code
+ * Scan answers: 200 { type, id, url, record }; 404 code "label_malformed" for a token of the
+ * wrong shape (checked before any lookup); 404 code "label_unknown"; 404 with code
  * "label_replaced" (and replacedAt) for a token retired when its label was re-issued.
  */
 import { z } from "zod";

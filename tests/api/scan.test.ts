@@ -78,10 +78,10 @@ describe("GET /api/scan/:labelToken", () => {
     expect(r.body.code).toBe("label_unknown");
   });
 
-  it("answers 400 label_malformed for codes of the wrong shape, such as a database id", async () => {
+  it("answers 404 label_malformed for codes of the wrong shape, such as a database id", async () => {
     for (const bad of ["1", "short-code", "x".repeat(65), "abc%2Fdef%2Fghi%2Fjkl%2Fmnopq"]) {
       const r = await member.get(`/api/scan/${bad}`);
-      expect(r.status, bad).toBe(400);
+      expect(r.status, bad).toBe(404);
       expect(r.body.code, bad).toBe("label_malformed");
     }
   });
@@ -117,7 +117,7 @@ describe("GET /api/scan/:labelToken", () => {
 });
 
 describe("POST /api/labels/:type/:id/reissue", () => {
-  it("gives the container a new code; the old code then answers 410 label_replaced and the history keeps it", async () => {
+  it("gives the container a new code; the old code then answers 404 label_replaced and the history keeps it", async () => {
     const c = await makeContainer(t.ds, { chemicalId: chem.id });
     const r = await safety.post(`/api/labels/container/${c.id}/reissue`, { reason: "Label soaked in solvent" });
     expect(r.status).toBe(200);
@@ -125,7 +125,7 @@ describe("POST /api/labels/:type/:id/reissue", () => {
     expect(r.body.url).toBe(`http://phasebook.test/s/${r.body.token}`);
 
     const old = await member.get(`/api/scan/${c.labelToken}`);
-    expect(old.status).toBe(410);
+    expect(old.status).toBe(404);
     expect(old.body).toMatchObject({ code: "label_replaced", replacedAt: TEST_NOW, labelledType: "container" });
     expect(old.body.detail).toMatch(/replaced on 2026-12-02/);
 
@@ -143,7 +143,9 @@ describe("POST /api/labels/:type/:id/reissue", () => {
     const i = await makeInstrument(t.ds, "potentiostat");
     const r = await manager.post(`/api/labels/instrument/${i.id}/reissue`, {});
     expect(r.status).toBe(200);
-    expect((await member.get(`/api/scan/${i.labelToken}`)).status).toBe(410);
+    const old = await member.get(`/api/scan/${i.labelToken}`);
+    expect(old.status).toBe(404);
+    expect(old.body).toMatchObject({ code: "label_replaced", labelledType: "instrument" });
   });
 
   it("is refused to a member with 403, and answers 404 for a record that does not exist", async () => {

@@ -17,15 +17,15 @@ import { ScannedRecord } from "@/features/labels/components/scanned-record";
 function ScanProblem({ error }: { error: unknown }) {
   let title = "This label could not be opened";
   let text = describeError(error);
-  if (isApiError(error, 410)) {
+  if (isApiError(error, 404) && error.code === "label_replaced") {
     title = "This label was replaced";
     text = `${error.message} Remove the old label from the container or instrument if it is still there.`;
+  } else if (isApiError(error, 404) && error.code === "label_malformed") {
+    title = "This is not a Phasebook label";
+    text = "The code does not have the shape of a Phasebook label code.";
   } else if (isApiError(error, 404)) {
     title = "No record carries this label";
     text = "The code is not on any container or instrument in Phasebook. Check that the label belongs to this facility.";
-  } else if (isApiError(error, 400)) {
-    title = "This is not a Phasebook label";
-    text = "The code does not have the shape of a Phasebook label code.";
   }
   return (
     <div className="mx-auto flex w-full max-w-md flex-col gap-3" data-testid="scan-problem-notice">
