@@ -158,7 +158,7 @@ describe("the Schedule seen from a browser in another time zone", () => {
     const memberApi = new ApiClient(server.url);
     await memberApi.login(MEMBER, "phasebook-demo");
     const mine = (await memberApi.get(`/api/bookings?mine=true&instrumentId=${chosen!.id}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`)).body
-      .items as { start: string; end: string }[];
+      .items as { id: number; start: string; end: string }[];
     expect(mine).toHaveLength(1);
     const expectedStart = DateTime.fromISO(`${tuesday}T14:00`, { zone: FACILITY_TZ });
     expect(new Date(mine[0]!.start).getTime()).toBe(expectedStart.toMillis());
@@ -170,6 +170,19 @@ describe("the Schedule seen from a browser in another time zone", () => {
     await row.first().waitFor();
     const short = expectedStart.setLocale("en-US").offsetNameShort!;
     expect(await row.first().textContent()).toMatch(new RegExp(`14:00 – 15:30 ${short}`));
+
+    // Cancelling asks first, in the page's own dialog: "Keep it" changes nothing, then it cancels.
+    const dialog = page.locator('[data-testid="confirm-dialog"]');
+    await row.first().getByRole("button", { name: "Cancel" }).click();
+    await dialog.waitFor();
+    expect(await page.locator("dialog[open]").textContent()).toContain(chosen!.name);
+    await page.click('[data-testid="confirm-dialog-keep"]');
+    await dialog.waitFor({ state: "hidden" });
+    expect((await memberApi.get(`/api/bookings/${mine[0]!.id}`)).body.booking.status).toBe("confirmed");
+    await row.first().getByRole("button", { name: "Cancel" }).click();
+    await page.click('[data-testid="confirm-dialog-go"]');
+    await expect.poll(() => page.getByText("Cancel: done.").count()).toBeGreaterThan(0);
+    await expect.poll(async () => (await memberApi.get(`/api/bookings/${mine[0]!.id}`)).body.booking.status).toBe("cancelled");
     await page.context().close();
   });
 });

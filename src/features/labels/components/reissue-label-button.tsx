@@ -9,7 +9,18 @@ import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
+import { useConfirm, type ConfirmOptions } from "@/components/ui/confirm-dialog";
 import { useReissueLabel } from "../api/scan-actions";
+
+/** What the person is asked before a new label replaces the one on the bottle or instrument. */
+export function reissueQuestion(type: LabelledTypeName): ConfirmOptions {
+  return {
+    title: "Issue a new label?",
+    description: `The label now on the ${type} stops working at once: scanning it will say it was replaced. Print the new label and put it on.`,
+    confirmLabel: "Issue a new label",
+    keepLabel: "Keep the old label",
+  };
+}
 
 interface ReissueLabelButtonProps {
   type: LabelledTypeName;
@@ -22,10 +33,11 @@ export function ReissueLabelButton({ type, id, onReissued }: ReissueLabelButtonP
   const [reason, setReason] = useState("");
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState(false);
+  const [confirmation, confirm] = useConfirm();
   const run = async () => {
     setError(null);
     setDone(false);
-    if (!window.confirm("Issue a new label? The label now on it will stop working.")) return;
+    if (!(await confirm(reissueQuestion(type)))) return;
     try {
       const r = await reissue.mutateAsync({ type, id, reason });
       setReason("");
@@ -37,6 +49,7 @@ export function ReissueLabelButton({ type, id, onReissued }: ReissueLabelButtonP
   };
   return (
     <div className="flex flex-col gap-2">
+      {confirmation}
       <div className="flex flex-wrap items-end gap-2">
         <Input label="Reason for a new label (optional)" value={reason} onChange={(e) => setReason(e.target.value)} maxLength={300} fieldClassName="w-72" />
         <Button variant="danger" onClick={run} loading={reissue.isPending} data-testid="reissue-label">Issue a new label</Button>

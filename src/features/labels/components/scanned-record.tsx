@@ -38,6 +38,8 @@ import { useScanAction, useReissueLabel } from "../api/scan-actions";
 import { useLocationChoices } from "../api/get-locations";
 import { labelsPdfHref } from "../api/get-label-stocks";
 import { NoteActionForm } from "./note-action-form";
+import { useConfirm } from "@/components/ui/confirm-dialog";
+import { reissueQuestion } from "./reissue-label-button";
 
 type ContainerScan = Extract<ScanResultDto, { type: "container" }>;
 type InstrumentScan = Extract<ScanResultDto, { type: "instrument" }>;
@@ -385,9 +387,10 @@ function LabelTools({ scan, token }: { scan: ScanResultDto; token: string }) {
   const [reason, setReason] = useState("");
   const [error, setError] = useState<string | null>(null);
   const href = labelsPdfHref(scan.type === "container" ? { containerIds: [scan.id] } : { instrumentIds: [scan.id] });
+  const [confirmation, confirm] = useConfirm();
   const doReissue = async () => {
     setError(null);
-    if (!window.confirm("Issue a new label? The label now on it will stop working.")) return;
+    if (!(await confirm(reissueQuestion(scan.type)))) return;
     try {
       const r = await reissue.mutateAsync({ type: scan.type, id: scan.id, reason });
       navigate(paths.scanToken.getHref(r.token), { replace: true, state: { reissued: true } });
@@ -398,6 +401,7 @@ function LabelTools({ scan, token }: { scan: ScanResultDto; token: string }) {
   return (
     <Section title="Label" testId="scan-label-tools">
       <div className="flex flex-col gap-2">
+        {confirmation}
         <a className={buttonClasses("secondary", "md", "self-start")} href={href} target="_blank" rel="noopener" data-testid="scan-print-label">
           Print this label (PDF)
         </a>

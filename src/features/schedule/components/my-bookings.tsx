@@ -16,6 +16,8 @@ import { TBody, THead, Table, Td, Th, Tr } from "@/components/ui/table";
 import { useBookings } from "../api/get-bookings";
 import { useBookingAction, type BookingAction } from "../api/booking-actions";
 import { useCalendarFeed, useRotateCalendarFeed } from "../api/calendar-feed";
+import { useBookingPolicy } from "../api/booking-policy";
+import { useConfirm } from "@/components/ui/confirm-dialog";
 import { StatusBadge } from "./booking-status";
 
 function actionsFor(b: BookingDto, now: number): { action: BookingAction; label: string }[] {
@@ -35,11 +37,34 @@ export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>
   const list = useBookings(tab === "upcoming" ? { mine: true, from: iso, limit: 200 } : { mine: true, to: iso, limit: 200 });
   const action = useBookingAction();
   const [message, setMessage] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
+  const policy = useBookingPolicy();
+  const [confirmation, confirm] = useConfirm();
   const items = (list.data?.items ?? []).filter((b): b is BookingDto => !b.busy);
   const sorted = tab === "upcoming" ? [...items].sort((a, b) => a.start.localeCompare(b.start)) : [...items].sort((a, b) => b.start.localeCompare(a.start));
 
   const run = async (b: BookingDto, a: BookingAction, label: string) => {
-    if (a === "cancel" && !window.confirm(`Cancel ${formatSpan(b.start, b.end, zone)}?`)) return;
+    if (a === "cancel") {
+      const lateHours = policy.data?.lateCancelHours;
+      const late = lateHours !== undefined && new Date(b.start).getTime() - Date.now() < lateHours * 3_600_000;
+      const sure = await confirm({
+        title: "Cancel this booking?",
+        description: (
+          <>
+            <p>
+              {formatSpan(b.start, b.end, zone)} on {b.instrumentIds.map((id) => names.get(id) ?? `#${id}`).join(" + ")}. The time goes back to the Schedule for others.
+            </p>
+            {late && (
+              <p className="mt-2 font-medium text-grey-900">
+                This is less than {lateHours} hours before the start: a late cancellation may be charged to {b.accountCode}.
+              </p>
+            )}
+          </>
+        ),
+        confirmLabel: "Cancel the booking",
+        keepLabel: "Keep it",
+      });
+      if (!sure) return;
+    }
     setMessage(null);
     try {
       const r = await action.mutateAsync({ id: b.id, action: a });
@@ -59,6 +84,7 @@ export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>
           </Button>
         ))}
       </div>
+      {confirmation}
       {message && <Alert tone={message.tone}>{message.text}</Alert>}
       {list.isPending && <LoadingLine label="Loading your bookings" />}
       {list.isError && <Alert tone="danger">{describeError(list.error)}</Alert>}

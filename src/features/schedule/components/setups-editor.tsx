@@ -16,6 +16,7 @@ import { FieldSet } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { LoadingLine } from "@/components/ui/spinner";
 import { TBody, THead, Table, Td, Th, Tr } from "@/components/ui/table";
+import { useConfirm } from "@/components/ui/confirm-dialog";
 import { useSetups } from "../api/get-schedule-data";
 import { useDeleteSetup, useSaveSetup } from "../api/setups";
 
@@ -27,9 +28,16 @@ export function SetupsEditor({ instruments }: { instruments: InstrumentDto[] }) 
   const [editing, setEditing] = useState<Editing>(null);
   const [msg, setMsg] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
   const names = new Map(instruments.map((i) => [i.id, i.name]));
+  const [confirmation, confirm] = useConfirm();
 
   const onDelete = async (s: SetupDto) => {
-    if (!window.confirm(`Remove the setup “${s.name}”? Bookings already made keep their instruments.`)) return;
+    const sure = await confirm({
+      title: `Remove the setup “${s.name}”?`,
+      description: "Bookings already made keep their instruments; the setup is no longer offered when booking.",
+      confirmLabel: "Remove the setup",
+      keepLabel: "Keep it",
+    });
+    if (!sure) return;
     setMsg(null);
     try {
       await remove.mutateAsync(s.id);
@@ -44,6 +52,7 @@ export function SetupsEditor({ instruments }: { instruments: InstrumentDto[] }) 
 
   return (
     <div className="flex flex-col gap-3" data-testid="setups-editor">
+      {confirmation}
       {msg && <Alert tone={msg.tone}>{msg.text}</Alert>}
       {setups.data.length === 0 ? (
         <EmptyState title="No setups yet">A setup lets people book a potentiostat and a cell in one step.</EmptyState>
