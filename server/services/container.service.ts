@@ -73,16 +73,16 @@ export function createContainerService(deps: ContainerServiceDeps) {
     if (q.locationId) {
       if (q.within === "true") {
         const ids = await descendantIds(ds.manager, q.locationId);
-        where.push(`c.locationId IN (${ids.map(() => "?").join(",")})`);
-        args.push(...ids);
+        where.push(`c.locationId IN (SELECT value FROM json_each(?))`);
+        args.push(JSON.stringify(ids));
       } else {
         where.push("c.locationId = ?");
         args.push(q.locationId);
       }
     }
     if (q.status?.length) {
-      where.push(`c.status IN (${q.status.map(() => "?").join(",")})`);
-      args.push(...q.status);
+      where.push(`c.status IN (SELECT value FROM json_each(?))`);
+      args.push(JSON.stringify(q.status));
     }
     if (q.kind) {
       where.push("c.kind = ?");
@@ -91,17 +91,17 @@ export function createContainerService(deps: ContainerServiceDeps) {
     if (q.q) {
       // Chemicals are few: find the matching ones first, then let the chemicalId index do the rest.
       const like = `%${q.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-      const chemIds = (
-        (await ds.query(
-          `SELECT id FROM chemicals WHERE name LIKE ? ESCAPE '\\' OR casNumber LIKE ? ESCAPE '\\' OR synonyms LIKE ? ESCAPE '\\' OR formula LIKE ? ESCAPE '\\'`,
-          [like, like, like, like],
-        )) as { id: number }[]
-      ).map((r) => r.id);
+      const chemIds = prepared(
+        ds,
+        `SELECT id FROM chemicals WHERE name LIKE ? ESCAPE '\\' OR casNumber LIKE ? ESCAPE '\\' OR synonyms LIKE ? ESCAPE '\\' OR formula LIKE ? ESCAPE '\\'`,
+      )
+        .all(like, like, like, like)
+        .map((r) => (r as { id: number }).id);
       const ors = ["c.lot = ?", "c.labelToken = ?"];
       const orArgs: unknown[] = [q.q, q.q];
       if (chemIds.length) {
-        ors.push(`c.chemicalId IN (${chemIds.map(() => "?").join(",")})`);
-        orArgs.push(...chemIds);
+        ors.push(`c.chemicalId IN (SELECT value FROM json_each(?))`);
+        orArgs.push(JSON.stringify(chemIds));
       }
       const asId = /^#?(\d{1,9})$/.exec(q.q);
       if (asId) {
@@ -114,13 +114,15 @@ export function createContainerService(deps: ContainerServiceDeps) {
     const whereSql = where.length ? `WHERE ${where.join(" AND ")}` : "";
     const dir = q.dir === "desc" ? "DESC" : "ASC";
     if (q.sort === "chemical" || q.sort === "location") return listByGroup(q.sort, whereSql, where, args, q, dir);
-    // The count needs no joins; only the page joins names, for its few rows.
-    const [{ n }] = (await ds.query(`SELECT COUNT(*) AS n FROM containers c ${whereSql}`, args)) as { n: number }[];
-    const items = (await ds.query(
-      `SELECT ${ROW_COLUMNS} ${ROW_FROM} ${whereSql} ORDER BY ${SORT_SQL[q.sort]} ${dir}, c.id ${dir} LIMIT ? OFFSET ?`,
-      [...args, q.limit, q.offset],
-    )) as ContainerRow[];
-    return { items, total: Number(n) };
+    // The count needs no joins; only the page joins names, for its few rows. Lists travel as JSON
+    // arrays, so each shape of search is one cached prepared statement.
+    const { n } = prepared(ds, `SELECT COUNT(*) AS n FROM containers c ${whereSql}`).get(...args) as { n: number };
+    const items = prepared(ds, `SELECT ${ROW_COLUMNS} ${ROW_FROM} ${whereSql} ORDER BY ${SORT_SQL[q.sort]} ${dir}, c.id ${dir} LIMIT ? OFFSET ?`).all(
+      ...args,
+      q.limit,
+      q.offset,
+    ) as ContainerRow[];
+    return { items, total: n };
   }
 
   /**
@@ -139,9 +141,16 @@ export function createContainerService(deps: ContainerServiceDeps) {
     dir: "ASC" | "DESC",
   ): Promise<{ items: ContainerRow[]; total: number }> {
     const key = by === "chemical" ? "c.chemicalId" : "c.locationId";
-    const groups = (await ds.query(`SELECT ${key} AS id, COUNT(*) AS n FROM containers c ${whereSql} GROUP BY ${key}`, args)) as { id: number | null; n: number }[];
+    const groups = prepared(ds, `SELECT ${key} AS id, COUNT(*) AS n FROM containers c ${whereSql} GROUP BY ${key}`).all(...args) as { id: number | null; n: number }[];
+    // Names of the matching groups only, in one prepared statement whatever their number.
+    const ids = groups.flatMap((g) => (g.id === null ? [] : [g.id]));
     const names = new Map(
-      ((await ds.query(`SELECT id, name FROM ${by === "chemical" ? "chemicals" : "locations"}`)) as { id: number; name: string }[]).map((r) => [r.id, r.name]),
+      (
+        prepared(ds, `SELECT id, name FROM ${by === "chemical" ? "chemicals" : "locations"} WHERE id IN (SELECT value FROM json_each(?))`).all(JSON.stringify(ids)) as {
+          id: number;
+          name: string;
+        }[]
+      ).map((r) => [r.id, r.name]),
     );
     const sign = dir === "DESC" ? -1 : 1;
     // SQLite sorts NULL first ascending; containers without a location do the same here.
@@ -160,12 +169,12 @@ export function createContainerService(deps: ContainerServiceDeps) {
       }
       const take = Math.min(n - skip, need);
       const groupWhere = `WHERE ${[...where, g.id === null ? `${key} IS NULL` : `${key} = ?`].join(" AND ")}`;
-      const rows = (await ds.query(`SELECT ${ROW_COLUMNS} ${ROW_FROM} ${groupWhere} ORDER BY c.id ${dir} LIMIT ? OFFSET ?`, [
+      const rows = prepared(ds, `SELECT ${ROW_COLUMNS} ${ROW_FROM} ${groupWhere} ORDER BY c.id ${dir} LIMIT ? OFFSET ?`).all(
         ...args,
         ...(g.id === null ? [] : [g.id]),
         take,
         skip,
-      ])) as ContainerRow[];
+      ) as ContainerRow[];
       items.push(...rows);
       need -= take;
       skip = 0;

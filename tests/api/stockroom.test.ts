@@ -332,6 +332,41 @@ describe("GET /api/containers sorted by chemical", () => {
   });
 });
 
+describe("GET /api/containers with text and filters together", () => {
+  it("returns exactly the containers that pass every filter, whatever the sort, and pages them", async () => {
+    const roomId = (await keeper.get(`/api/locations`)).body.items.find((l: { id: number }) => l.id === cabinetId).parentId as number;
+    await receive(licl.id, 500, "g", 2, roomId);
+    await receive(dce.id, 1, "L", 1, roomId);
+    const opened = (await receive(licl.id, 100, "g", 1))[0];
+    expect((await member.post(`/api/containers/${opened.id}/usage`, { amount: 1, unit: "g" })).status).toBe(200);
+    type Row = { id: number; chemicalName: string; status: string; locationId: number | null };
+    const everything = (await member.get(`/api/containers?limit=500`)).body.items as Row[];
+    const expected = (locations: number[]) =>
+      everything
+        .filter((c) => /lithium/i.test(c.chemicalName) && ["sealed", "in_use"].includes(c.status) && c.locationId !== null && locations.includes(c.locationId))
+        .map((c) => c.id)
+        .sort((a, b) => a - b);
+    const cases = [
+      { query: `locationId=${cabinetId}`, ids: expected([cabinetId]) },
+      { query: `locationId=${roomId}&within=true`, ids: expected([roomId, cabinetId]) },
+    ];
+    expect(cases[1].ids.length).toBeGreaterThan(cases[0].ids.length);
+    for (const { query, ids } of cases) {
+      for (const sort of ["id", "chemical", "location", "quantity"]) {
+        const r = await member.get(`/api/containers?q=LITHIUM&status=sealed,in_use&${query}&sort=${sort}&limit=500`);
+        expect(r.status).toBe(200);
+        expect(r.body.total, `${query} by ${sort}`).toBe(ids.length);
+        expect(r.body.items.map((c: Row) => c.id).sort((a: number, b: number) => a - b), `${query} by ${sort}`).toEqual(ids);
+        const paged: number[] = [];
+        for (let offset = 0; offset < ids.length; offset += 2) {
+          paged.push(...(await member.get(`/api/containers?q=LITHIUM&status=sealed,in_use&${query}&sort=${sort}&limit=2&offset=${offset}`)).body.items.map((c: Row) => c.id));
+        }
+        expect(paged, `${query} by ${sort}, page by page`).toEqual(r.body.items.map((c: Row) => c.id));
+      }
+    }
+  });
+});
+
 describe("POST /api/containers/:id/waste", () => {
   async function carboy(capacityL = 5) {
     const r = await keeper.post("/api/containers/receive", { chemicalId: dce.id, count: 1, quantity: capacityL, unit: "L", kind: "waste", locationId: cabinetId });
