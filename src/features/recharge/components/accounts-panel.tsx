@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Input } from "@/components/ui/input";
 import { Table, TBody, Td, Th, THead, Tr } from "@/components/ui/table";
-import { useAccounts, useAddAdjustment, useAddMember, useMembers, useRemoveMember, useUpdateMember } from "../api/recharge-api";
+import { useAccounts, useAddAdjustment, useAddMember, useMembers, useRemoveMember, useUpdateMember } from "../api/accounts";
 import { money, parseDollars } from "./money";
 
 export function AccountsPanel({ isManager }: { isManager: boolean }) {

@@ -10,7 +10,7 @@ import { Card } from "@/components/ui/card";
 import { Input } from "@/components/ui/input";
 import { Table, TBody, Td, Th, THead, TableMessage, Tr } from "@/components/ui/table";
 import { isApiError } from "@/lib/api-client";
-import { useFinaliseRun, usePreview, useRetryInvoices, useRun, useRuns, useVoidRun } from "../api/recharge-api";
+import { useFinaliseRun, usePreview, useRetryInvoices, useRun, useRuns, useVoidRun } from "../api/billing-runs";
 import { lastMonth, money } from "./money";
 
 const INVOICE_TONE: Record<string, BadgeTone> = { queued: "warning", open: "aqueous", paid: "ok", payment_failed: "danger", void: "neutral", none: "neutral" };

@@ -2,7 +2,7 @@
 import { PageHeader } from "@/components/ui/page-header";
 import { Table, TBody, Td, Th, THead, TableMessage, Tr } from "@/components/ui/table";
 import { formatDate } from "@/lib/format";
-import { useMyCharges } from "../api/recharge-api";
+import { useMyCharges } from "../api/spend-views";
 import { money } from "./money";
 
 export function MyCharges() {

@@ -13,7 +13,7 @@ import { Input, Select } from "@/components/ui/input";
 import { Table, TBody, Td, Th, THead, Tr } from "@/components/ui/table";
 import { api } from "@/lib/api-client";
 import { useQuery } from "@tanstack/react-query";
-import { useApplyRates, useReview } from "../api/recharge-api";
+import { useApplyRates, useReview } from "../api/rate-review";
 import { money, parseDollars } from "./money";
 
 interface Row {

@@ -9,7 +9,8 @@ import { Input, Select } from "@/components/ui/input";
 import { Table, TBody, Td, Th, THead, Tr } from "@/components/ui/table";
 import { humanize } from "@/lib/format";
 import { isApiError } from "@/lib/api-client";
-import { useCreateRate, useEndRate, usePolicy, useRates, useSavePolicy } from "../api/recharge-api";
+import { useCreateRate, useEndRate, useRates } from "../api/rates";
+import { usePolicy, useSavePolicy } from "../api/billing-policy";
 import { money, parseDollars } from "./money";
 
 export function RatesPanel({ canEdit }: { canEdit: boolean }) {

@@ -2,7 +2,7 @@
 import { Badge } from "@/components/ui/badge";
 import { Card } from "@/components/ui/card";
 import { Table, TBody, Td, Th, THead, TableMessage, Tr } from "@/components/ui/table";
-import { useOutstanding, useRevenue, useSpend } from "../api/recharge-api";
+import { useOutstanding, useRevenue, useSpend } from "../api/spend-views";
 import { money } from "./money";
 
 export function SpendView({ isManager }: { isManager: boolean }) {
