@@ -2,23 +2,25 @@
  * The figures on each role's start page: a member's next bookings, the manager's queue and
  * expiring training; the stockroom and safety work fill in their parts.
  */
+import type { BookingStatus } from "@shared/schemas/bookings";
+import type { DashboardDto } from "@shared/schemas/dashboard";
 import type { Ctx } from "../context";
 import type { AuthUser } from "../middleware/auth";
 import { safetyLocationTotals } from "./safety.service";
 
-export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager: boolean; safety: boolean }) {
+export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager: boolean; safety: boolean }): Promise<DashboardDto> {
   const now = ctx.now();
   const soon = new Date(now.getTime() + 30 * 24 * 3600 * 1000).toISOString();
   const today = now.toISOString().slice(0, 10);
   const one = async (sql: string, args: unknown[] = []) => Number((await ctx.ds.query(sql, args))[0]?.n ?? 0);
-  const next: { id: number; status: string; start: string; end: string; instruments: string | null }[] = await ctx.ds.query(
+  const next: { id: number; status: BookingStatus; start: string; end: string; instruments: string | null }[] = await ctx.ds.query(
     `SELECT b.id, b.status, b.startsAt AS start, b.endsAt AS "end",
             (SELECT group_concat(i.name, '|') FROM booking_instruments bi JOIN instruments i ON i.id = bi.instrumentId WHERE bi.bookingId = b.id) AS instruments
      FROM bookings b WHERE b.userId = ? AND b.status IN ('requested','confirmed','in_progress') AND b.endMs > ? ORDER BY b.startMs LIMIT 5`,
     [user.id, now.getTime()],
   );
   const nextBookings = next.map(({ instruments, ...b }) => ({ ...b, instrumentNames: (instruments ?? "").split("|").filter(Boolean).sort() }));
-  const out: Record<string, unknown> = { member: { nextBookings } };
+  const out: DashboardDto = { member: { nextBookings } };
   if (sections.manager) {
     out.manager = {
       pendingApprovals: await one(`SELECT COUNT(*) n FROM bookings WHERE status = 'requested' AND endMs > ?`, [now.getTime()]),

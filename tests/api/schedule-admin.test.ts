@@ -5,6 +5,7 @@ import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { makeAccount, makeInstrument, train } from "../support/schedule-factories";
 import type { User } from "../../server/entities";
+import { dashboardDto } from "@shared/schemas/dashboard";
 
 let t: TestApp;
 let member: User;
@@ -142,5 +143,14 @@ describe("GET /api/dashboard", () => {
     const mine = (await memberApi.get("/api/dashboard")).body.member.nextBookings;
     expect(mine[0]).toMatchObject({ id: b.body.booking.id, status: "requested", instrumentNames: [micro.name] });
     expect((await managerApi.get("/api/dashboard")).body.manager.pendingApprovals).toBe(before + 1);
+  });
+
+  it("answers in the shared schema, with the manager's and safety sections only for those roles", async () => {
+    const asMember = dashboardDto.parse((await memberApi.get("/api/dashboard")).body);
+    expect(asMember.manager).toBeUndefined();
+    expect(asMember.safety).toBeUndefined();
+    const asManager = dashboardDto.parse((await managerApi.get("/api/dashboard")).body);
+    expect(asManager.manager).toBeDefined();
+    expect(asManager.safety).toBeDefined();
   });
 });

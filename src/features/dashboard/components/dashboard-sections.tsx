@@ -6,7 +6,7 @@ import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { useFacilityZone } from "@/lib/facility";
 import { formatSpan, humanize } from "@/lib/format";
-import type { Dashboard, DashboardBooking } from "../api/get-dashboard";
+import type { DashboardBookingDto as DashboardBooking, DashboardDto as Dashboard } from "@shared/schemas/dashboard";
 import { Card } from "@/components/ui/card";
 import { Badge, type BadgeTone } from "@/components/ui/badge";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -142,6 +142,22 @@ export function SafetySection({ safety }: { safety: NonNullable<Dashboard["safet
           to={paths.safety.getHref()}
           linkText="Open Safety review"
           attention={{ tone: "danger", word: "Over limit" }}
+        />
+        <StatTile
+          testId="stat-expiring-soon"
+          label="Containers expiring within 30 days"
+          value={safety.expiringSoon}
+          to={paths.stockroom.getHref()}
+          linkText="Open the Stockroom"
+          attention={{ tone: "organic", word: "Expiring" }}
+        />
+        <StatTile
+          testId="stat-chemicals-on-hold"
+          label="Chemicals on hold"
+          value={safety.chemicalsOnHold}
+          to={paths.stockroom.getHref()}
+          linkText="Open the Stockroom"
+          attention={{ tone: "organic", word: "On hold" }}
         />
       </div>
     </section>
