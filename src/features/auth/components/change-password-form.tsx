@@ -3,12 +3,13 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
-import { PASSWORD_MIN, changePasswordInput } from "@shared/schemas/auth";
+import { changePasswordInput } from "@shared/schemas/auth";
 import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { useChangePassword } from "../api/change-password";
 import { Input } from "@/components/ui/input";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
+import { NewPasswordFields } from "./new-password-fields";
 
 const changeForm = changePasswordInput.extend({ repeatPassword: z.string() }).refine((v) => v.newPassword === v.repeatPassword, {
   path: ["repeatPassword"],
@@ -55,22 +56,10 @@ export function ChangePasswordForm() {
         error={errors.currentPassword?.message}
         {...register("currentPassword")}
       />
-      <Input
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        required
-        hint={`At least ${PASSWORD_MIN} characters.`}
-        error={errors.newPassword?.message}
-        {...register("newPassword")}
-      />
-      <Input
-        label="New password again"
-        type="password"
-        autoComplete="new-password"
-        required
-        error={errors.repeatPassword?.message}
-        {...register("repeatPassword")}
+      <NewPasswordFields
+        newPassword={register("newPassword")}
+        repeatPassword={register("repeatPassword")}
+        errors={{ newPassword: errors.newPassword?.message, repeatPassword: errors.repeatPassword?.message }}
       />
       <div>
         <Button type="submit" variant="primary" loading={change.isPending}>

@@ -4,12 +4,12 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Link } from "react-router-dom";
 import { z } from "zod";
-import { PASSWORD_MIN, resetConfirmInput } from "@shared/schemas/auth";
+import { resetConfirmInput } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
 import { isApiError } from "@/lib/api-client";
 import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { useConfirmPasswordReset } from "../api/confirm-password-reset";
-import { Input } from "@/components/ui/input";
+import { NewPasswordFields } from "./new-password-fields";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 
@@ -79,23 +79,11 @@ export function ResetPasswordForm({ token }: { token: string }) {
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Choose a new password">
       {linkError && <LinkProblem>{linkError}</LinkProblem>}
       {formError && <Alert tone="danger">{formError}</Alert>}
-      <Input
-        label="New password"
-        type="password"
-        autoComplete="new-password"
+      <NewPasswordFields
         autoFocus
-        required
-        hint={`At least ${PASSWORD_MIN} characters. A short sentence is easy to remember and hard to guess.`}
-        error={errors.newPassword?.message}
-        {...register("newPassword")}
-      />
-      <Input
-        label="New password again"
-        type="password"
-        autoComplete="new-password"
-        required
-        error={errors.repeatPassword?.message}
-        {...register("repeatPassword")}
+        newPassword={register("newPassword")}
+        repeatPassword={register("repeatPassword")}
+        errors={{ newPassword: errors.newPassword?.message, repeatPassword: errors.repeatPassword?.message }}
       />
       <Button type="submit" variant="primary" loading={confirm.isPending} className="w-full">
         Set new password
