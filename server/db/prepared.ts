@@ -4,7 +4,7 @@
  * entity hydration cost far more than the lookups themselves there. Statements are cached per
  * connection, so a data source that is destroyed and opened again prepares them afresh.
  */
-import type { DataSource } from "typeorm";
+import type { DataSource, EntityTarget, ObjectLiteral } from "typeorm";
 import type { Database, Statement } from "better-sqlite3";
 
 const cache = new WeakMap<Database, Map<string, Statement>>();
@@ -27,4 +27,28 @@ export function prepared(ds: DataSource, sql: string): Statement {
     stmts.set(sql, stmt);
   }
   return stmt;
+}
+
+const booleanColumnsOf = new WeakMap<object, string[]>();
+
+/**
+ * Rows read with a prepared statement, shaped as TypeORM would hydrate them: SQLite keeps
+ * booleans as 0/1, so the entity's boolean columns are turned back into true/false (every
+ * other column type we use — text, integer, real — reads back as it is).
+ */
+export function readEntities<T extends ObjectLiteral>(ds: DataSource, target: EntityTarget<T>, sql: string, ...args: unknown[]): T[] {
+  const meta = ds.getMetadata(target);
+  let booleans = booleanColumnsOf.get(meta);
+  if (!booleans) {
+    booleans = meta.columns.filter((c) => c.type === "boolean").map((c) => c.databaseName);
+    booleanColumnsOf.set(meta, booleans);
+  }
+  const rows = prepared(ds, sql).all(...args) as Record<string, unknown>[];
+  for (const row of rows) for (const col of booleans) if (row[col] !== null && row[col] !== undefined) row[col] = Boolean(row[col]);
+  return rows as T[];
+}
+
+/** The first row of readEntities, or undefined. */
+export function readEntity<T extends ObjectLiteral>(ds: DataSource, target: EntityTarget<T>, sql: string, ...args: unknown[]): T | undefined {
+  return readEntities(ds, target, sql, ...args)[0];
 }

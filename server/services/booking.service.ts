@@ -12,10 +12,10 @@ import { weeklyOccurrences } from "@shared/domain/recurrence";
 import type { BookingListQuery, BookingPolicy, CreateBookingParsed, MoveBookingInput, OccurrenceProblem } from "@shared/schemas/bookings";
 import { INSTRUMENT_STATUS_LABELS } from "@shared/schemas/instruments";
 import type { Config } from "../config";
-import { Account, AccountMember, Booking, Instrument, SetupInstrument, TrainingRecord, User, UserRole } from "../entities";
+import { Account, Booking, Instrument, SetupInstrument, TrainingRecord, User, UserRole } from "../entities";
 import { AppError, BadRequest, Conflict, Forbidden, NotFound, RuleBroken, type FieldError } from "../errors";
 import { serialTransaction } from "../db/serial";
-import { prepared } from "../db/prepared";
+import { prepared, readEntities, readEntity } from "../db/prepared";
 import { hasRole, type AuthUser } from "../middleware/auth";
 import { audit } from "./audit.service";
 import { enqueueMail } from "./mail.service";
@@ -111,7 +111,7 @@ export function createBookingService(deps: BookingServiceDeps) {
   const mailCtx = { publicUrl: deps.config.PUBLIC_URL, tz };
 
   async function instrumentsFor(em: EntityManager, ids: number[]): Promise<Instrument[]> {
-    const found = await em.findBy(Instrument, { id: In(ids) });
+    const found = readEntities(em.connection, Instrument, `SELECT * FROM instruments WHERE id IN (SELECT value FROM json_each(?))`, JSON.stringify(ids));
     const missing = ids.filter((id) => !found.some((i) => i.id === id));
     if (missing.length) {
       throw new RuleBroken(`Unknown instrument ${missing.join(", ")}.`, [{ path: "instrumentIds", message: `No instrument with id ${missing.join(", ")}` }], "unknown_instrument");
@@ -166,7 +166,13 @@ export function createBookingService(deps: BookingServiceDeps) {
     },
   ): Promise<Problem[][]> {
     const ids = opts.instruments.map((i) => i.id);
-    const training = await em.findBy(TrainingRecord, { userId: opts.ownerId, instrumentId: In(ids) });
+    const training = readEntities(
+      em.connection,
+      TrainingRecord,
+      `SELECT * FROM training_records WHERE userId = ? AND instrumentId IN (SELECT value FROM json_each(?))`,
+      opts.ownerId,
+      JSON.stringify(ids),
+    );
     const maxBuffer = Math.max(0, ...opts.instruments.map((i) => i.cleaningBufferMinutes)) * MINUTE_MS;
     const first = Math.min(...opts.sessions.map((s) => s.start.getTime()));
     const last = Math.max(...opts.sessions.map((s) => s.end.getTime()));
@@ -206,10 +212,10 @@ export function createBookingService(deps: BookingServiceDeps) {
   }
 
   async function mayCharge(em: EntityManager, actor: AuthUser, accountId: number, at: Date): Promise<Account> {
-    const account = await em.findOneBy(Account, { id: accountId });
+    const account = readEntity(em.connection, Account, `SELECT * FROM accounts WHERE id = ?`, accountId);
     if (!account) throw new RuleBroken("Unknown account.", [{ path: "accountId", message: "No such account" }], "unknown_account");
-    const member = await em.findOneBy(AccountMember, { accountId, userId: actor.id });
-    const allowed = hasRole(actor, "manager") || member !== null || account.ownerId === actor.id;
+    const member = prepared(em.connection, `SELECT 1 AS yes FROM account_members WHERE accountId = ? AND userId = ?`).get(accountId, actor.id) !== undefined;
+    const allowed = hasRole(actor, "manager") || member || account.ownerId === actor.id;
     if (!allowed) throw new Forbidden("You may not charge this account.", "account_not_allowed");
     const day = at.toISOString().slice(0, 10);
     if (!account.active || (account.validTo && account.validTo < day) || (account.validFrom && account.validFrom > day)) {

@@ -11,7 +11,7 @@ import { Booking, Chemical, Container, ContainerMovement, ContainerUsage, Locati
 import type { MovementKind } from "../entities/container-movement.entity";
 import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
-import { prepared } from "../db/prepared";
+import { prepared, readEntity } from "../db/prepared";
 import type { AuthUser } from "../middleware/auth";
 import { hasRole } from "../middleware/auth";
 import { locationPaths, type ContainerRow } from "../presenters/stock.presenter";
@@ -183,9 +183,9 @@ export function createContainerService(deps: ContainerServiceDeps) {
   }
 
   async function row(em: EntityManager, id: number): Promise<ContainerRow> {
-    const rows = (await em.query(`SELECT ${ROW_COLUMNS} ${ROW_FROM} WHERE c.id = ?`, [id])) as ContainerRow[];
-    if (!rows[0]) throw new NotFound("That container");
-    return rows[0];
+    const found = prepared(em.connection, `SELECT ${ROW_COLUMNS} ${ROW_FROM} WHERE c.id = ?`).get(id) as ContainerRow | undefined;
+    if (!found) throw new NotFound("That container");
+    return found;
   }
 
   async function detail(id: number) {
@@ -298,12 +298,13 @@ export function createContainerService(deps: ContainerServiceDeps) {
     opts: { bookingId?: number | null; note?: string; fields?: { amount: string; unit: string; container?: string } },
   ): Promise<Withdrawal> {
     const fields = { amount: "amount", unit: "unit", ...opts.fields };
-    const c = await em.findOneBy(Container, { id: containerId });
+    // Prepared reads on the transaction's connection: the usage is the Stockroom's hottest write.
+    const c = readEntity(em.connection, Container, `SELECT * FROM containers WHERE id = ?`, containerId);
     if (!c) {
       if (fields.container) throw new RuleBroken(`There is no container ${containerId}.`, [{ path: fields.container, message: "Choose an existing container." }], "unknown_container");
       throw new NotFound("That container");
     }
-    const chem = (await em.findOneBy(Chemical, { id: c.chemicalId }))!;
+    const chem = readEntity(em.connection, Chemical, `SELECT * FROM chemicals WHERE id = ?`, c.chemicalId)!;
     assertUsable(c, chem);
     let take: number;
     try {

@@ -57,7 +57,8 @@ export async function startServer(opts: { dir?: string; env?: Record<string, str
   });
   child.stdout!.on("data", (d) => (out += d));
   child.stderr!.on("data", (d) => (out += d));
-  const deadline = Date.now() + 60_000;
+  // Generous: a cold start compiles the server with tsx and seeds the demo (bcrypt), slow on a busy 2-core machine.
+  const deadline = Date.now() + 150_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`Phasebook exited early:\n${out}`);
     try {
