@@ -178,3 +178,29 @@ describe("logging a usage from a scanned container", () => {
   });
 });
 
+
+describe("a replaced label", () => {
+  it("tells the scanner that the label was replaced, and the new label opens the record", async () => {
+    const db = new Database(path.join(server.dir, "phasebook.sqlite"), { readonly: true });
+    const other = db
+      .prepare(`SELECT c.id, c.labelToken, ch.name FROM containers c JOIN chemicals ch ON ch.id = c.chemicalId WHERE c.id <> ? AND c.status IN ('sealed', 'in_use') AND c.groupId IS NULL ORDER BY c.id LIMIT 1`)
+      .get(bottle.id) as { id: number; labelToken: string; name: string };
+    db.close();
+    const safety = new ApiClient(server.url);
+    await safety.login("safety@kestrelbay.example", DEMO_PASSWORD);
+    const fresh = await safety.post(`/api/labels/container/${other.id}/reissue`, { reason: "Label smudged with DCE" });
+    expect(fresh.status).toBe(200);
+
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const page = await context.newPage();
+    try {
+      await signIn(page, server.url, MEMBER);
+      await page.goto(labelUrl(server.url, other.labelToken));
+      await expect.poll(() => page.locator('[data-testid="scan-problem-notice"]').textContent()).toMatch(/This label was replaced/);
+      await page.goto(fresh.body.url);
+      await expect.poll(() => recordName(page).textContent()).toBe(other.name);
+    } finally {
+      await context.close();
+    }
+  });
+});
