@@ -40,7 +40,8 @@ const SORT_SQL: Record<ContainerListQuery["sort"], string> = {
   chemical: "ch.name",
   quantity: "c.quantity",
   status: "c.status",
-  expiresAt: "c.expiresAt",
+  // Containers without a date come last either way: "soonest expiry first" must not open on them.
+  expiresAt: "c.expiresAt IS NULL, c.expiresAt",
   location: "l.name",
   lot: "c.lot",
 };

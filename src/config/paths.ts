@@ -22,7 +22,14 @@ export const paths = {
   instruments: { path: "/instruments", getHref: () => "/instruments" },
   instrument: { path: "/instruments/:id", getHref: (id: number) => `/instruments/${id}` },
   training: { path: "/training", getHref: () => "/training" },
-  stockroom: { path: "/stockroom", getHref: () => "/stockroom" },
+  /** The containers table, optionally opened on one status or sorted by expiry (start-page tiles link so). */
+  stockroom: {
+    path: "/stockroom",
+    getHref: (view: { status?: string; sort?: "expiresAt" } = {}) => {
+      const q = new URLSearchParams(Object.entries(view).filter((e): e is [string, string] => Boolean(e[1]))).toString();
+      return q ? `/stockroom?${q}` : "/stockroom";
+    },
+  },
   stockroomChemicals: { path: "/stockroom/chemicals", getHref: () => "/stockroom/chemicals" },
   chemical: { path: "/stockroom/chemicals/:id", getHref: (id: number) => `/stockroom/chemicals/${id}` },
   container: { path: "/stockroom/containers/:id", getHref: (id: number) => `/stockroom/containers/${id}` },

@@ -367,6 +367,23 @@ describe("GET /api/containers with text and filters together", () => {
   });
 });
 
+describe("GET /api/containers sorted by expiry", () => {
+  it("lists the soonest expiry first and containers without a date last, in either direction", async () => {
+    const dated = await keeper.post("/api/containers/receive", { chemicalId: licl.id, count: 1, quantity: 5, unit: "g", locationId: cabinetId, expiresAt: "2027-01-15" });
+    expect(dated.status, dated.text).toBe(201);
+    await receive(licl.id, 5, "g");
+    for (const dir of ["asc", "desc"]) {
+      const items = (await member.get(`/api/containers?sort=expiresAt&dir=${dir}&limit=500`)).body.items as { expiresAt: string | null }[];
+      const dates = items.map((c) => c.expiresAt);
+      const firstNull = dates.indexOf(null);
+      expect(firstNull, "some containers have no date").toBeGreaterThan(0);
+      expect(dates.slice(firstNull).every((d) => d === null), `${dir}: no dated container after an undated one`).toBe(true);
+      const known = dates.slice(0, firstNull) as string[];
+      expect(known).toEqual([...known].sort((a, b) => (dir === "asc" ? a.localeCompare(b) : b.localeCompare(a))));
+    }
+  });
+});
+
 describe("POST /api/containers/:id/waste", () => {
   async function carboy(capacityL = 5) {
     const r = await keeper.post("/api/containers/receive", { chemicalId: dce.id, count: 1, quantity: capacityL, unit: "L", kind: "waste", locationId: cabinetId });

@@ -142,6 +142,25 @@ describe("the Stockroom", () => {
     }
   }, 60_000);
 
+  it("opens the Stockroom on the containers on hold from the safety officer's start page", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    try {
+      await signIn(page, server.url, "safety@kestrelbay.example");
+      const tile = page.locator('[data-testid="stat-on-hold"]');
+      await tile.waitFor();
+      const onHold = Number(await tile.locator("p.text-2xl").textContent());
+      expect(onHold, "the demo holds containers on hold").toBeGreaterThan(0);
+      await tile.getByRole("link").click();
+      await page.waitForURL((u) => u.pathname === "/stockroom" && u.searchParams.get("status") === "on_hold");
+      await expect.poll(() => page.locator('[data-testid^="container-row-"]').count(), { timeout: 15_000 }).toBe(onHold);
+      const states = await page.locator('[data-testid^="container-row-"]').allTextContents();
+      expect(states.every((row) => /On hold/.test(row))).toBe(true);
+    } finally {
+      await context.close();
+    }
+  }, 60_000);
+
   it("shows the safety officer the demo's over-limit under-bench cabinet", async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();

@@ -1,11 +1,11 @@
 /** Stockroom: the containers table (default) and the chemicals table, with links to receive and prepare. */
-import { Link, NavLink } from "react-router-dom";
+import { Link, NavLink, useSearchParams } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
 import { cn } from "@/lib/cn";
 import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
-import { ContainersTable } from "@/features/stockroom/components/containers-table";
+import { ContainersTable, statusFromLink } from "@/features/stockroom/components/containers-table";
 import { ChemicalsTable } from "@/features/stockroom/components/chemicals-table";
 import { PrintLabelsButton } from "@/features/labels/components/print-labels-button";
 
@@ -48,10 +48,16 @@ export function StockroomRoute() {
   const { data: user } = useUser();
   // Label PDFs are the manager's and the safety officer's (GET /api/labels.pdf).
   const mayPrint = hasRole(user, "manager", "safety_officer");
+  const [params] = useSearchParams();
   return (
     <>
       <StockroomHeader />
-      <ContainersTable selectionActions={mayPrint ? printSelected : undefined} />
+      <ContainersTable
+        key={params.toString()}
+        selectionActions={mayPrint ? printSelected : undefined}
+        initialStatus={statusFromLink(params.get("status"))}
+        initialSort={params.get("sort") === "expiresAt" ? "expiresAt" : undefined}
+      />
     </>
   );
 }

@@ -123,16 +123,16 @@ export function SafetySection({ safety }: { safety: NonNullable<Dashboard["safet
           testId="stat-expired-containers"
           label="Containers past expiry or retest date"
           value={safety.expiredContainers}
-          to={paths.stockroom.getHref()}
-          linkText="Open the Stockroom"
+          to={paths.safety.getHref()}
+          linkText="See them in Safety review"
           attention={{ tone: "organic", word: "Expired" }}
         />
         <StatTile
           testId="stat-on-hold"
           label="Containers on hold"
           value={safety.onHold}
-          to={paths.stockroom.getHref()}
-          linkText="Open the Stockroom"
+          to={paths.stockroom.getHref({ status: "on_hold" })}
+          linkText="Show them in the Stockroom"
           attention={{ tone: "organic", word: "On hold" }}
         />
         <StatTile
@@ -147,16 +147,16 @@ export function SafetySection({ safety }: { safety: NonNullable<Dashboard["safet
           testId="stat-expiring-soon"
           label="Containers expiring within 30 days"
           value={safety.expiringSoon}
-          to={paths.stockroom.getHref()}
-          linkText="Open the Stockroom"
+          to={paths.stockroom.getHref({ sort: "expiresAt" })}
+          linkText="Stockroom, soonest expiry first"
           attention={{ tone: "organic", word: "Expiring" }}
         />
         <StatTile
           testId="stat-chemicals-on-hold"
           label="Chemicals on hold"
           value={safety.chemicalsOnHold}
-          to={paths.stockroom.getHref()}
-          linkText="Open the Stockroom"
+          to={paths.safety.getHref()}
+          linkText="See them in Safety review"
           attention={{ tone: "organic", word: "On hold" }}
         />
       </div>

@@ -44,17 +44,28 @@ const columns = [
   col.accessor("lot", { header: "Lot", cell: (c) => (c.row.original.kind === "solution" ? "–" : <span className="text-xs">{c.getValue()}</span>) }),
 ];
 
+const IN_STOCK = "sealed,in_use,on_hold";
+
+/** A status from a link, if it is one the Status filter offers; otherwise the default. */
+export function statusFromLink(value: string | null): string | undefined {
+  if (value === null) return undefined;
+  return value === "" || value === IN_STOCK || (CONTAINER_STATUSES as readonly string[]).includes(value) ? value : undefined;
+}
+
 interface ContainersTableProps {
   chemicalId?: number;
+  /** Where the table starts (e.g. from a link): a status filter and a sort column. */
+  initialStatus?: string;
+  initialSort?: (typeof CONTAINER_SORTS)[number];
   /** Actions on the selected containers' ids; without it the table has no selection column. */
   selectionActions?: (ids: number[]) => ReactNode;
 }
 
-export function ContainersTable({ chemicalId, selectionActions }: ContainersTableProps) {
+export function ContainersTable({ chemicalId, selectionActions, initialStatus, initialSort }: ContainersTableProps) {
   const [text, setText] = useState("");
-  const [status, setStatus] = useState("sealed,in_use,on_hold");
+  const [status, setStatus] = useState(initialStatus ?? IN_STOCK);
   const [locationId, setLocationId] = useState("");
-  const [sorting, setSorting] = useState<SortingState>([{ id: "chemical", desc: false }]);
+  const [sorting, setSorting] = useState<SortingState>([{ id: initialSort && SORTABLE.has(initialSort) ? initialSort : "chemical", desc: false }]);
   const [page, setPage] = useState(0);
   const locations = useLocations();
   const [selected, setSelected] = useState<ReadonlySet<number>>(new Set());
@@ -152,7 +163,7 @@ export function ContainersTable({ chemicalId, selectionActions }: ContainersTabl
           setPage(0);
         }} fieldClassName="w-72" data-testid="container-search" />
         <Select label="Status" value={status} onChange={(e) => { setStatus(e.target.value); setPage(0); }} fieldClassName="w-48">
-          <option value="sealed,in_use,on_hold">In stock (sealed, in use, on hold)</option>
+          <option value={IN_STOCK}>In stock (sealed, in use, on hold)</option>
           <option value="">Any status</option>
           {CONTAINER_STATUSES.map((s) => (
             <option key={s} value={s}>{CONTAINER_STATUS_LABELS[s]}</option>
