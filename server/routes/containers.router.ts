@@ -22,6 +22,7 @@ import {
   type WasteAddInput,
 } from "@shared/schemas/stock";
 import type { Ctx } from "../context";
+import { BENCH_ROLES } from "@shared/schemas/auth";
 import { currentUser, requireAuth, requireRole } from "../middleware/auth";
 import { body, params, query, validate } from "../middleware/validate";
 import { presentChemical, presentContainer } from "../presenters/stock.presenter";
@@ -88,7 +89,7 @@ export function createContainersRouter(ctx: Ctx): Router {
     });
   });
 
-  r.post("/:id/usage", requireAuth, validate({ params: idParam, body: usageInput }), async (req, res) => {
+  r.post("/:id/usage", requireRole(...BENCH_ROLES), validate({ params: idParam, body: usageInput }), async (req, res) => {
     const row = await containers.logUsage(currentUser(req), id(req), body<UsageInput>(req));
     res.json({ container: presentContainer(row) });
   });

@@ -4,6 +4,13 @@ export const ROLES = ["member", "group_lead", "manager", "safety_officer", "admi
 export const role = z.enum(ROLES);
 export type Role = z.infer<typeof role>;
 
+/**
+ * Who takes from the stock and weighs out solutions: members (API.md's "member" for usage and the
+ * solution plan), and the manager and safety officer, who also work at the bench. An
+ * administrator or a group lead without the member role does not.
+ */
+export const BENCH_ROLES = ["member", "manager", "safety_officer"] as const satisfies readonly Role[];
+
 export const ROLE_LABELS: Record<Role, string> = {
   member: "Member",
   group_lead: "Group lead",

@@ -89,18 +89,17 @@ export const ROLE_MATRIX: Record<string, Who> = {
   "POST /api/containers/receive": ["manager", "safety_officer"],
   "POST /api/containers/import": ["manager", "safety_officer"],
   "GET /api/containers/:id": SIGNED_IN,
-  // API.md says "member"; every signed-in role may log usage on purpose: a manager or safety officer
-  // also works at the bench (BRIEF: "a person can hold several roles"), and the scan quick action uses it.
-  "POST /api/containers/:id/usage": SIGNED_IN,
+  // API.md says "member"; the manager and the safety officer also work at the bench (BENCH_ROLES).
+  "POST /api/containers/:id/usage": ["member", "manager", "safety_officer"],
   "POST /api/containers/:id/move": SIGNED_IN,
   "POST /api/containers/:id/waste": SIGNED_IN,
   "POST /api/containers/:id/hold": ["manager", "safety_officer"],
   "POST /api/containers/:id/release": ["manager", "safety_officer"],
   "POST /api/containers/:id/empty": SIGNED_IN,
   "POST /api/containers/:id/dispose": ["manager", "safety_officer"],
-  // API.md says "member" for the plan too; as with usage, that means everyone who prepares a solution at the bench.
-  "POST /api/solutions/plan": SIGNED_IN,
-  "POST /api/solutions": SIGNED_IN,
+  // API.md says "member" for the plan too; as with usage, BENCH_ROLES.
+  "POST /api/solutions/plan": ["member", "manager", "safety_officer"],
+  "POST /api/solutions": ["member", "manager", "safety_officer"],
   "GET /api/locations": SIGNED_IN,
   "POST /api/locations": ["safety_officer", "manager"],
   "PATCH /api/locations/:id": ["safety_officer", "manager"],

@@ -8,6 +8,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { ContainersTable, statusFromLink } from "@/features/stockroom/components/containers-table";
 import { ChemicalsTable } from "@/features/stockroom/components/chemicals-table";
 import { PrintLabelsButton } from "@/features/labels/components/print-labels-button";
+import { BENCH_ROLES } from "@shared/schemas/auth";
 
 const printSelected = (ids: number[]) => <PrintLabelsButton containerIds={ids} label={`Print labels for ${ids.length} selected`} />;
 
@@ -20,7 +21,9 @@ function StockroomHeader() {
         description="Every container's quantity, place and state, and the chemicals with their hazard data."
         actions={
           <>
-            <Link to={paths.prepareSolution.getHref()} className={buttonClasses("primary")} data-testid="prepare-solution-link">Prepare a solution</Link>
+            {hasRole(user, ...BENCH_ROLES) && (
+              <Link to={paths.prepareSolution.getHref()} className={buttonClasses("primary")} data-testid="prepare-solution-link">Prepare a solution</Link>
+            )}
             {hasRole(user, "manager", "safety_officer") && (
               <>
                 <Link to={paths.receive.getHref()} className={buttonClasses("secondary")}>Receive a delivery</Link>

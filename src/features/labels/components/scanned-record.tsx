@@ -25,7 +25,7 @@ import {
 } from "@shared/schemas/labels";
 import type { UserDto } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
-import { hasRole } from "@/lib/auth";
+import { hasRole, useUser } from "@/lib/auth";
 import { isApiError } from "@/lib/api-client";
 import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { formatDate, formatDateTime, formatSpan, humanize } from "@/lib/format";
@@ -40,6 +40,7 @@ import { labelsPdfHref } from "../api/get-label-stocks";
 import { NoteActionForm } from "./note-action-form";
 import { useConfirm } from "@/components/ui/confirm-dialog";
 import { reissueQuestion } from "./reissue-label-button";
+import { BENCH_ROLES } from "@shared/schemas/auth";
 
 type ContainerScan = Extract<ScanResultDto, { type: "container" }>;
 type InstrumentScan = Extract<ScanResultDto, { type: "instrument" }>;
@@ -85,6 +86,8 @@ const UNITS = ["mg", "g", "kg", "µL", "mL", "L", "mmol", "mol"];
 
 function ContainerView({ scan }: { scan: ContainerScan }) {
   const r = scan.record;
+  const { data: user } = useUser();
+  const atBench = hasRole(user, ...BENCH_ROLES);
   const action = useScanAction();
   const finished = r.status === "empty" || r.status === "disposed";
   return (
@@ -132,7 +135,7 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
           </div>
         )}
       </Card>
-      {!finished && r.status !== "on_hold" && <UsageForm containerId={scan.id} defaultUnit={r.unit} waste={r.kind === "waste"} />}
+      {!finished && r.status !== "on_hold" && (r.kind === "waste" || atBench) && <UsageForm containerId={scan.id} defaultUnit={r.unit} waste={r.kind === "waste"} />}
       {r.mayHandle && !finished && (
         <Section title="Move to another place" testId="scan-move">
           <MoveForm containerId={scan.id} currentLocationId={r.locationId} />

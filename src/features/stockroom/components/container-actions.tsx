@@ -18,6 +18,7 @@ import { Input, Select } from "@/components/ui/input";
 import { useAddWaste, useEmptyContainer, useHoldContainer, useLogUsage, useMoveContainer, useReleaseContainer } from "../api/container-actions";
 import { useLocations } from "../api/get-locations";
 import { formatQuantity } from "./stock-format";
+import { BENCH_ROLES } from "@shared/schemas/auth";
 
 const usageForm = z.object({
   amount: z.coerce.number({ message: "Enter the amount as a number" }).positive("Enter an amount above zero").max(1e9, "That amount is too large"),
@@ -83,12 +84,15 @@ export function ContainerActions({ container }: { container: ContainerDto }) {
   const [reason, setReason] = useState("");
   const open = container.status === "sealed" || container.status === "in_use";
   const usable = open && !container.chemicalHoldReason && container.kind !== "waste";
+  const atBench = hasRole(user, ...BENCH_ROLES);
   const error = move.error ?? hold.error ?? release.error ?? empty.error;
 
   return (
     <Card title="Actions">
       <div className="flex flex-col gap-4">
-        {usable ? (
+        {usable && !atBench ? (
+          <p className="text-sm text-grey-600">Usage is logged by the people who work at the bench (members, the manager, the safety officer).</p>
+        ) : usable ? (
           <UsageForm container={container} />
         ) : container.kind === "waste" && open ? (
           <UsageForm container={container} waste />
