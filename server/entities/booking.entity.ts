@@ -42,3 +42,17 @@ export class Booking {
   @JoinColumn({ name: "accountId" })
   account?: unknown;
 }
+
+/** What a booking holds before anything has happened to it (no check-in, decision or cancellation). */
+export const UNTOUCHED_BOOKING = {
+  checkedInAt: null,
+  checkedOutAt: null,
+  seriesId: null,
+  declineReason: null,
+  cancelReason: null,
+  cancelledAt: null,
+  cancelledById: null,
+  lateCancel: false,
+  decidedById: null,
+  reminderSentAt: null,
+} as const satisfies Partial<Booking>;

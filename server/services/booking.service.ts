@@ -13,6 +13,7 @@ import type { BookingListQuery, BookingPolicy, CreateBookingParsed, MoveBookingI
 import { INSTRUMENT_STATUS_LABELS } from "@shared/schemas/instruments";
 import type { Config } from "../config";
 import { Account, Booking, Instrument, SetupInstrument, TrainingRecord, User, UserRole } from "../entities";
+import { UNTOUCHED_BOOKING } from "../entities/booking.entity";
 import { AppError, BadRequest, Conflict, Forbidden, NotFound, RuleBroken, type FieldError } from "../errors";
 import { serialTransaction } from "../db/serial";
 import { prepared, readEntities, readEntity } from "../db/prepared";
@@ -141,7 +142,7 @@ export function createBookingService(deps: BookingServiceDeps) {
   }
 
   /** Bookings holding a slot on these instruments near [fromMs, toMs), for the overlap check. */
-  async function holdersNear(em: EntityManager, instrumentIds: number[], fromMs: number, toMs: number, excludeId?: number) {
+  function holdersNear(em: EntityManager, instrumentIds: number[], fromMs: number, toMs: number, excludeId?: number) {
     const marks = instrumentIds.map(() => "?").join(",");
     // The booking's times are copied onto booking_instruments (see the entity), so this walks
     // each instrument's (instrumentId, startMs) index over the narrow window only; CROSS JOIN
@@ -176,7 +177,7 @@ export function createBookingService(deps: BookingServiceDeps) {
     const maxBuffer = Math.max(0, ...opts.instruments.map((i) => i.cleaningBufferMinutes)) * MINUTE_MS;
     const first = Math.min(...opts.sessions.map((s) => s.start.getTime()));
     const last = Math.max(...opts.sessions.map((s) => s.end.getTime()));
-    const holders = await holdersNear(em, ids, first - maxBuffer, last + maxBuffer, opts.excludeId);
+    const holders = holdersNear(em, ids, first - maxBuffer, last + maxBuffer, opts.excludeId);
     const many = opts.instruments.length > 1;
 
     return opts.sessions.map((s) => {
@@ -306,16 +307,8 @@ export function createBookingService(deps: BookingServiceDeps) {
             endsAt: s.end.toISOString(),
             startMs: s.start.getTime(),
             endMs: s.end.getTime(),
-            checkedInAt: null,
-            checkedOutAt: null,
+            ...UNTOUCHED_BOOKING,
             seriesId,
-            declineReason: null,
-            cancelReason: null,
-            cancelledAt: null,
-            cancelledById: null,
-            lateCancel: false,
-            decidedById: null,
-            reminderSentAt: null,
             createdAt: iso,
             updatedAt: iso,
           } as const;
@@ -404,7 +397,7 @@ export function createBookingService(deps: BookingServiceDeps) {
         if (booking.status !== "requested") throw new Conflict(`This booking is ${booking.status.replace("_", " ")}, not waiting for approval.`, "not_requested");
         if (booking.endMs <= now.getTime()) throw new RuleBroken("This booking is already over.", [{ path: "start", message: "The booking is in the past" }]);
         await instrumentsFor(em, instruments.map((i) => i.id));
-        const holders = await holdersNear(em, instruments.map((i) => i.id), booking.startMs - MAX_BOOKING_MS, booking.endMs + MAX_BOOKING_MS, booking.id);
+        const holders = holdersNear(em, instruments.map((i) => i.id), booking.startMs - MAX_BOOKING_MS, booking.endMs + MAX_BOOKING_MS, booking.id);
         const taken = instruments.filter(
           (i) => conflicts({ start: booking.startMs, end: booking.endMs }, i.cleaningBufferMinutes, holders.filter((h) => h.instrumentId === i.id)).length > 0,
         );

@@ -13,19 +13,11 @@
  * 10 g of solute per litre we flag the figure as approximate (Phasebook's threshold, not a
  * standard), because solute volume and volume changes on mixing are then no longer small.
  */
+import { InputRuleError } from "./input-rule-error";
 
 export type SolutionErrorCode = "invalid_number" | "purity_out_of_range" | "concentration_increase";
 
-export class SolutionError extends Error {
-  readonly code: SolutionErrorCode;
-  readonly field: string;
-  constructor(code: SolutionErrorCode, field: string, message: string) {
-    super(message);
-    this.name = "SolutionError";
-    this.code = code;
-    this.field = field;
-  }
-}
+export class SolutionError extends InputRuleError<SolutionErrorCode, string> {}
 
 /** Above this many grams of solute per litre the "solvent ≈ final volume" figure is flagged. */
 export const NEGLIGIBLE_SOLUTE_G_PER_L = 10;

@@ -7,6 +7,7 @@
  * Within a dimension the factors are exact powers of ten (SI prefixes), applied by
  * multiplying or dividing by 10ⁿ so that 1 mg is 0.001 g to the last bit.
  */
+import { InputRuleError } from "./input-rule-error";
 
 export type Dimension = "mass" | "volume" | "amount";
 export type Unit = "mg" | "g" | "kg" | "µL" | "mL" | "L" | "mmol" | "mol";
@@ -44,16 +45,7 @@ export const MAX_DENSITY_G_PER_ML = 25;
 export type UnitErrorCode = "unknown_unit" | "needs_density" | "needs_molar_mass" | "invalid_amount";
 export type UnitErrorField = "amount" | "from" | "to" | "densityGPerMl" | "molarMassGPerMol";
 
-export class UnitError extends Error {
-  readonly code: UnitErrorCode;
-  readonly field: UnitErrorField;
-  constructor(code: UnitErrorCode, field: UnitErrorField, message: string) {
-    super(message);
-    this.name = "UnitError";
-    this.code = code;
-    this.field = field;
-  }
-}
+export class UnitError extends InputRuleError<UnitErrorCode, UnitErrorField> {}
 
 // People type "uL" (no µ key), the Greek mu instead of the micro sign, or a lower-case l.
 const ALIASES: Readonly<Record<string, Unit>> = {

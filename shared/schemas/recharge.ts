@@ -242,14 +242,8 @@ export const billingRunDto = z.object({
 export type BillingRunDto = z.infer<typeof billingRunDto>;
 export const billingRunResponse = z.object({ run: billingRunDto });
 
-export const billingRunSummaryDto = z.object({
-  id: z.number().int(),
-  period: z.string(),
-  status: runStatus,
-  currency: z.string(),
-  total: amount,
-  createdAt: z.string(),
-  voidedAt: z.string().nullable(),
+/** A run in the list: the run without its statements, with counts instead. */
+export const billingRunSummaryDto = billingRunDto.omit({ statements: true, voidReason: true }).extend({
   statementCount: z.number().int(),
   /** How many statements of the run are in each invoice status (internal ones are left out). */
   invoices: z.record(z.string(), z.number().int()),

@@ -8,7 +8,7 @@
 import type { EntityManager } from "typeorm";
 import { DateTime } from "luxon";
 import { Booking, BookingInstrument, Setup, SetupInstrument } from "../../entities";
-import type { BookingStatus } from "../../entities/booking.entity";
+import { UNTOUCHED_BOOKING, type BookingStatus } from "../../entities/booking.entity";
 import { audit } from "../../services/audit.service";
 import type { InstrumentKey } from "./demo-instruments";
 import type { PersonKey } from "./demo-people";
@@ -102,16 +102,7 @@ export async function seedDemoBookings(em: EntityManager, refs: DemoBookingRefs)
       endsAt: iso(row.end),
       startMs: row.start,
       endMs: row.end,
-      checkedInAt: null,
-      checkedOutAt: null,
-      seriesId: null,
-      declineReason: null,
-      cancelReason: null,
-      cancelledAt: null,
-      cancelledById: null,
-      lateCancel: false,
-      decidedById: null,
-      reminderSentAt: null,
+      ...UNTOUCHED_BOOKING,
       createdAt: iso(Math.min(row.start, nowMs) - 5 * 86_400_000),
       updatedAt: iso(Math.min(row.end, nowMs)),
       ...row.extra,

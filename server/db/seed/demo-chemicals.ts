@@ -60,6 +60,20 @@ const fromFormula = (formula: string) => ({ formula, molarMass: molarMassFromFor
  * bottle form's molar mass, not the bare salt's (685.97 g/mol), or the concentration comes
  * out about 27 % high. The demo's (invented) certificate of analysis says x = 2.5.
  */
+/** Sodium and potassium chloride: not hazardous under GHS on suppliers' safety data sheets (from memory). */
+const HARMLESS_SALT = {
+  hazardStatements: [],
+  pictograms: [],
+  signalWord: null,
+  precautions: "",
+  flashPointC: null,
+  boilingPointC: null,
+  densityGPerMl: null,
+  carcinogen: false,
+  acuteToxic: false,
+  storageGroup: "Inorganic salts",
+} as const satisfies Partial<DemoChemical>;
+
 const LITPFB_SALT = "LiB(C6F5)4";
 const LITPFB_BOTTLE_FORM = "LiB(C6F5)4·2.5(C2H5)2O";
 
@@ -115,17 +129,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
     synonyms: ["NaCl"],
     casNumber: "7647-14-5",
     ...fromFormula("NaCl"),
-    // Not a hazardous substance under GHS on suppliers' safety data sheets (from memory).
-    hazardStatements: [],
-    pictograms: [],
-    signalWord: null,
-    precautions: "",
-    flashPointC: null,
-    boilingPointC: null,
-    densityGPerMl: null,
-    carcinogen: false,
-    acuteToxic: false,
-    storageGroup: "Inorganic salts",
+    ...HARMLESS_SALT,
     reorderPoint: 100,
     reorderUnit: "g",
     unitCostCents: 8,
@@ -137,17 +141,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
     synonyms: ["KCl"],
     casNumber: "7447-40-7",
     ...fromFormula("KCl"),
-    // Not a hazardous substance under GHS on suppliers' safety data sheets (from memory).
-    hazardStatements: [],
-    pictograms: [],
-    signalWord: null,
-    precautions: "",
-    flashPointC: null,
-    boilingPointC: null,
-    densityGPerMl: null,
-    carcinogen: false,
-    acuteToxic: false,
-    storageGroup: "Inorganic salts",
+    ...HARMLESS_SALT,
     reorderPoint: 100,
     reorderUnit: "g",
     unitCostCents: 9,

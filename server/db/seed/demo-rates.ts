@@ -10,6 +10,7 @@ import { DateTime } from "luxon";
 import type { CustomerClass } from "../../entities/account.entity";
 import type { InstrumentKind } from "../../entities/instrument.entity";
 import { Account, Booking, BookingInstrument, Instrument, Rate, Setting, User } from "../../entities";
+import { UNTOUCHED_BOOKING } from "../../entities/booking.entity";
 import { BILLING_POLICY_KEY } from "../../services/billing-policy";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
 
@@ -125,16 +126,9 @@ async function seedBillingHistory(em: EntityManager, local: DateTime, nowIso: st
       endsAt: end.toUTC().toISO()!,
       startMs: start.toMillis(),
       endMs: end.toMillis(),
+      ...UNTOUCHED_BOOKING,
       checkedInAt: checkedIn,
       checkedOutAt: checkedOut,
-      seriesId: null,
-      declineReason: null,
-      cancelReason: null,
-      cancelledAt: null,
-      cancelledById: null,
-      lateCancel: false,
-      decidedById: null,
-      reminderSentAt: null,
       createdAt: start.minus({ days: 7 }).toUTC().toISO()!,
       updatedAt: nowIso,
     });

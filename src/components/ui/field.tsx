@@ -33,13 +33,22 @@ export function Field({ id, label, hint, error, required, className, children }:
         )}
       </label>
       {children}
+      <HintOrError id={id} hint={hint} error={error} />
+    </div>
+  );
+}
+
+/** Under a control: the hint, or the error in its place once there is one (ids match describedBy). */
+function HintOrError({ id, hint, error }: { id: string; hint?: ReactNode; error?: string }) {
+  return (
+    <>
       {hint && !error && (
         <p id={`${id}-hint`} className="text-xs text-grey-600">
           {hint}
         </p>
       )}
       <FieldError id={`${id}-error`} message={error} />
-    </div>
+    </>
   );
 }
 
@@ -74,12 +83,7 @@ export function FieldSet({ legend, hint, error, id, className, children }: Field
     >
       <legend className="mb-1 text-xs font-medium text-grey-700">{legend}</legend>
       {children}
-      {hint && !error && (
-        <p id={`${id}-hint`} className="text-xs text-grey-600">
-          {hint}
-        </p>
-      )}
-      <FieldError id={`${id}-error`} message={error} />
+      <HintOrError id={id} hint={hint} error={error} />
     </fieldset>
   );
 }

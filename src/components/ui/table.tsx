@@ -5,6 +5,7 @@
 import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
 import { flexRender, type Table as DataTable } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
+import { Button } from "./button";
 
 export function Table({ className, children, caption }: { className?: string; children: ReactNode; caption?: ReactNode }) {
   return (
@@ -104,5 +105,22 @@ export function HeaderRows<T>({ table, isSortable }: { table: DataTable<T>; isSo
         </tr>
       ))}
     </>
+  );
+}
+
+/** "51–100 of 420" with Previous and Next, for a table paged on the server. */
+export function Pager({ page, pageSize, total, onPage, nothing }: { page: number; pageSize: number; total: number; onPage: (page: number) => void; nothing: string }) {
+  return (
+    <div className="flex items-center justify-between text-xs text-grey-600">
+      <span aria-live="polite">{total === 0 ? nothing : `${page * pageSize + 1}–${Math.min(total, (page + 1) * pageSize)} of ${total}`}</span>
+      <div className="flex gap-2">
+        <Button size="sm" disabled={page === 0} onClick={() => onPage(page - 1)}>
+          Previous
+        </Button>
+        <Button size="sm" disabled={(page + 1) * pageSize >= total} onClick={() => onPage(page + 1)}>
+          Next
+        </Button>
+      </div>
+    </div>
   );
 }

@@ -8,9 +8,8 @@ import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
-import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
-import { HeaderRows, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
+import { HeaderRows, Pager, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
 import { useChemicals } from "../api/get-chemicals";
 
 const PAGE = 50;
@@ -101,13 +100,7 @@ export function ChemicalsTable() {
           ))}
         </TBody>
       </Table>
-      <div className="flex items-center justify-between text-xs text-grey-600">
-        <span>{total === 0 ? "No chemicals" : `${page * PAGE + 1}–${Math.min(total, (page + 1) * PAGE)} of ${total}`}</span>
-        <div className="flex gap-2">
-          <Button size="sm" disabled={page === 0} onClick={() => setPage((p) => p - 1)}>Previous</Button>
-          <Button size="sm" disabled={(page + 1) * PAGE >= total} onClick={() => setPage((p) => p + 1)}>Next</Button>
-        </div>
-      </div>
+      <Pager page={page} pageSize={PAGE} total={total} onPage={setPage} nothing="No chemicals" />
     </div>
   );
 }

@@ -15,7 +15,7 @@ import { formatDate } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/input";
-import { HeaderRows, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
+import { HeaderRows, Pager, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
 import { useContainers } from "../api/get-containers";
 import { useLocations } from "../api/get-locations";
 import { StatusBadge, formatQuantity } from "./stock-format";
@@ -203,15 +203,7 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
           ))}
         </TBody>
       </Table>
-      <div className="flex items-center justify-between text-xs text-grey-600">
-        <span aria-live="polite">
-          {total === 0 ? "No containers" : `${page * PAGE + 1}–${Math.min(total, (page + 1) * PAGE)} of ${total}`}
-        </span>
-        <div className="flex gap-2">
-          <Button size="sm" disabled={page === 0} onClick={() => setPage((p) => p - 1)}>Previous</Button>
-          <Button size="sm" disabled={(page + 1) * PAGE >= total} onClick={() => setPage((p) => p + 1)}>Next</Button>
-        </div>
-      </div>
+      <Pager page={page} pageSize={PAGE} total={total} onPage={setPage} nothing="No containers" />
     </div>
   );
 }
