@@ -165,7 +165,8 @@ function stockroomScenarios(list: BenchScenario[]): Scenario[] {
 
 async function seedBench(dir: string) {
   const { openDatabase } = await import("../server/db/data-source");
-  const { hashPassword, newToken } = await import("../server/services/user.service");
+  const { hashPassword } = await import("../server/services/user.service");
+  const { newToken } = await import("../server/core/tokens");
   const ds = await openDatabase(path.join(dir, "bench.sqlite"));
   const db = (ds.driver as unknown as { databaseConnection: import("better-sqlite3").Database }).databaseConnection;
   const now = new Date().toISOString();

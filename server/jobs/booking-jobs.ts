@@ -8,7 +8,7 @@ import type { DataSource } from "typeorm";
 import type { Config } from "../config";
 import { serialTransaction } from "../db/serial";
 import { Booking, TrainingRecord } from "../entities";
-import { enqueueMail } from "../services/mail.service";
+import { enqueueMail } from "../core/outbox";
 import { createBookingService } from "../services/booking.service";
 import { readBookingPolicy } from "../services/booking-policy";
 import { reminderMail, trainingExpiringMail } from "../services/booking-mail";

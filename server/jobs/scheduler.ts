@@ -7,7 +7,7 @@ import type Stripe from "stripe";
 import type { Clock } from "../clock";
 import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
-import { deliverDueMail } from "../services/mail.service";
+import { deliverDueMail } from "../core/outbox";
 import { runStockAlerts } from "../services/stock-alerts.service";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
 import { processDueInvoices } from "../services/invoicing.service";

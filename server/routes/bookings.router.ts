@@ -21,7 +21,7 @@ import { serialTransaction } from "../db/serial";
 import { canSeeInFull, presentBooking, presentBookings } from "../presenters/booking.presenter";
 import { bookingIcs } from "../services/calendar.service";
 import { writeBookingPolicy } from "../services/booking-policy";
-import { audit } from "../services/audit.service";
+import { audit } from "../core/audit";
 
 export function createBookingsRouter(ctx: Ctx): Router {
   const r = Router();

@@ -5,8 +5,8 @@ import { currentUser, requireAuth } from "../middleware/auth";
 import { NotFound } from "../errors";
 import { User } from "../entities";
 import { serialTransaction } from "../db/serial";
-import { audit } from "../services/audit.service";
-import { newToken } from "../services/user.service";
+import { audit } from "../core/audit";
+import { newToken } from "../core/tokens";
 import { feedForToken } from "../services/calendar.service";
 
 export function createCalendarRouter(ctx: Ctx): Router {

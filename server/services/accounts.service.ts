@@ -18,7 +18,7 @@ import { Account, AccountMember, BillingAdjustment, BillingRun, User } from "../
 import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import { type AuthUser, hasRole } from "../middleware/auth";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 
 export interface AccountsDeps {
   ds: DataSource;

@@ -18,8 +18,8 @@ import { AppError, BadRequest, Conflict, Forbidden, NotFound, RuleBroken, type F
 import { serialTransaction } from "../db/serial";
 import { prepared, readEntities, readEntity } from "../db/prepared";
 import { hasRole, type AuthUser } from "../middleware/auth";
-import { audit } from "./audit.service";
-import { enqueueMail } from "./mail.service";
+import { audit } from "../core/audit";
+import { enqueueMail } from "../core/outbox";
 import { readBookingPolicy } from "./booking-policy";
 import * as mail from "./booking-mail";
 

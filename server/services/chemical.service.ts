@@ -14,7 +14,7 @@ import type { ChemicalInput, ChemicalListQuery, ChemicalUpdate } from "@shared/s
 import { Chemical } from "../entities";
 import { Conflict, NotFound, RuleBroken, type FieldError } from "../errors";
 import { serialTransaction } from "../db/serial";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 
 export interface ChemicalServiceDeps {
   ds: DataSource;

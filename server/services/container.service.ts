@@ -15,8 +15,8 @@ import { prepared, readEntity } from "../db/prepared";
 import type { AuthUser } from "../middleware/auth";
 import { hasRole } from "../middleware/auth";
 import { locationPaths, type ContainerRow } from "../presenters/stock.presenter";
-import { audit } from "./audit.service";
-import { newToken } from "./user.service";
+import { audit } from "../core/audit";
+import { newToken } from "../core/tokens";
 
 export interface ContainerServiceDeps {
   ds: DataSource;

@@ -12,9 +12,9 @@ import { Instrument } from "../entities";
 import { NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import type { AuthUser } from "../middleware/auth";
-import { audit } from "./audit.service";
-import { enqueueMail } from "./mail.service";
-import { newToken } from "./user.service";
+import { audit } from "../core/audit";
+import { enqueueMail } from "../core/outbox";
+import { newToken } from "../core/tokens";
 import { outOfServiceMail } from "./booking-mail";
 
 type InstrumentInput = z.output<typeof instrumentInput>;

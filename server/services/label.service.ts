@@ -27,8 +27,8 @@ import { AuditEntry, Chemical, Container, Instrument, LabelHistory, LabelStock, 
 import { AppError, NotFound, RuleBroken } from "../errors";
 import { hasRole, type AuthUser } from "../middleware/auth";
 import { serialTransaction } from "../db/serial";
-import { newToken } from "./user.service";
-import { audit } from "./audit.service";
+import { newToken } from "../core/tokens";
+import { audit } from "../core/audit";
 import { renderLabelsPdf, type LabelContent } from "./label-pdf";
 
 export interface LabelServiceDeps {

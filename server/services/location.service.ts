@@ -8,7 +8,7 @@ import type { LocationInput, LocationUpdate } from "@shared/schemas/stock";
 import { Location } from "../entities";
 import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 
 const LEVEL_ORDER = { building: 0, room: 1, cabinet: 2, shelf: 3 } as const;
 

@@ -22,7 +22,7 @@ import { Instrument, Rate } from "../entities";
 import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import type { AuthUser } from "../middleware/auth";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 import { toRateEntry } from "./billing-compute";
 import { readBillingPolicy, writeBillingPolicy } from "./billing-policy";
 

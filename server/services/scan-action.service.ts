@@ -12,8 +12,8 @@ import { Chemical, Container, Instrument, Location, User, UserRole } from "../en
 import { Conflict, Forbidden, NotFound, RuleBroken } from "../errors";
 import { hasRole, type AuthUser } from "../middleware/auth";
 import { serialTransaction } from "../db/serial";
-import { audit } from "./audit.service";
-import { enqueueMail } from "./mail.service";
+import { audit } from "../core/audit";
+import { enqueueMail } from "../core/outbox";
 import { mayHandleContainer } from "./label.service";
 
 export interface ScanActionDeps {

@@ -14,7 +14,7 @@ import type { SdsDto } from "@shared/schemas/stock";
 import { Chemical, SafetyDataSheet } from "../entities";
 import { AppError, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 import { facilityToday, sdsReviewMonths } from "./safety.service";
 
 // The limit is shared with the upload form, which checks it before sending.

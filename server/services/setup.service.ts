@@ -5,7 +5,7 @@ import { Instrument, Setup, SetupInstrument } from "../entities";
 import { NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import type { AuthUser } from "../middleware/auth";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 
 type Parsed = SetupParsed;
 

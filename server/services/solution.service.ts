@@ -13,8 +13,8 @@ import { RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import type { AuthUser } from "../middleware/auth";
 import type { ContainerService } from "./container.service";
-import { audit } from "./audit.service";
-import { newToken } from "./user.service";
+import { audit } from "../core/audit";
+import { newToken } from "../core/tokens";
 
 export interface SolutionServiceDeps {
   ds: DataSource;

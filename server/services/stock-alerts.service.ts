@@ -11,7 +11,7 @@ import { convertAmount, UnitError } from "@shared/domain/units";
 import { Chemical, StockAlert } from "../entities";
 import type { StockAlertKind } from "../entities/stock-alert.entity";
 import { serialTransaction } from "../db/serial";
-import { enqueueMail } from "./mail.service";
+import { enqueueMail } from "../core/outbox";
 import { facilityToday, safetyLocationTotals } from "./safety.service";
 
 export const EXPIRY_WARNING_DAYS = 30;

@@ -13,10 +13,10 @@ import { chemicalInput, CONTAINER_STATUS_LABELS, type ChemicalDto, type Containe
 import { Chemical, Container, Location } from "../entities";
 import { RuleBroken, type FieldError } from "../errors";
 import { serialTransaction } from "../db/serial";
-import { audit } from "./audit.service";
+import { audit } from "../core/audit";
 import { checkChemicalInput, type ChemicalService } from "./chemical.service";
 import type { ContainerService } from "./container.service";
-import { newToken } from "./user.service";
+import { newToken } from "../core/tokens";
 import { locationPaths } from "../presenters/stock.presenter";
 
 export const IMPORT_MAX_ROWS = 20_000;

@@ -9,8 +9,8 @@ import { Instrument, TrainingRecord, TrainingRequest, User } from "../entities";
 import { Conflict, NotFound, RuleBroken } from "../errors";
 import { serialTransaction } from "../db/serial";
 import { hasRole, type AuthUser } from "../middleware/auth";
-import { audit } from "./audit.service";
-import { enqueueMail } from "./mail.service";
+import { audit } from "../core/audit";
+import { enqueueMail } from "../core/outbox";
 
 const DAY_MS = 24 * 3600 * 1000;
 

@@ -10,10 +10,11 @@ import type { CreateUserInput, UpdateUserInput, UserListQuery } from "@shared/sc
 import { PasswordReset, User, UserRole } from "../entities";
 import { Conflict, NotFound, RuleBroken } from "../errors";
 import { endSessionsOf } from "../auth/session-store";
-import { audit } from "./audit.service";
-import { enqueueMail } from "./mail.service";
+import { audit } from "../core/audit";
+import { enqueueMail } from "../core/outbox";
 import { serialTransaction } from "../db/serial";
 import { prepared } from "../db/prepared";
+import { newToken } from "../core/tokens";
 import type { AuthUser } from "../middleware/auth";
 
 /** bcrypt cost; 10 or more as the foundation asks, 12 is common practice for interactive sign-in. */
@@ -32,10 +33,6 @@ export interface UserServiceDeps {
 
 export function hashPassword(password: string, cost = BCRYPT_COST): Promise<string> {
   return bcrypt.hash(password, cost);
-}
-
-export function newToken(bytes = 32): string {
-  return crypto.randomBytes(bytes).toString("base64url");
 }
 
 function sha256(s: string): string {

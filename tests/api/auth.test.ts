@@ -3,7 +3,7 @@ import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { OutboundMail } from "../../server/entities";
-import { deliverDueMail } from "../../server/services/mail.service";
+import { deliverDueMail } from "../../server/core/outbox";
 
 let t: TestApp;
 beforeAll(async () => {

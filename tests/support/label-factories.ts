@@ -1,7 +1,7 @@
 /** Records the label and scan tests need: places, a chemical, containers, instruments, a booking. */
 import type { DataSource } from "typeorm";
 import { Account, Booking, BookingInstrument, Chemical, Container, Department, Instrument, Location, ResearchGroup } from "../../server/entities";
-import { newToken } from "../../server/services/user.service";
+import { newToken } from "../../server/core/tokens";
 
 let seq = 0;
 const stamp = "2026-11-01T12:00:00.000Z";

@@ -1,7 +1,7 @@
 /** Factories for Schedule tests: instruments with rules, accounts with members, training records. */
 import type { DataSource } from "typeorm";
 import { Account, AccountMember, Instrument, TrainingRecord } from "../../server/entities";
-import { newToken } from "../../server/services/user.service";
+import { newToken } from "../../server/core/tokens";
 
 let seq = 0;
 

@@ -17,7 +17,7 @@ import {
   type QrEcLevel,
 } from "@shared/domain/labels";
 import { labelQr } from "../../server/services/label-pdf";
-import { newToken } from "../../server/services/user.service";
+import { newToken } from "../../server/core/tokens";
 import { decode, rasterise } from "../support/qr-raster";
 
 const bytes = (s: string) => [{ data: new TextEncoder().encode(s), mode: "byte" as const }];

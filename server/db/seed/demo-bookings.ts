@@ -9,7 +9,7 @@ import type { EntityManager } from "typeorm";
 import { DateTime } from "luxon";
 import { Booking, BookingInstrument, Setup, SetupInstrument } from "../../entities";
 import { UNTOUCHED_BOOKING, type BookingStatus } from "../../entities/booking.entity";
-import { audit } from "../../services/audit.service";
+import { audit } from "../../core/audit";
 import type { InstrumentKey } from "./demo-instruments";
 import type { PersonKey } from "./demo-people";
 

@@ -24,8 +24,9 @@ import {
   User,
   UserRole,
 } from "../../entities";
-import { audit } from "../../services/audit.service";
-import { hashPassword, newToken } from "../../services/user.service";
+import { audit } from "../../core/audit";
+import { hashPassword } from "../../services/user.service";
+import { newToken } from "../../core/tokens";
 import { DEMO_ACCOUNTS } from "./demo-accounts";
 import { seedDemoBookings } from "./demo-bookings";
 import { type ChemicalKey, DEMO_CHEMICALS } from "./demo-chemicals";
