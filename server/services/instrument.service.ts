@@ -5,7 +5,7 @@
  */
 import type { DataSource } from "typeorm";
 import { validateBookableHours } from "@shared/domain/booking-rules";
-import { INSTRUMENT_STATUS_LABELS, type InstrumentPatch } from "@shared/schemas/instruments";
+import { INSTRUMENT_STATUS_LABELS, type InstrumentPatchParsed as InstrumentPatch } from "@shared/schemas/instruments";
 import type { z } from "zod";
 import type { instrumentInput } from "@shared/schemas/instruments";
 import { Instrument } from "../entities";

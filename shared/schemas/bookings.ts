@@ -1,6 +1,6 @@
 /** Bookings on the Schedule: inputs, queries and DTOs shared by the booking form and the API. */
 import { z } from "zod";
-import { isoDateTime, pageQuery } from "./common";
+import { isoDateTime, pageQuery, id as idSchema, wholeNumber } from "./common";
 import { MAX_WEEKLY_OCCURRENCES } from "../domain/recurrence";
 
 export const BOOKING_STATUSES = ["requested", "confirmed", "declined", "cancelled", "in_progress", "completed", "no_show"] as const;
@@ -18,7 +18,7 @@ export const BOOKING_STATUS_LABELS: Record<BookingStatus, string> = {
   no_show: "No-show",
 };
 
-const id = z.coerce.number().int().positive();
+const id = idSchema();
 
 export const createBookingInput = z
   .object({
@@ -29,7 +29,7 @@ export const createBookingInput = z
     accountId: id,
     purpose: z.string().trim().max(500).default(""),
     /** Weekly repeat: how many sessions in all, the first included. */
-    repeatWeeks: z.coerce.number().int().min(1).max(MAX_WEEKLY_OCCURRENCES).default(1),
+    repeatWeeks: wholeNumber(1, MAX_WEEKLY_OCCURRENCES, "number of weekly sessions").default(1),
   })
   .refine((v) => (v.instrumentIds && v.instrumentIds.length > 0) || v.setupId !== undefined, {
     message: "Choose instruments or a setup",
@@ -59,7 +59,7 @@ export const bookingListQuery = pageQuery.extend({
     .optional(),
   /** Only the caller's own bookings (My bookings). */
   mine: flag.optional(),
-  limit: z.coerce.number().int().min(1).max(5000).default(500),
+  limit: wholeNumber(1, 5000, "limit").default(500),
 });
 export type BookingListQuery = z.infer<typeof bookingListQuery>;
 
@@ -113,11 +113,11 @@ export interface OccurrenceProblem {
 /** The facility's booking policy (a settings row), editable by the manager. */
 export const bookingPolicy = z.object({
   /** Cancelling less than this many hours before the start is a late cancellation. */
-  lateCancelHours: z.coerce.number().int().min(0).max(24 * 14),
+  lateCancelHours: z.number().int().min(0).max(24 * 14),
   /** A confirmed booking nobody checked in to within this many minutes becomes a no-show. */
-  noShowGraceMinutes: z.coerce.number().int().min(5).max(24 * 60),
+  noShowGraceMinutes: z.number().int().min(5).max(24 * 60),
   /** Check-in opens this many minutes before the start. */
-  checkInEarlyMinutes: z.coerce.number().int().min(0).max(240),
+  checkInEarlyMinutes: z.number().int().min(0).max(240),
 });
 export type BookingPolicy = z.infer<typeof bookingPolicy>;
 export const DEFAULT_BOOKING_POLICY: BookingPolicy = { lateCancelHours: 24, noShowGraceMinutes: 30, checkInEarlyMinutes: 15 };

@@ -1,13 +1,31 @@
 import { z } from "zod";
 
+const ID_MESSAGE = "Give an id: a positive whole number";
+
+/**
+ * A record id: a positive integer, as a JSON number or a string of digits (paths and queries are
+ * text). Booleans, fractions, exponents ("1e3") and signs are refused, never coerced.
+ */
+export const id = (message = ID_MESSAGE) =>
+  z.union([z.number().int().min(1).max(Number.MAX_SAFE_INTEGER), z.string().regex(/^[1-9][0-9]{0,14}$/).transform(Number)], { error: message });
+
+/**
+ * A whole number in a query string (or a JSON number) between min and max: digits only, so
+ * "1.5", "1e3", "-1" and "true" are 400, not guesses.
+ */
+export const wholeNumber = (min: number, max: number, what = "number") =>
+  z
+    .union([z.number().int(), z.string().regex(/^-?[0-9]{1,15}$/).transform(Number)], { error: `Give the ${what} as a whole number` })
+    .pipe(z.number().min(min, `The ${what} must be at least ${min}`).max(max, `The ${what} must be at most ${max}`));
+
 /** Every list route accepts ?limit=&offset= and answers { items, total }. */
 export const pageQuery = z.object({
-  limit: z.coerce.number().int().min(1).max(500).default(50),
-  offset: z.coerce.number().int().min(0).default(0),
+  limit: wholeNumber(1, 500, "limit").default(50),
+  offset: wholeNumber(0, Number.MAX_SAFE_INTEGER, "offset").default(0),
 });
 export type PageQuery = z.infer<typeof pageQuery>;
 
-export const idParam = z.object({ id: z.coerce.number().int().positive() });
+export const idParam = z.object({ id: id() });
 
 /** ISO 8601 date-time that must carry an offset or Z, so no time is read in the server's zone. */
 export const isoDateTime = z.iso.datetime({ offset: true, message: "Give an ISO 8601 date-time with an offset or Z, e.g. 2026-12-02T14:00:00-04:00" });

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { pageQuery } from "./common";
+import { id, pageQuery } from "./common";
 
 export const INSTRUMENT_KINDS = ["potentiostat", "interface_cell", "support"] as const;
 export const instrumentKind = z.enum(INSTRUMENT_KINDS);
@@ -60,7 +60,7 @@ export const instrumentInput = z.object({
   model: z.string().trim().max(200).default(""),
   serialNumber: z.string().trim().max(100).default(""),
   description: z.string().trim().max(2000).default(""),
-  locationId: z.number().int().positive().nullable().default(null),
+  locationId: id().nullable().default(null),
   fourElectrode: z.boolean().default(false),
   interfaceAreaCm2: z.number().positive().nullable().default(null),
   trainingRequired: z.boolean().default(true),
@@ -82,7 +82,7 @@ export const instrumentPatch = z
     model: z.string().trim().max(200),
     serialNumber: z.string().trim().max(100),
     description: z.string().trim().max(2000),
-    locationId: z.number().int().positive().nullable(),
+    locationId: id().nullable(),
     fourElectrode: z.boolean(),
     interfaceAreaCm2: z.number().positive().nullable(),
     trainingRequired: z.boolean(),
@@ -96,3 +96,4 @@ export const instrumentPatch = z
   })
   .partial();
 export type InstrumentPatch = z.input<typeof instrumentPatch>;
+export type InstrumentPatchParsed = z.output<typeof instrumentPatch>;

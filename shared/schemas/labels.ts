@@ -8,6 +8,7 @@
  */
 import { z } from "zod";
 import { isLabelTokenShape, MAX_LABELS_PER_REQUEST } from "../domain/labels";
+import { id, wholeNumber } from "./common";
 
 export const labelTokenParam = z.object({
   labelToken: z.string().refine(isLabelTokenShape, "A label code is 22 to 64 letters, digits, '-' or '_'."),
@@ -28,11 +29,11 @@ export const labelsPdfQuery = z
     containerIds: idList.optional(),
     instrumentIds: idList.optional(),
     /** A label stock from GET /api/labels/stocks; without it each label is its own page (label printer roll). */
-    stockId: z.coerce.number().int().positive().optional(),
+    stockId: id().optional(),
     /** Vial or bottle design for single labels; by default vials get the vial label, everything else the bottle label. */
     size: labelSize.optional(),
     /** Positions already used on the first sheet. */
-    skip: z.coerce.number().int().min(0).max(400).default(0),
+    skip: wholeNumber(0, 400, "number of positions to skip").default(0),
   })
   .refine((q) => (q.containerIds?.length ?? 0) + (q.instrumentIds?.length ?? 0) > 0, {
     message: "Name the containers (containerIds=1,2) or instruments (instrumentIds=3) to label.",
@@ -59,7 +60,7 @@ export const labelStockDto = z.object({
 });
 export type LabelStockDto = z.infer<typeof labelStockDto>;
 
-const mm = (max: number) => z.coerce.number().min(0).max(max);
+const mm = (max: number) => z.number().min(0).max(max);
 export const labelStockInput = z.object({
   name: z.string().trim().min(1, "Name the stock").max(120),
   size: labelSize,
@@ -67,8 +68,8 @@ export const labelStockInput = z.object({
   pageHeightMm: mm(1000).refine((n) => n > 0, "Give the page height"),
   labelWidthMm: mm(1000).refine((n) => n >= 15, "Labels narrower than 15 mm cannot hold a readable QR code"),
   labelHeightMm: mm(1000).refine((n) => n >= 10, "Labels lower than 10 mm cannot hold a readable QR code"),
-  columns: z.coerce.number().int().min(1).max(20),
-  rows: z.coerce.number().int().min(1).max(40),
+  columns: z.number().int().min(1).max(20),
+  rows: z.number().int().min(1).max(40),
   marginTopMm: mm(500).default(0),
   marginLeftMm: mm(500).default(0),
   gapXMm: mm(100).default(0),
@@ -80,7 +81,7 @@ export const LABELLED_TYPES = ["container", "instrument"] as const;
 export const labelledType = z.enum(LABELLED_TYPES);
 export type LabelledTypeName = z.infer<typeof labelledType>;
 
-export const reissueParams = z.object({ type: labelledType, id: z.coerce.number().int().positive() });
+export const reissueParams = z.object({ type: labelledType, id: id() });
 export const reissueInput = z.object({ reason: z.string().trim().max(300).default("") });
 export type ReissueInput = z.infer<typeof reissueInput>;
 
@@ -151,7 +152,7 @@ const note = (what: string, required: boolean) =>
 export const reportProblemInput = z.object({ note: note("problem", true) });
 export type ReportProblemInput = z.infer<typeof reportProblemInput>;
 
-export const moveContainerInput = z.object({ locationId: z.coerce.number().int().positive({ message: "Choose a location" }) });
+export const moveContainerInput = z.object({ locationId: id("Choose a location") });
 export type MoveContainerInput = z.infer<typeof moveContainerInput>;
 
 export const markEmptyInput = z.object({ wasteNote: note("waste", false) });

@@ -4,7 +4,7 @@
  * presenters return these types, the client parses every answer with these schemas.
  */
 import { z } from "zod";
-import { isoDate, pageQuery } from "./common";
+import { id, isoDate, pageQuery } from "./common";
 
 export const CUSTOMER_CLASSES = ["internal", "external_academic", "commercial"] as const;
 export const customerClass = z.enum(CUSTOMER_CLASSES);
@@ -32,7 +32,7 @@ const amount = z.number().int();
 
 export const rateInput = z
   .object({
-    instrumentId: z.number().int().positive().nullable().optional(),
+    instrumentId: id().nullable().optional(),
     instrumentKind: instrumentKind.nullable().optional(),
     customerClass,
     hourlyRateCents: cents("the hourly rate").min(0),
@@ -129,8 +129,8 @@ export const accountCreateInput = z.object({
   name: z.string().trim().min(2).max(200),
   kind: z.enum(["internal", "external"]),
   customerClass,
-  departmentId: z.number().int().positive().nullable().optional(),
-  ownerId: z.number().int().positive().nullable().optional(),
+  departmentId: id().nullable().optional(),
+  ownerId: id().nullable().optional(),
   validFrom: isoDate.nullable().optional(),
   validTo: isoDate.nullable().optional(),
   organisation: z.string().max(200).nullable().optional(),
@@ -150,7 +150,7 @@ export type AccountMemberInput = z.infer<typeof accountMemberInput>;
 export const accountMemberUpdateInput = z.object({ monthlyCapCents: cents("the monthly cap").min(0).nullable() });
 export type AccountMemberUpdateInput = z.infer<typeof accountMemberUpdateInput>;
 
-export const memberParams = z.object({ id: z.coerce.number().int().positive(), userId: z.coerce.number().int().positive() });
+export const memberParams = z.object({ id: id(), userId: id() });
 
 export const accountMemberDto = z.object({
   userId: z.number().int(),
@@ -285,7 +285,7 @@ export const rateReviewInput = z.object({
   instruments: z
     .array(
       z.object({
-        instrumentId: z.number().int().positive(),
+        instrumentId: id(),
         costLines: z.array(z.object({ label: z.string().max(200), category: z.enum(COST_CATEGORIES), amountCents: cents("the cost").min(0) })).max(50),
         subsidyCents: cents("the subsidy").min(0),
         carriedBalanceCents: cents("the carried balance"),
@@ -312,7 +312,7 @@ export const rateReviewResponse = z.object({ items: z.array(rateReviewRowDto) })
 export const rateApplyInput = z.object({
   effectiveFrom: isoDate,
   rates: z
-    .array(z.object({ instrumentId: z.number().int().positive(), customerClass, hourlyRateCents: cents("the hourly rate").min(0) }))
+    .array(z.object({ instrumentId: id(), customerClass, hourlyRateCents: cents("the hourly rate").min(0) }))
     .min(1)
     .max(300),
 });

@@ -1,10 +1,11 @@
 /** Setups: named sets of instruments booked together. */
 import { z } from "zod";
+import { id } from "./common";
 
 export const setupInput = z.object({
   name: z.string().trim().min(1, "Give the setup a name").max(120),
   description: z.string().trim().max(500).default(""),
-  instrumentIds: z.array(z.coerce.number().int().positive()).min(2, "A setup holds at least two instruments").max(10),
+  instrumentIds: z.array(id()).min(2, "A setup holds at least two instruments").max(10),
 });
 export type SetupInput = z.input<typeof setupInput>;
 export type SetupParsed = z.output<typeof setupInput>;

@@ -5,7 +5,7 @@
  * unit conversion) are checked by the services and answered 422 naming the field.
  */
 import { z } from "zod";
-import { isoDate, pageQuery } from "./common";
+import { id, isoDate, pageQuery } from "./common";
 
 export const CONTAINER_STATUSES = ["sealed", "in_use", "on_hold", "empty", "disposed"] as const;
 export const containerStatus = z.enum(CONTAINER_STATUSES);
@@ -151,8 +151,8 @@ export type ContainerDto = z.infer<typeof containerDto>;
 
 export const CONTAINER_SORTS = ["id", "chemical", "quantity", "status", "expiresAt", "location", "lot"] as const;
 export const containerListQuery = pageQuery.extend({
-  chemicalId: z.coerce.number().int().positive().optional(),
-  locationId: z.coerce.number().int().positive().optional(),
+  chemicalId: id().optional(),
+  locationId: id().optional(),
   /** One status or several separated by commas. */
   status: z
     .string()
@@ -173,7 +173,7 @@ export const usageInput = z.object({
   // Type only: zero, negative and absurd amounts are rules (422), checked with the stock left.
   amount: z.number({ message: "Enter the amount as a number" }),
   unit: z.string({ message: "Choose a unit" }).trim().min(1, "Choose a unit").max(10),
-  bookingId: z.number().int().positive().nullable().optional(),
+  bookingId: id().nullable().optional(),
   note: z.string().max(500).optional(),
 });
 export type UsageInput = z.infer<typeof usageInput>;
@@ -183,23 +183,23 @@ export const wasteAddInput = usageInput.pick({ amount: true, unit: true, note: t
 export type WasteAddInput = z.infer<typeof wasteAddInput>;
 
 export const receiveInput = z.object({
-  chemicalId: z.number({ message: "Choose the chemical" }).int().positive(),
+  chemicalId: id("Choose the chemical"),
   count: z.number({ message: "Enter how many containers came" }).int("Whole containers only").min(1, "At least one container").max(100, "At most 100 containers per delivery"),
   quantity: finite("size of each container").positive("The size must be above zero").max(1e9),
   unit: z.enum(STOCK_UNITS, { message: "Choose a unit" }),
   kind: z.enum(["bottle", "vial", "waste"]).default("bottle"),
-  locationId: z.number().int().positive().nullable().optional(),
+  locationId: id().nullable().optional(),
   supplier: z.string().trim().max(200).default(""),
   lot: z.string().trim().max(200).default(""),
   priceCents: z.number().int("Give the price in whole cents").min(0).max(1e9).nullable().optional(),
   expiresAt: isoDate.nullable().optional(),
   retestAt: isoDate.nullable().optional(),
-  groupId: z.number().int().positive().nullable().optional(),
+  groupId: id().nullable().optional(),
 });
 export type ReceiveInput = z.infer<typeof receiveInput>;
 
 export const moveInput = z.object({
-  locationId: z.number({ message: "Choose where it goes" }).int().positive(),
+  locationId: id("Choose where it goes"),
   note: z.string().max(500).optional(),
 });
 export type MoveInput = z.infer<typeof moveInput>;
@@ -259,7 +259,7 @@ export type ContainerDetailDto = z.infer<typeof containerDetailDto>;
 // ---------------------------------------------------------------- solutions
 
 export const solutionPlanInput = z.object({
-  soluteChemicalId: z.number({ message: "Choose the solute" }).int().positive(),
+  soluteChemicalId: id("Choose the solute"),
   concentrationMolPerL: finite("concentration").positive("The concentration must be above zero").max(100, "The concentration must be at most 100 mol/L"),
   volumeMl: finite("volume").positive("The volume must be above zero").max(1e6, "The volume must be at most 1 000 000 mL"),
   purityPercent: finite("purity").gt(0, "The purity must be above 0 %").max(100, "The purity must be at most 100 %").optional(),
@@ -280,17 +280,17 @@ export const solutionPlanDto = z.object({
 export type SolutionPlanDto = z.infer<typeof solutionPlanDto>;
 
 export const prepareSolutionInput = z.object({
-  soluteContainerId: z.number({ message: "Choose the solute container" }).int().positive(),
-  solventContainerId: z.number({ message: "Choose the solvent container" }).int().positive(),
+  soluteContainerId: id("Choose the solute container"),
+  solventContainerId: id("Choose the solvent container"),
   concentrationMolPerL: solutionPlanInput.shape.concentrationMolPerL,
   volumeMl: solutionPlanInput.shape.volumeMl,
   purityPercent: solutionPlanInput.shape.purityPercent,
   /** What the balance showed; the planned mass when left out. */
   massWeighedG: finite("weighed mass").positive("The weighed mass must be above zero").max(1e6).optional(),
-  locationId: z.number().int().positive().nullable().optional(),
+  locationId: id().nullable().optional(),
   expiresAt: isoDate.nullable().optional(),
   label: z.string().trim().max(200).optional(),
-  bookingId: z.number().int().positive().nullable().optional(),
+  bookingId: id().nullable().optional(),
 });
 export type PrepareSolutionInput = z.infer<typeof prepareSolutionInput>;
 
@@ -310,7 +310,7 @@ export const locationDto = z.object({
 export type LocationDto = z.infer<typeof locationDto>;
 
 export const locationInput = z.object({
-  parentId: z.number().int().positive().nullable().optional(),
+  parentId: id().nullable().optional(),
   level: locationLevel,
   name: z.string({ message: "Enter the location's name" }).trim().min(1, "Enter the location's name").max(200),
   type: locationType.default("general"),

@@ -1,8 +1,8 @@
 /** Training records and training requests. */
 import { z } from "zod";
-import { isoDateTime, pageQuery } from "./common";
+import { isoDateTime, pageQuery, id as idSchema, wholeNumber } from "./common";
 
-const id = z.coerce.number().int().positive();
+const id = idSchema();
 
 export const TRAINING_STATE_LABELS = { current: "Current", expiring: "Expiring", expired: "Expired", none: "Revoked" } as const;
 
@@ -21,9 +21,9 @@ export const trainingListQuery = pageQuery.extend({
   userId: id.optional(),
   instrumentId: id.optional(),
   /** Only current records that expire within this many days. */
-  expiringWithinDays: z.coerce.number().int().min(1).max(365).optional(),
+  expiringWithinDays: wholeNumber(1, 365, "number of days").optional(),
   includeRevoked: z.enum(["true", "false"]).transform((v) => v === "true").optional(),
-  limit: z.coerce.number().int().min(1).max(1000).default(500),
+  limit: wholeNumber(1, 1000, "limit").default(500),
 });
 export type TrainingListQuery = z.infer<typeof trainingListQuery>;
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { role, passwordSchema } from "./auth";
-import { pageQuery } from "./common";
+import { id, pageQuery } from "./common";
 
 export const userAdminDto = z.object({
   id: z.number(),
@@ -24,8 +24,8 @@ export const createUserInput = z.object({
   name: z.string().trim().min(1, "Enter the person's name").max(120),
   roles: z.array(role).min(1, "Give at least one role"),
   password: passwordSchema.optional(),
-  departmentId: z.number().int().positive().nullable().optional(),
-  groupId: z.number().int().positive().nullable().optional(),
+  departmentId: id().nullable().optional(),
+  groupId: id().nullable().optional(),
 });
 export type CreateUserInput = z.infer<typeof createUserInput>;
 
@@ -34,8 +34,8 @@ export const updateUserInput = z
     name: z.string().trim().min(1, "Enter the person's name").max(120),
     roles: z.array(role).min(1, "Give at least one role"),
     active: z.boolean(),
-    departmentId: z.number().int().positive().nullable(),
-    groupId: z.number().int().positive().nullable(),
+    departmentId: id().nullable(),
+    groupId: id().nullable(),
   })
   .partial();
 export type UpdateUserInput = z.infer<typeof updateUserInput>;

@@ -8,8 +8,8 @@ import { useDepartments } from "../api/get-departments";
 import { useGroups } from "../api/get-groups";
 
 interface OrgFields extends FieldValues {
-  departmentId?: number | null;
-  groupId?: number | null;
+  departmentId?: number | string | null;
+  groupId?: number | string | null;
 }
 
 const toId = (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v));
