@@ -172,7 +172,7 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   };
   const timer = setInterval(sample, 5);
   const start = performance.now();
-  const run = await billing.createRun({ id: 1, email: "bench@kestrelbay.example", name: "Bench", roles: ["manager"] }, opts.period);
+  const run = await billing.createRun({ id: 1, email: "bench@kestrelbay.example", name: "Bench", roles: ["manager"], groupId: null, leadOf: [], organisation: null }, opts.period);
   const runMs = performance.now() - start;
   sample();
   const runPeakRss = peakRss;

@@ -16,6 +16,10 @@ import { createPassport } from "./auth/passport";
 import { createAuthRouter } from "./routes/auth.router";
 import { apiRouters, listRoutes } from "./routes";
 import { apiNotFound, errorHandler } from "./middleware/problem";
+import { buildMounts } from "./http/router";
+import { apiDescriptionTable, docsAssets } from "./http/api-description";
+import type { RouteTable } from "./http/route-table";
+import { ROUTE_TABLES } from "./modules";
 
 /** Paths that a foreign service calls without a browser session, so they carry no CSRF token. */
 const CSRF_EXEMPT = [/^\/api\/webhooks\//];
@@ -26,6 +30,8 @@ export interface CreatedApp {
   sessionStore: DbSessionStore;
   /** "METHOD /api/path" of every API route, for the role-matrix test. */
   routes: string[];
+  /** Every route table the app serves, the API description's own included. */
+  tables: RouteTable[];
 }
 
 export function createApp(deps: AppDeps): CreatedApp {
@@ -96,10 +102,16 @@ export function createApp(deps: AppDeps): CreatedApp {
   });
   app.use("/api", csrf.csrfSynchronisedProtection);
 
+  const tables: RouteTable[] = [
+    ...ROUTE_TABLES,
+    apiDescriptionTable(() => tables, { version: deps.version ?? "dev", publicUrl: deps.config.PUBLIC_URL }),
+  ];
   const mounts = [
     { path: "/auth", router: createAuthRouter(ctx, passport as unknown as PassportStatic, (req) => csrf.generateToken(req as express.Request)) },
+    ...buildMounts(ctx, tables),
     ...apiRouters(ctx),
   ];
+  app.use("/api/docs/assets", docsAssets());
   for (const { path: p, router } of mounts) app.use(`/api${p}`, router);
   app.use("/api", apiNotFound);
 
@@ -112,5 +124,5 @@ export function createApp(deps: AppDeps): CreatedApp {
   }
 
   app.use(errorHandler);
-  return { app, ctx, sessionStore, routes: listRoutes(mounts) };
+  return { app, ctx, sessionStore, routes: listRoutes(mounts), tables };
 }

@@ -9,9 +9,6 @@ import { createBookingService } from "./services/booking.service";
 import { createInstrumentService } from "./services/instrument.service";
 import { createSetupService } from "./services/setup.service";
 import { createTrainingService } from "./services/training.service";
-import { createLabelService } from "./services/label.service";
-import { createScanActionService } from "./services/scan-action.service";
-import { createStockServices } from "./services/stock-services";
 import { createAccountsService } from "./services/accounts.service";
 import { createBillingService } from "./services/billing.service";
 import { createRatesService } from "./services/rates.service";
@@ -32,6 +29,8 @@ export interface AppDeps {
   staticDir?: string | null;
   /** Silence request logs (tests). */
   quiet?: boolean;
+  /** The app's version, shown in the API description. */
+  version?: string;
 }
 
 export function createServices(deps: AppDeps) {
@@ -42,9 +41,6 @@ export function createServices(deps: AppDeps) {
     instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
     setups: createSetupService({ ds: deps.ds, now }),
     training: createTrainingService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
-    labels: createLabelService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityTz: deps.config.FACILITY_TZ }),
-    scanActions: createScanActionService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
-    ...createStockServices({ ds: deps.ds, now, dataDir: deps.config.dataDir, tz: deps.config.FACILITY_TZ }),
     accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
     rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
     billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments, facilityName: deps.config.FACILITY_NAME }),

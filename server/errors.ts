@@ -49,3 +49,8 @@ export class RuleBroken extends AppError {
     super(422, code, message, errors, extra);
   }
 }
+export class UnsupportedMedia extends AppError {
+  constructor(message: string, field: string, code = "unsupported_media") {
+    super(415, code, message, [{ path: field, message }]);
+  }
+}

@@ -2,7 +2,6 @@
 import { Passport } from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
 import type { Services } from "../context";
-import { presentUser } from "../presenters/user.presenter";
 
 export function createPassport(services: Services): InstanceType<typeof Passport> {
   const passport = new Passport();
@@ -10,7 +9,7 @@ export function createPassport(services: Services): InstanceType<typeof Passport
     new LocalStrategy({ usernameField: "email", passwordField: "password", session: true }, (email, password, done) => {
       services.users
         .verifyCredentials(email, password)
-        .then((u) => done(null, u ? presentUser(u) : false))
+        .then((u) => done(null, (u && services.users.signedIn(u.id)) || false))
         .catch(done);
     }),
   );

@@ -7,8 +7,8 @@
 import { AppError } from "../errors";
 
 export interface Denial {
-  /** 403: this person may not touch this record; 409: nobody may, in the record's present state. */
-  status: 403 | 404 | 409;
+  /** 403: this person may not touch this record; 409: nobody may, in its present state; 422: the action does not apply to it. */
+  status: 403 | 404 | 409 | 422;
   code: string;
   reason: string;
 }

@@ -6,6 +6,8 @@ export class AccountMember {
   @PrimaryColumn("integer") accountId: number;
   @PrimaryColumn("integer") userId: number;
   @Column("integer", { nullable: true }) monthlyCapCents: number | null;
+  /** Set when the manager allowed a person of another organisation on this account, and why. */
+  @Column("text", { nullable: true }) exceptionReason: string | null;
 
   @ManyToOne("Account", { onDelete: "CASCADE", nullable: false })
   @JoinColumn({ name: "accountId" })

@@ -19,6 +19,8 @@ export class Container {
   @Index() @Column("text", { nullable: true }) expiresAt: string | null;
   @Column("text", { nullable: true }) retestAt: string | null;
   @Column("integer", { nullable: true }) groupId: number | null;
+  /** An external customer's own container (its people handle it); null for the host institution's stock. */
+  @Column("text", { nullable: true }) organisation: string | null;
   @Index({ unique: true }) @Column("text") labelToken: string;
   @Column("text", { default: "" }) supplier: string;
   @Index() @Column("text", { default: "" }) lot: string;

@@ -15,6 +15,7 @@ import { Container } from "./container.entity";
 import { ContainerMovement } from "./container-movement.entity";
 import { Department } from "./department.entity";
 import { Instrument } from "./instrument.entity";
+import { InstrumentFault } from "./instrument-fault.entity";
 import { LabelHistory } from "./label-history.entity";
 import { LabelStock } from "./label-stock.entity";
 import { Location } from "./location.entity";
@@ -34,7 +35,7 @@ import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
 
 export {
-  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
+  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   Setup, SetupInstrument, TrainingRequest,
   BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
@@ -43,7 +44,7 @@ export {
 export { ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert };
 
 export const entities = [
-  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, LabelHistory, LabelStock, Location,
+  Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert,
   Setup, SetupInstrument, TrainingRequest,

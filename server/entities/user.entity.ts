@@ -12,6 +12,8 @@ export class User {
   @Column("boolean", { default: true }) active: boolean;
   @Column("integer", { nullable: true }) departmentId: number | null;
   @Column("integer", { nullable: true }) groupId: number | null;
+  /** The external customer this person works for (as on its accounts); null for the host institution's own people. */
+  @Column("text", { nullable: true }) organisation: string | null;
   /** Secret for the personal iCalendar feed; rotating it retires old feed URLs. */
   @Index({ unique: true }) @Column("text") calendarToken: string;
   @Column("text") createdAt: string;

@@ -29,7 +29,7 @@ export interface HandlerInput<A extends Access, P, Q, B> {
 }
 
 /** A response that is not JSON (a file, a calendar, a redirect) is written by the handler itself. */
-export const WRITTEN = Symbol("response written by the handler");
+export const WRITTEN = Object.freeze({ writtenByHandler: true } as const);
 
 export interface RouteSpec<A extends Access = Access, P = unknown, Q = unknown, B = unknown, O = unknown> {
   method: Method;

@@ -8,7 +8,7 @@ import type { Clock } from "../clock";
 import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../core/outbox";
-import { runStockAlerts } from "../services/stock-alerts.service";
+import { runStockAlerts } from "../modules/safety";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
 import { processDueInvoices } from "../services/invoicing.service";
 import { mailDueStatements } from "../services/billing.service";

@@ -3,11 +3,18 @@ import type { RequestHandler } from "express";
 import type { Role } from "@shared/schemas/auth";
 import { Forbidden, Unauthenticated } from "../errors";
 
+/** The signed-in person, as every route and policy sees them. */
 export interface AuthUser {
   id: number;
   email: string;
   name: string;
   roles: Role[];
+  /** Research group (own group's containers and accounts); null when in none. */
+  groupId: number | null;
+  /** Research groups this person leads. */
+  leadOf: number[];
+  /** External customer's organisation; null for the host institution's own people. */
+  organisation: string | null;
 }
 
 declare global {

@@ -13,13 +13,6 @@ import { createCalendarRouter } from "./calendar.router";
 import { createReportsRouter } from "./reports.router";
 import { createSetupsRouter } from "./setups.router";
 import { createTrainingRouter } from "./training.router";
-import { createLabelsPdfRouter, createLabelsRouter } from "./labels.router";
-import { createScanActionsRouter, createScanRouter } from "./scan.router";
-import { createChemicalsRouter } from "./chemicals.router";
-import { createContainersRouter } from "./containers.router";
-import { createLocationsRouter } from "./locations.router";
-import { createSafetyRouter, createSdsRouter } from "./safety.router";
-import { createSolutionsRouter } from "./solutions.router";
 import { createBillingRouter } from "./billing.router";
 import { createRatesRouter } from "./rates.router";
 import { createWebhooksRouter } from "./webhooks.router";
@@ -40,17 +33,7 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/calendar", router: createCalendarRouter(ctx) },
     { path: "/accounts", router: createAccountsRouter(ctx) },
     { path: "/reports", router: createReportsRouter(ctx) },
-    { path: "/scan", router: createScanRouter(ctx) },
-    { path: "/scan-actions", router: createScanActionsRouter(ctx) },
-    { path: "/labels.pdf", router: createLabelsPdfRouter(ctx) },
-    { path: "/labels", router: createLabelsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
-    { path: "/chemicals", router: createChemicalsRouter(ctx) },
-    { path: "/containers", router: createContainersRouter(ctx) },
-    { path: "/solutions", router: createSolutionsRouter(ctx) },
-    { path: "/locations", router: createLocationsRouter(ctx) },
-    { path: "/safety", router: createSafetyRouter(ctx) },
-    { path: "/sds", router: createSdsRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
     { path: "/rates", router: createRatesRouter(ctx) },
     { path: "/billing", router: createBillingRouter(ctx) },

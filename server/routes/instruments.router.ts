@@ -2,7 +2,7 @@
 import { Router } from "express";
 import { idParam } from "@shared/schemas/common";
 import { z } from "zod";
-import { instrumentInput, instrumentListQuery, instrumentPatch, type InstrumentListQuery, type InstrumentPatch } from "@shared/schemas/instruments";
+import { instrumentInput, instrumentListQuery, instrumentPatch, type InstrumentListQuery, type InstrumentPatchParsed as InstrumentPatch } from "@shared/schemas/instruments";
 import type { Ctx } from "../context";
 import { currentUser, requireAuth, requireRole } from "../middleware/auth";
 import { body, params, query, validate } from "../middleware/validate";

@@ -6,7 +6,7 @@ import type { BookingStatus } from "@shared/schemas/bookings";
 import type { DashboardDto } from "@shared/schemas/dashboard";
 import type { Ctx } from "../context";
 import type { AuthUser } from "../middleware/auth";
-import { safetyLocationTotals } from "./safety.service";
+import { safetyLocationTotals } from "../modules/safety";
 
 export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager: boolean; safety: boolean }): Promise<DashboardDto> {
   const now = ctx.now();

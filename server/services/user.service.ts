@@ -57,10 +57,21 @@ export function createUserService(deps: UserServiceDeps) {
   function signedIn(id: number): AuthUser | null {
     const row = prepared(
       ds,
-      `SELECT u.id, u.email, u.name, u.active, (SELECT group_concat(r.role, ',') FROM user_roles r WHERE r.userId = u.id) AS roles FROM users u WHERE u.id = ?`,
-    ).get(id) as { id: number; email: string; name: string; active: number; roles: string | null } | undefined;
+      `SELECT u.id, u.email, u.name, u.active, u.groupId, u.organisation,
+              (SELECT group_concat(r.role, ',') FROM user_roles r WHERE r.userId = u.id) AS roles,
+              (SELECT group_concat(g.id, ',') FROM research_groups g WHERE g.leadId = u.id) AS leadOf
+         FROM users u WHERE u.id = ?`,
+    ).get(id) as { id: number; email: string; name: string; active: number; groupId: number | null; organisation: string | null; roles: string | null; leadOf: string | null } | undefined;
     if (!row || !row.active) return null;
-    return { id: row.id, email: row.email, name: row.name, roles: (row.roles ? (row.roles.split(",") as Role[]) : []).sort() };
+    return {
+      id: row.id,
+      email: row.email,
+      name: row.name,
+      roles: (row.roles ? (row.roles.split(",") as Role[]) : []).sort(),
+      groupId: row.groupId,
+      leadOf: row.leadOf ? row.leadOf.split(",").map(Number) : [],
+      organisation: row.organisation,
+    };
   }
 
   /** The person for these credentials, or null; unknown e-mail and wrong password look alike. */

@@ -53,6 +53,12 @@ export const userDto = z.object({
   email: z.string(),
   name: z.string(),
   roles: z.array(role),
+  /** Research group; null when in none. */
+  groupId: z.number().nullable(),
+  /** Research groups the person leads. */
+  leadOf: z.array(z.number()).default([]),
+  /** The external customer's organisation the person works for; null for the host institution's own people. */
+  organisation: z.string().nullable(),
 });
 export type UserDto = z.infer<typeof userDto>;
 

@@ -27,6 +27,9 @@ export type PageQuery = z.infer<typeof pageQuery>;
 
 export const idParam = z.object({ id: id() });
 
+/** A page of a list as every list route answers it. */
+export const pageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int() });
+
 /** ISO 8601 date-time that must carry an offset or Z, so no time is read in the server's zone. */
 export const isoDateTime = z.iso.datetime({ offset: true, message: "Give an ISO 8601 date-time with an offset or Z, e.g. 2026-12-02T14:00:00-04:00" });
 

@@ -97,3 +97,13 @@ export const instrumentPatch = z
   .partial();
 export type InstrumentPatch = z.input<typeof instrumentPatch>;
 export type InstrumentPatchParsed = z.output<typeof instrumentPatch>;
+
+export const INSTRUMENT_ACTIONS = ["reportFault", "recordCleaned", "edit", "takeOutOfService", "returnToService", "closeFault"] as const;
+export const instrumentAbilities = z.object(Object.fromEntries(INSTRUMENT_ACTIONS.map((a) => [a, z.boolean()])) as Record<(typeof INSTRUMENT_ACTIONS)[number], z.ZodBoolean>);
+export type InstrumentAbilities = z.infer<typeof instrumentAbilities>;
+
+/** A fault someone reported on an instrument. */
+export const faultDto = z.object({ id: z.number(), note: z.string(), reportedAt: z.string(), reportedBy: z.string().nullable() });
+export type FaultDto = z.infer<typeof faultDto>;
+
+export const closeFaultInput = z.object({ resolution: z.string().trim().min(3, "Say what was done").max(1000) });

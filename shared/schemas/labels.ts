@@ -9,6 +9,8 @@
 import { z } from "zod";
 import { isLabelTokenShape, MAX_LABELS_PER_REQUEST } from "../domain/labels";
 import { id, wholeNumber } from "./common";
+import { containerAbilities } from "./stock";
+import { faultDto, instrumentAbilities } from "./instruments";
 
 export const labelTokenParam = z.object({
   labelToken: z.string().refine(isLabelTokenShape, "A label code is 22 to 64 letters, digits, '-' or '_'."),
@@ -124,8 +126,8 @@ export const scanContainerRecord = z.object({
   signalWord: z.string().nullable(),
   /** handlingCautions() of the chemical (shared/domain/cautions.ts), computed by the server with its formula-derived flags. */
   cautions: z.array(z.string()),
-  /** The caller may move, empty or dispose of it (role and ownership). */
-  mayHandle: z.boolean(),
+  /** What the caller may do to it, decided by the server's container policy. */
+  abilities: containerAbilities,
 });
 export type ScanContainerRecord = z.infer<typeof scanContainerRecord>;
 
@@ -137,6 +139,10 @@ export const scanInstrumentRecord = z.object({
   lastCleanedAt: z.string().nullable(),
   currentBooking: scanBookingDto.nullable(),
   nextBooking: scanBookingDto.nullable(),
+  /** Fault reports nobody has closed yet. */
+  openFaults: z.array(faultDto),
+  /** What the caller may do to it, decided by the server's instrument policy. */
+  abilities: instrumentAbilities,
 });
 export type ScanInstrumentRecord = z.infer<typeof scanInstrumentRecord>;
 

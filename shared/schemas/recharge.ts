@@ -4,7 +4,7 @@
  * presenters return these types, the client parses every answer with these schemas.
  */
 import { z } from "zod";
-import { id, isoDate, pageQuery } from "./common";
+import { id, isoDate, pageOf, pageQuery } from "./common";
 
 export const CUSTOMER_CLASSES = ["internal", "external_academic", "commercial"] as const;
 export const customerClass = z.enum(CUSTOMER_CLASSES);
@@ -24,7 +24,7 @@ const minutes = (what: string) => z.number({ message: `Give ${what} in whole min
 export const period = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Give the month as YYYY-MM");
 
 /** Answers of list routes: `{ items, total }`. */
-export const pageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int() });
+export { pageOf };
 /** Whole cents in an answer. */
 const amount = z.number().int();
 

@@ -121,6 +121,10 @@ export type HoldInput = z.infer<typeof holdInput>;
 
 // ---------------------------------------------------------------- containers
 
+export const CONTAINER_ACTIONS = ["draw", "move", "markEmpty", "pourWaste", "dispose", "hold", "release", "seeHistory", "reportProblem", "relabel"] as const;
+export const containerAbilities = z.object(Object.fromEntries(CONTAINER_ACTIONS.map((a) => [a, z.boolean()])) as Record<(typeof CONTAINER_ACTIONS)[number], z.ZodBoolean>);
+export type ContainerAbilities = z.infer<typeof containerAbilities>;
+
 export const containerDto = z.object({
   id: z.number(),
   chemicalId: z.number(),
@@ -137,6 +141,8 @@ export const containerDto = z.object({
   expiresAt: z.string().nullable(),
   retestAt: z.string().nullable(),
   groupId: z.number().nullable(),
+  /** An external customer's own container: its organisation; null for the host institution's stock. */
+  organisation: z.string().nullable(),
   labelToken: z.string(),
   supplier: z.string(),
   lot: z.string(),
@@ -146,6 +152,8 @@ export const containerDto = z.object({
   /** The chemical's hold, which applies to every container of it. */
   chemicalHoldReason: z.string().nullable(),
   createdAt: z.string(),
+  /** What the signed-in person may do to it, decided by the server's container policy. */
+  abilities: containerAbilities,
 });
 export type ContainerDto = z.infer<typeof containerDto>;
 
@@ -195,6 +203,8 @@ export const receiveInput = z.object({
   expiresAt: isoDate.nullable().optional(),
   retestAt: isoDate.nullable().optional(),
   groupId: id().nullable().optional(),
+  /** An external customer's own containers: its organisation's name, as on its accounts. */
+  organisation: z.string().trim().max(200).nullable().optional(),
 });
 export type ReceiveInput = z.infer<typeof receiveInput>;
 
@@ -220,6 +230,7 @@ export const movementDto = z.object({
 });
 export type MovementDto = z.infer<typeof movementDto>;
 
+/** A usage; who, on which account and at what cost are null unless the reader may see the history (or it is their own). */
 export const usageDto = z.object({
   id: z.number(),
   amount: z.number(),
@@ -231,6 +242,7 @@ export const usageDto = z.object({
   userName: z.string().nullable(),
   note: z.string(),
   at: z.string(),
+  mine: z.boolean(),
 });
 export type UsageDto = z.infer<typeof usageDto>;
 
@@ -253,6 +265,8 @@ export const containerDetailDto = z.object({
   parents: z.array(lineageDto),
   /** Solutions prepared from this container. */
   children: z.array(lineageDto),
+  /** False when the reader sees the chemical, hazards, quantity, place and state but not the people or the money. */
+  historyShown: z.boolean(),
 });
 export type ContainerDetailDto = z.infer<typeof containerDetailDto>;
 

@@ -32,7 +32,7 @@ describe("the session routes of API.md, used as a script would", () => {
 
     const login = await c.login("script@kestrelbay.example", TEST_PASSWORD);
     expect(login.status).toBe(200);
-    expect(login.body.user).toEqual({ id: u.id, email: u.email, name: u.name, roles: ["manager", "member"] });
+    expect(login.body.user).toEqual({ id: u.id, email: u.email, name: u.name, roles: ["manager", "member"], groupId: null, leadOf: [], organisation: null });
     const cookie = login.headers.get("set-cookie") ?? "";
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Lax/i);

@@ -10,7 +10,7 @@ import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { Chemical, Container, OutboundMail } from "../../server/entities";
-import { runStockAlerts } from "../../server/services/stock-alerts.service";
+import { runStockAlerts } from "../../server/modules/safety/stock-alerts";
 
 let t: TestApp;
 let safety: ApiClient;

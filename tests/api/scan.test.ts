@@ -50,7 +50,7 @@ describe("GET /api/scan/:labelToken", () => {
       signalWord: "Danger",
       hazardStatements: ["H225", "H302", "H315", "H319", "H335", "H350"],
       location: expect.stringMatching(/Chemistry Building \d+ › Room 214 › Flammables cabinet F1/),
-      mayHandle: true,
+      abilities: expect.objectContaining({ draw: true, move: true, markEmpty: true }),
     });
     // Flame, exclamation mark and health hazard for these codes (UN GHS Annex 1, as in shared/domain/hazards).
     expect(r.body.record.pictograms).toEqual(["GHS02", "GHS07", "GHS08"]);
@@ -189,7 +189,7 @@ describe("container quick actions", () => {
     expect((await member.post(`/api/scan-actions/containers/${c.id}/move`, { locationId: cabinet.id })).status).toBe(403);
     expect((await member.post(`/api/scan-actions/containers/${c.id}/empty`, {})).status).toBe(403);
     expect((await member.post(`/api/scan-actions/containers/${c.id}/dispose`, { wasteNote: "halogenated waste drum" })).status).toBe(403);
-    expect((await member.get(`/api/scan/${c.labelToken}`)).body.record.mayHandle).toBe(false);
+    expect((await member.get(`/api/scan/${c.labelToken}`)).body.record.abilities).toMatchObject({ move: false, markEmpty: false, dispose: false, draw: false, reportProblem: true });
     expect((await safety.post(`/api/scan-actions/containers/${c.id}/move`, { locationId: cabinet.id })).status).toBe(200);
   });
 
@@ -215,20 +215,27 @@ describe("container quick actions", () => {
     expect((await member.post(`/api/scan-actions/containers/${c.id}/empty`, {})).status).toBe(409);
   });
 
-  it("disposes of a container only with a waste note, once", async () => {
+  it("lets only the stock keepers dispose of a container, with a waste note, once", async () => {
     const c = await makeContainer(t.ds, { chemicalId: chem.id });
-    expect((await member.post(`/api/scan-actions/containers/${c.id}/dispose`, {})).status).toBe(400);
-    const r = await member.post(`/api/scan-actions/containers/${c.id}/dispose`, { wasteNote: "Halogenated waste drum W3" });
+    expect((await member.post(`/api/scan-actions/containers/${c.id}/dispose`, { wasteNote: "Halogenated waste drum W3" })).status).toBe(403);
+    expect((await safety.post(`/api/scan-actions/containers/${c.id}/dispose`, {})).status).toBe(400);
+    const r = await safety.post(`/api/scan-actions/containers/${c.id}/dispose`, { wasteNote: "Halogenated waste drum W3" });
     expect(r.status).toBe(200);
     expect((await t.ds.getRepository(Container).findOneByOrFail({ id: c.id })).status).toBe("disposed");
-    expect((await member.post(`/api/scan-actions/containers/${c.id}/dispose`, { wasteNote: "again" })).status).toBe(409);
+    expect((await safety.post(`/api/scan-actions/containers/${c.id}/dispose`, { wasteNote: "again" })).status).toBe(409);
+    const [entry] = await auditOf("container.disposed", c.id);
+    expect(JSON.parse(entry.detail)).toMatchObject({ wasteNote: "Halogenated waste drum W3", halogenated: true });
   });
 
-  it("answers 409 to a member emptying a container on hold", async () => {
+  it("refuses with 403 a member emptying a container on hold, saying it is on hold; the safety officer releases it first", async () => {
     const c = await makeContainer(t.ds, { chemicalId: chem.id, status: "on_hold" });
     const r = await member.post(`/api/scan-actions/containers/${c.id}/empty`, {});
-    expect(r.status).toBe(409);
+    expect(r.status).toBe(403);
     expect(r.body.code).toBe("container_on_hold");
+    expect(r.body.detail).toMatch(/on hold/);
+    const s = await safety.post(`/api/scan-actions/containers/${c.id}/empty`, {});
+    expect(s.status).toBe(409);
+    expect(s.body.code).toBe("container_on_hold");
   });
 
   it("answers 404 for a container that does not exist", async () => {
@@ -250,17 +257,19 @@ describe("instrument quick actions", () => {
     expect((await member.post(`/api/scan-actions/instruments/${p.id}/cleaned`, {})).status).toBe(422);
   });
 
-  it("takes an instrument out of service on a fault report and e-mails the managers", async () => {
+  it("stores a fault report (202), shows it on the instrument and e-mails the managers, leaving the status to the manager", async () => {
     const p = await makeInstrument(t.ds, "potentiostat");
     const r = await member.post(`/api/scan-actions/instruments/${p.id}/fault`, { note: "Reference lead reads open circuit" });
-    expect(r.status).toBe(200);
-    expect(r.body.record.status).toBe("under_maintenance");
-    expect((await t.ds.getRepository(Instrument).findOneByOrFail({ id: p.id })).status).toBe("under_maintenance");
+    expect(r.status).toBe(202);
+    expect(r.body.record.status).toBe("in_service");
+    expect(r.body.record.openFaults).toEqual([expect.objectContaining({ note: "Reference lead reads open circuit" })]);
+    expect(r.body.record.abilities).toMatchObject({ reportFault: true, takeOutOfService: false });
+    expect((await t.ds.getRepository(Instrument).findOneByOrFail({ id: p.id })).status).toBe("in_service");
     const mail = await t.ds.query(`SELECT "to", text FROM outbound_mail WHERE subject LIKE ?`, [`%${p.name}%`]);
     expect(mail.map((m: { to: string }) => m.to)).toEqual(["manager-scan@kestrelbay.example"]);
     expect(mail[0].text).toMatch(/Reference lead reads open circuit/);
     const [entry] = await auditOf("instrument.fault_reported", p.id);
-    expect(JSON.parse(entry.detail)).toMatchObject({ statusBefore: "in_service", statusAfter: "under_maintenance" });
+    expect(JSON.parse(entry.detail)).toMatchObject({ note: "Reference lead reads open circuit", status: "in_service" });
   });
 
   it("answers 409 to a fault report on a retired instrument", async () => {

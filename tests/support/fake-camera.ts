@@ -5,7 +5,7 @@
  */
 import fs from "node:fs";
 import QRCode from "qrcode";
-import { labelQr } from "../../server/services/label-pdf";
+import { labelQr } from "../../server/modules/labels";
 
 /** A white frame with the label's QR code in the middle, one byte per pixel (0 dark, 255 light). */
 function frameWithQr(url: string, width: number, height: number, modulePx: number): Uint8Array {

@@ -17,6 +17,7 @@ import type { Mailer, OutgoingMail } from "../../server/integrations/mailer";
 import type { Ctx } from "../../server/context";
 import type { DbSessionStore } from "../../server/auth/session-store";
 import type { AppDeps } from "../../server/context";
+import type { RouteTable } from "../../server/http/route-table";
 
 export interface TestApp {
   url: string;
@@ -27,6 +28,8 @@ export interface TestApp {
   dir: string;
   sessionStore: DbSessionStore;
   routes: string[];
+  /** The route tables the app was built from (the declarations the role matrix checks). */
+  tables: RouteTable[];
   close(): Promise<void>;
 }
 
@@ -49,7 +52,7 @@ export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>
     },
     close() {},
   };
-  const { app, ctx, sessionStore, routes } = createApp({
+  const { app, ctx, sessionStore, routes, tables } = createApp({
     ds,
     config,
     clock,
@@ -72,6 +75,7 @@ export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>
     dir,
     sessionStore,
     routes,
+    tables,
     async close() {
       await new Promise((r) => server.close(r));
       await ds.destroy();

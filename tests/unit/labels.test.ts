@@ -16,7 +16,7 @@ import {
   type LabelStockLayout,
   type QrEcLevel,
 } from "@shared/domain/labels";
-import { labelQr } from "../../server/services/label-pdf";
+import { labelQr } from "../../server/modules/labels";
 import { newToken } from "../../server/core/tokens";
 import { decode, rasterise } from "../support/qr-raster";
 

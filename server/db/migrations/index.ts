@@ -7,6 +7,7 @@ import { LabelsAndStocks1796173796292 } from "./1796173796292-labels-and-stocks"
 import { StockroomAndSafety1796173804700 } from "./1796173804700-stockroom-and-safety";
 import { Recharge1796174960945 } from "./1796174960945-recharge";
 import { BookingInstrumentTimes1796183167192 } from "./1796183167192-booking-instrument-times";
+import { RecordOwnersAndFaults1796231102622 } from "./1796231102622-record-owners-and-faults";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -16,4 +17,5 @@ export const migrations = [
   StockroomAndSafety1796173804700,
   Recharge1796174960945,
   BookingInstrumentTimes1796183167192,
+  RecordOwnersAndFaults1796231102622,
 ];

@@ -89,7 +89,6 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
   const { data: user } = useUser();
   const atBench = hasRole(user, ...BENCH_ROLES);
   const action = useScanAction();
-  const finished = r.status === "empty" || r.status === "disposed";
   return (
     <>
       <Card
@@ -135,15 +134,16 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
           </div>
         )}
       </Card>
-      {!finished && r.status !== "on_hold" && (r.kind === "waste" || atBench) && <UsageForm containerId={scan.id} defaultUnit={r.unit} waste={r.kind === "waste"} />}
-      {r.mayHandle && !finished && (
+      {(r.kind === "waste" ? r.abilities.pourWaste : atBench && r.abilities.draw) && <UsageForm containerId={scan.id} defaultUnit={r.unit} waste={r.kind === "waste"} />}
+      {r.abilities.move && (
         <Section title="Move to another place" testId="scan-move">
           <MoveForm containerId={scan.id} currentLocationId={r.locationId} />
         </Section>
       )}
-      {r.mayHandle && !finished && (
-        <Section title="Mark empty or dispose" testId="scan-finish">
+      {(r.abilities.markEmpty || r.abilities.dispose) && (
+        <Section title={r.abilities.markEmpty && r.abilities.dispose ? "Mark empty or dispose" : r.abilities.markEmpty ? "Mark empty" : "Dispose"} testId="scan-finish">
           <div className="flex flex-col gap-4">
+            {r.abilities.markEmpty && (
             <NoteActionForm
               schema={markEmptyInput}
               field="wasteNote"
@@ -153,6 +153,8 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
               testId="scan-empty-form"
               onSubmit={(wasteNote) => action.mutateAsync({ kind: "empty", containerId: scan.id, wasteNote })}
             />
+            )}
+            {r.abilities.dispose && (
             <NoteActionForm
               schema={disposeInput}
               field="wasteNote"
@@ -163,9 +165,11 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
               testId="scan-dispose-form"
               onSubmit={(wasteNote) => action.mutateAsync({ kind: "dispose", containerId: scan.id, wasteNote })}
             />
+            )}
           </div>
         </Section>
       )}
+      {r.abilities.reportProblem && (
       <Section title="Report a problem" testId="scan-problem">
         <NoteActionForm
           schema={reportProblemInput}
@@ -178,6 +182,7 @@ function ContainerView({ scan }: { scan: ContainerScan }) {
           onSubmit={(note) => action.mutateAsync({ kind: "problem", containerId: scan.id, note })}
         />
       </Section>
+      )}
     </>
   );
 }
@@ -349,7 +354,7 @@ function InstrumentView({ scan }: { scan: InstrumentScan }) {
         <BookingLine label="Now" booking={r.currentBooking} />
         <BookingLine label="Next" booking={r.nextBooking} />
       </Card>
-      {r.kind === "interface_cell" && (
+      {r.abilities.recordCleaned && (
         <Section title="Record that it was cleaned" testId="scan-cleaned">
           <NoteActionForm
             schema={cleanedInput}
@@ -363,17 +368,29 @@ function InstrumentView({ scan }: { scan: InstrumentScan }) {
           />
         </Section>
       )}
-      {r.status !== "retired" && (
+      {r.openFaults.length > 0 && (
+        <Card title="Faults reported" bodyClassName="p-3" data-testid="scan-open-faults">
+          <ul className="flex flex-col gap-1 text-sm">
+            {r.openFaults.map((f) => (
+              <li key={f.id}>
+                {formatDateTime(f.reportedAt)}
+                {f.reportedBy ? ` · ${f.reportedBy}` : ""}: {f.note}
+              </li>
+            ))}
+          </ul>
+        </Card>
+      )}
+      {r.abilities.reportFault && (
         <Section title="Report a fault" testId="scan-fault">
           <NoteActionForm
             schema={reportFaultInput}
             field="note"
             label="What is wrong?"
-            hint="The instrument goes under maintenance until the manager has looked at it; the manager is e-mailed."
+            hint="The manager is e-mailed and decides whether it leaves service; the report shows here until it is dealt with."
             submitLabel="Report the fault"
             variant="danger"
             testId="scan-fault-form"
-            done="Reported. The instrument is now under maintenance and the manager has been told."
+            done="Reported. The manager has been told."
             onSubmit={(note) => action.mutateAsync({ kind: "fault", instrumentId: scan.id, note })}
           />
         </Section>

@@ -1,39 +1,11 @@
 /** GET /api/safety/review: the review lists (hazardous substances, expired, no location, holds, halogenated waste, sheets due). */
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import { z } from "zod";
+import { safetyReviewDto } from "@shared/schemas/safety";
 import { api, parseResponse } from "@/lib/api-client";
 import { safetyKeys } from "./keys";
 
-const reviewContainer = z.object({
-  id: z.number(),
-  chemicalId: z.number(),
-  chemicalName: z.string(),
-  quantity: z.number(),
-  initialQuantity: z.number(),
-  unit: z.string(),
-  status: z.string(),
-  kind: z.string(),
-  locationId: z.number().nullable(),
-  locationPath: z.string().nullable(),
-  expiresAt: z.string().nullable(),
-  retestAt: z.string().nullable(),
-  holdReason: z.string().nullable(),
-  lot: z.string(),
-});
-export type ReviewContainer = z.infer<typeof reviewContainer>;
-
-export const safetyReviewDto = z.object({
-  today: z.string(),
-  sdsReviewMonths: z.number(),
-  hazardous: z.array(
-    z.object({ chemicalId: z.number(), name: z.string(), casNumber: z.string(), carcinogen: z.boolean(), acuteToxic: z.boolean(), hazardStatements: z.array(z.string()), containers: z.array(reviewContainer) }),
-  ),
-  expired: z.array(reviewContainer),
-  noLocation: z.array(reviewContainer),
-  onHold: z.object({ containers: z.array(reviewContainer), chemicals: z.array(z.object({ chemicalId: z.number(), name: z.string(), reason: z.string().nullable() })) }),
-  halogenatedWaste: z.array(reviewContainer.extend({ fillPercent: z.number().nullable() })),
-  sdsDue: z.array(z.object({ chemicalId: z.number(), name: z.string(), reviewedOn: z.string().nullable() })),
-});
+export { safetyReviewDto };
+export type { ReviewContainer } from "@shared/schemas/safety";
 
 export async function getReview(signal?: AbortSignal) {
   return parseResponse(safetyReviewDto, await api.get<unknown>("/safety/review", { signal }), "GET /api/safety/review");

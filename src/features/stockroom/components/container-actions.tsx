@@ -74,7 +74,7 @@ function UsageForm({ container, waste = false }: { container: ContainerDto; wast
 
 export function ContainerActions({ container }: { container: ContainerDto }) {
   const { data: user } = useUser();
-  const keeper = hasRole(user, "manager", "safety_officer");
+  const may = container.abilities;
   const locations = useLocations();
   const move = useMoveContainer(container.id);
   const hold = useHoldContainer(container.id);
@@ -82,19 +82,17 @@ export function ContainerActions({ container }: { container: ContainerDto }) {
   const empty = useEmptyContainer(container.id);
   const [target, setTarget] = useState("");
   const [reason, setReason] = useState("");
-  const open = container.status === "sealed" || container.status === "in_use";
-  const usable = open && !container.chemicalHoldReason && container.kind !== "waste";
   const atBench = hasRole(user, ...BENCH_ROLES);
   const error = move.error ?? hold.error ?? release.error ?? empty.error;
 
   return (
     <Card title="Actions">
       <div className="flex flex-col gap-4">
-        {usable && !atBench ? (
+        {may.draw && !atBench ? (
           <p className="text-sm text-grey-600">Usage is logged by the people who work at the bench (members, the manager, the safety officer).</p>
-        ) : usable ? (
+        ) : may.draw ? (
           <UsageForm container={container} />
-        ) : container.kind === "waste" && open ? (
+        ) : may.pourWaste ? (
           <UsageForm container={container} waste />
         ) : (
           <Alert tone="warning">
@@ -102,13 +100,17 @@ export function ContainerActions({ container }: { container: ContainerDto }) {
               ? `The chemical is on hold: ${container.chemicalHoldReason}`
               : container.status === "on_hold"
                 ? `On hold: ${container.holdReason ?? "no reason given"}. Nothing may be taken until the safety office releases it.`
-                : container.kind === "waste"
-                  ? "A waste container: nothing is taken from it."
-                  : `This container is ${container.status === "empty" ? "empty" : "disposed of"}.`}
+                : container.status === "empty" || container.status === "disposed"
+                  ? `This container is ${container.status === "empty" ? "empty" : "disposed of"}.`
+                  : container.kind === "waste"
+                    ? "A waste container: only its owners pour into it."
+                    : "This container belongs to another research group or organisation: its owners, the manager and the safety officer use it."}
           </Alert>
         )}
-        {container.status !== "disposed" && (
+        {(may.move || may.markEmpty) && (
           <div className="flex flex-wrap items-end gap-2">
+            {may.move && (
+            <>
             <Select label="Move to" value={target} onChange={(e) => setTarget(e.target.value)} fieldClassName="w-80">
               <option value="">Choose a location…</option>
               {locations.data?.filter((l) => l.id !== container.locationId).map((l) => (
@@ -118,14 +120,16 @@ export function ContainerActions({ container }: { container: ContainerDto }) {
             <Button disabled={!target} loading={move.isPending} onClick={() => move.mutate({ locationId: Number(target) }, { onSuccess: () => setTarget("") })}>
               Move
             </Button>
-            {(container.status === "sealed" || container.status === "in_use") && (
+            </>
+            )}
+            {may.markEmpty && (
               <Button variant="ghost" loading={empty.isPending} onClick={() => empty.mutate(undefined)}>Mark empty</Button>
             )}
           </div>
         )}
-        {keeper && container.status !== "empty" && container.status !== "disposed" && (
+        {(may.hold || may.release) && (
           <div className="flex flex-wrap items-end gap-2">
-            {container.status === "on_hold" ? (
+            {may.release ? (
               <Button loading={release.isPending} onClick={() => release.mutate(undefined)}>Release hold</Button>
             ) : (
               <>

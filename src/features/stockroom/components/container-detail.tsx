@@ -34,7 +34,7 @@ export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
   const q = useContainer(id);
   if (q.isPending) return <LoadingLine label="Loading the container" />;
   if (q.isError) return <Alert tone="danger">{describeError(q.error)}</Alert>;
-  const { container: c, chemical, movements, usages, parents, children, locationPath } = q.data;
+  const { container: c, chemical, movements, usages, parents, children, locationPath, historyShown } = q.data;
   return (
     <>
       <PageHeader
@@ -115,6 +115,11 @@ export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
       <div className="mt-4 grid gap-4 lg:grid-cols-2">
         <section>
           <h2 className="mb-2 text-sm font-semibold">Usage</h2>
+          {!historyShown && (
+            <p className="mb-2 text-xs text-grey-600" data-testid="history-hidden">
+              Who used it and at what cost is shown to its owners, the manager and the safety officer; your own usage is shown in full.
+            </p>
+          )}
           <Table caption="Usage of this container">
             <THead>
               <tr><Th>When</Th><Th>Who</Th><Th>Amount</Th><Th>Cost</Th><Th>Note</Th></tr>
@@ -124,7 +129,7 @@ export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
               {usages.map((u) => (
                 <Tr key={u.id}>
                   <Td>{formatDateTime(u.at)}</Td>
-                  <Td>{u.userName}</Td>
+                  <Td>{u.userName ?? "–"}</Td>
                   <Td className="font-mono text-xs">{formatQuantity(u.amount, u.unit)}{u.unit !== c.unit && ` (${formatQuantity(u.amountInContainerUnit, c.unit)})`}</Td>
                   <Td className="font-mono text-xs">{u.costCents === null ? "–" : (u.costCents / 100).toFixed(2)}</Td>
                   <Td>{u.note}</Td>

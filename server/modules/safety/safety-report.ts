@@ -5,7 +5,7 @@
  */
 import PDFDocument from "pdfkit";
 import type { DataSource } from "typeorm";
-import { safetyLocationTotals, safetyReview } from "./safety.service";
+import { safetyLocationTotals, safetyReview } from "./safety.queries";
 
 export const PRECEDENCE_CAUTION =
   "Storage limits and handling rules are those set by the local fire code, the institution's safety office and the safety data sheet, which take precedence over anything Phasebook computes.";

@@ -5,21 +5,17 @@
  * H-codes that exist — and refuses with 422 naming the field otherwise. It also places a
  * chemical on hold, which stops usage of every container of it.
  */
-import type { DataSource, EntityManager } from "typeorm";
+import type { EntityManager } from "typeorm";
 import { parseCas } from "@shared/domain/cas";
 import { analyseFormula, FormulaError } from "@shared/domain/chemistry";
 import { normaliseHCode, isHCode } from "@shared/domain/ghs-statements";
 import { isAcutelyToxic, isCarcinogen, pictogramsFor, signalWordFor } from "@shared/domain/hazards";
-import type { ChemicalInput, ChemicalListQuery, ChemicalUpdate } from "@shared/schemas/stock";
-import { Chemical } from "../entities";
-import { Conflict, NotFound, RuleBroken, type FieldError } from "../errors";
-import { serialTransaction } from "../db/serial";
-import { audit } from "../core/audit";
-
-export interface ChemicalServiceDeps {
-  ds: DataSource;
-  now: () => Date;
-}
+import type { ChemicalInput, ChemicalUpdate } from "@shared/schemas/stock";
+import { Chemical } from "../../entities";
+import { Conflict, NotFound, RuleBroken, type FieldError } from "../../errors";
+import { serialTransaction } from "../../db/serial";
+import { audit } from "../../core/audit";
+import type { Deps } from "../../core/deps";
 
 /** Fields of a chemical row computed from an input, or the field errors that stop it. */
 export interface CheckedChemical {
@@ -134,82 +130,54 @@ function safeMass(formula: string): number | null {
   }
 }
 
-export function createChemicalService(deps: ChemicalServiceDeps) {
-  const { ds, now } = deps;
-
-  async function list(q: ChemicalListQuery): Promise<{ items: Chemical[]; total: number }> {
-    const qb = ds.getRepository(Chemical).createQueryBuilder("ch");
-    if (q.q) {
-      const like = `%${q.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-      qb.where("(ch.name LIKE :like ESCAPE '\\' OR ch.casNumber LIKE :like ESCAPE '\\' OR ch.synonyms LIKE :like ESCAPE '\\' OR ch.formula LIKE :like ESCAPE '\\')", { like });
-    }
-    if (q.onHold === "true") qb.andWhere("ch.onHoldReason IS NOT NULL");
-    if (q.onHold === "false") qb.andWhere("ch.onHoldReason IS NULL");
-    const dir = q.dir === "desc" ? "DESC" : "ASC";
-    qb.orderBy(`ch.${q.sort}`, dir).addOrderBy("ch.id", "ASC").skip(q.offset).take(q.limit);
-    const [items, total] = await qb.getManyAndCount();
-    return { items, total };
-  }
-
-  async function get(id: number): Promise<Chemical> {
-    const c = await ds.getRepository(Chemical).findOneBy({ id });
-    if (!c) throw new NotFound("That chemical");
-    return c;
-  }
-
-  async function insertChecked(em: EntityManager, actorId: number | null, values: Partial<Chemical>): Promise<Chemical> {
-    const dup = await em
-      .getRepository(Chemical)
-      .createQueryBuilder("ch")
-      .where("ch.casNumber = :cas AND lower(ch.name) = lower(:name)", { cas: values.casNumber, name: values.name })
-      .getOne();
-    if (dup) throw new Conflict(`${values.name} (${values.casNumber}) is already on record as chemical ${dup.id}.`, "chemical_exists", { chemicalId: dup.id });
-    const res = await em.insert(Chemical, { ...values, createdAt: now().toISOString() });
-    const id = res.identifiers[0].id as number;
-    await audit(em, now(), actorId, "chemical.created", "chemical", id, { name: values.name, casNumber: values.casNumber });
-    return (await em.findOneBy(Chemical, { id }))!;
-  }
-
-  async function create(actorId: number, input: ChemicalInput): Promise<Chemical> {
-    const { values, errors } = checkChemicalInput(input);
-    if (errors.length) throw new RuleBroken(errors.map((e) => e.message).join(" "), errors, "invalid_chemical");
-    return serialTransaction(ds, (em) => insertChecked(em, actorId, values));
-  }
-
-  async function update(actorId: number, id: number, input: ChemicalUpdate): Promise<Chemical> {
-    return serialTransaction(ds, async (em) => {
-      const current = await em.findOneBy(Chemical, { id });
-      if (!current) throw new NotFound("That chemical");
-      const { values, errors } = checkChemicalInput(input, current);
-      if (errors.length) throw new RuleBroken(errors.map((e) => e.message).join(" "), errors, "invalid_chemical");
-      if (Object.keys(values).length) await em.update(Chemical, id, values);
-      await audit(em, now(), actorId, "chemical.updated", "chemical", id, { fields: Object.keys(input) });
-      return (await em.findOneBy(Chemical, { id }))!;
-    });
-  }
-
-  async function hold(actorId: number, id: number, reason: string): Promise<Chemical> {
-    return serialTransaction(ds, async (em) => {
-      const c = await em.findOneBy(Chemical, { id });
-      if (!c) throw new NotFound("That chemical");
-      await em.update(Chemical, id, { onHoldReason: reason });
-      await audit(em, now(), actorId, "chemical.held", "chemical", id, { reason });
-      return (await em.findOneBy(Chemical, { id }))!;
-    });
-  }
-
-  async function release(actorId: number, id: number): Promise<Chemical> {
-    return serialTransaction(ds, async (em) => {
-      const c = await em.findOneBy(Chemical, { id });
-      if (!c) throw new NotFound("That chemical");
-      if (c.onHoldReason === null) throw new Conflict(`${c.name} is not on hold.`, "not_on_hold");
-      await em.update(Chemical, id, { onHoldReason: null });
-      await audit(em, now(), actorId, "chemical.released", "chemical", id, { reason: c.onHoldReason });
-      return (await em.findOneBy(Chemical, { id }))!;
-    });
-  }
-
-  return { list, get, create, update, hold, release, insertChecked };
+/** Inserts a checked chemical inside the caller's transaction; 409 when the same name and CAS number exist. */
+export async function insertChemical(em: EntityManager, now: Date, actorId: number | null, values: Partial<Chemical>): Promise<Chemical> {
+  const dup = await em
+    .getRepository(Chemical)
+    .createQueryBuilder("ch")
+    .where("ch.casNumber = :cas AND lower(ch.name) = lower(:name)", { cas: values.casNumber, name: values.name })
+    .getOne();
+  if (dup) throw new Conflict(`${values.name} (${values.casNumber}) is already on record as chemical ${dup.id}.`, "chemical_exists", { chemicalId: dup.id });
+  const res = await em.insert(Chemical, { ...values, createdAt: now.toISOString() });
+  const id = res.identifiers[0].id as number;
+  await audit(em, now, actorId, "chemical.created", "chemical", id, { name: values.name, casNumber: values.casNumber });
+  return (await em.findOneBy(Chemical, { id }))!;
 }
 
-export type ChemicalService = ReturnType<typeof createChemicalService>;
+export async function createChemical(deps: Deps, actorId: number, input: ChemicalInput): Promise<Chemical> {
+  const { values, errors } = checkChemicalInput(input);
+  if (errors.length) throw new RuleBroken(errors.map((e) => e.message).join(" "), errors, "invalid_chemical");
+  return serialTransaction(deps.ds, (em) => insertChemical(em, deps.now(), actorId, values));
+}
+
+/** One change to one chemical in its own transaction, answering the fresh record. */
+function changeChemical(deps: Deps, id: number, work: (em: EntityManager, c: Chemical, now: Date) => Promise<void>): Promise<Chemical> {
+  return serialTransaction(deps.ds, async (em) => {
+    const c = await em.findOneBy(Chemical, { id });
+    if (!c) throw new NotFound("That chemical");
+    await work(em, c, deps.now());
+    return (await em.findOneBy(Chemical, { id }))!;
+  });
+}
+
+export const updateChemical = (deps: Deps, actorId: number, id: number, input: ChemicalUpdate) =>
+  changeChemical(deps, id, async (em, current, now) => {
+    const { values, errors } = checkChemicalInput(input, current);
+    if (errors.length) throw new RuleBroken(errors.map((e) => e.message).join(" "), errors, "invalid_chemical");
+    if (Object.keys(values).length) await em.update(Chemical, id, values);
+    await audit(em, now, actorId, "chemical.updated", "chemical", id, { fields: Object.keys(input) });
+  });
+
+/** A chemical on hold stops usage of every container of it. */
+export const holdChemical = (deps: Deps, actorId: number, id: number, reason: string) =>
+  changeChemical(deps, id, async (em, _c, now) => {
+    await em.update(Chemical, id, { onHoldReason: reason });
+    await audit(em, now, actorId, "chemical.held", "chemical", id, { reason });
+  });
+
+export const releaseChemical = (deps: Deps, actorId: number, id: number) =>
+  changeChemical(deps, id, async (em, c, now) => {
+    if (c.onHoldReason === null) throw new Conflict(`${c.name} is not on hold.`, "not_on_hold");
+    await em.update(Chemical, id, { onHoldReason: null });
+    await audit(em, now, actorId, "chemical.released", "chemical", id, { reason: c.onHoldReason });
+  });

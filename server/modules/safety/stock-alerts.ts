@@ -8,11 +8,11 @@
 import type { DataSource, EntityManager } from "typeorm";
 import { DateTime } from "luxon";
 import { convertAmount, UnitError } from "@shared/domain/units";
-import { Chemical, StockAlert } from "../entities";
-import type { StockAlertKind } from "../entities/stock-alert.entity";
-import { serialTransaction } from "../db/serial";
-import { enqueueMail } from "../core/outbox";
-import { facilityToday, safetyLocationTotals } from "./safety.service";
+import { Chemical, StockAlert } from "../../entities";
+import type { StockAlertKind } from "../../entities/stock-alert.entity";
+import { serialTransaction } from "../../db/serial";
+import { enqueueMail } from "../../core/outbox";
+import { facilityToday, safetyLocationTotals } from "./safety.queries";
 
 export const EXPIRY_WARNING_DAYS = 30;
 /** A subject already mailed is not mailed again for this long. */

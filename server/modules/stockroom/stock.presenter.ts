@@ -1,8 +1,11 @@
 /** Chemicals, containers and locations → the DTOs of shared/schemas/stock. */
 import { isHalogenated } from "@shared/domain/chemistry";
 import { ghsFlammableCategory, isAcutelyToxic, isCarcinogen, nfpaClass } from "@shared/domain/hazards";
-import type { ChemicalDto, ContainerDto, LocationDto } from "@shared/schemas/stock";
-import type { Chemical, Container, Location } from "../entities";
+import type { ChemicalDto, ContainerDetailDto, ContainerDto, LocationDto } from "@shared/schemas/stock";
+import type { Chemical, Container, Location } from "../../entities";
+import type { AuthUser } from "../../middleware/auth";
+import { containerPolicy } from "./container.policy";
+import type { containerDetail } from "./container.queries";
 
 function safeHalogenated(formula: string | null): boolean {
   if (!formula) return false;
@@ -49,7 +52,7 @@ export function presentChemical(c: Chemical): ChemicalDto {
 /** A container row as the list query returns it: the container's columns plus names joined in. */
 export type ContainerRow = Container & { chemicalName: string; casNumber: string; locationName: string | null; chemicalHoldReason: string | null };
 
-export function presentContainer(c: ContainerRow): ContainerDto {
+export function presentContainer(c: ContainerRow, viewer: AuthUser): ContainerDto {
   return {
     id: c.id,
     chemicalId: c.chemicalId,
@@ -66,6 +69,7 @@ export function presentContainer(c: ContainerRow): ContainerDto {
     expiresAt: c.expiresAt,
     retestAt: c.retestAt,
     groupId: c.groupId,
+    organisation: c.organisation,
     labelToken: c.labelToken,
     supplier: c.supplier,
     lot: c.lot,
@@ -74,6 +78,53 @@ export function presentContainer(c: ContainerRow): ContainerDto {
     holdReason: c.holdReason,
     chemicalHoldReason: c.chemicalHoldReason,
     createdAt: c.createdAt,
+    abilities: containerPolicy.abilities(viewer, c),
+  };
+}
+
+/**
+ * The container page. Who used it, on which account and at what cost go only to those the
+ * policy lets see the history; everyone else gets the chemical, hazards, quantity, place and
+ * state, and their own usages in full.
+ */
+export function presentContainerDetail(d: Awaited<ReturnType<typeof containerDetail>>, viewer: AuthUser): ContainerDetailDto {
+  const container = presentContainer(d.container, viewer);
+  const shown = container.abilities.seeHistory;
+  return {
+    container,
+    chemical: presentChemical(d.chemical),
+    locationPath: d.locationPath,
+    movements: d.movements.map((m) => ({
+      id: m.id,
+      kind: m.kind,
+      fromLocationId: m.fromLocationId,
+      fromLocationName: m.fromLocationName,
+      toLocationId: m.toLocationId,
+      toLocationName: m.toLocationName,
+      userName: shown || m.userId === viewer.id ? m.userName : null,
+      note: m.note,
+      at: m.at,
+    })),
+    usages: d.usages.map((u) => {
+      const mine = u.userId === viewer.id;
+      const full = shown || mine;
+      return {
+        id: u.id,
+        amount: u.amount,
+        unit: u.unit,
+        amountInContainerUnit: u.amountInContainerUnit,
+        costCents: full ? u.costCents : null,
+        bookingId: full ? u.bookingId : null,
+        accountId: full ? u.accountId : null,
+        userName: full ? u.userName : null,
+        note: full ? u.note : "",
+        at: u.at,
+        mine,
+      };
+    }),
+    parents: d.parents,
+    children: d.children,
+    historyShown: shown,
   };
 }
 

@@ -12,8 +12,8 @@ import { DateTime } from "luxon";
 import { ghsFlammableCategory } from "@shared/domain/hazards";
 import { containerLitres, locationTotals } from "@shared/domain/stock";
 import type { LocationTotalsDto } from "@shared/schemas/stock";
-import { Chemical, Location, Setting } from "../entities";
-import { locationPaths, presentChemical } from "../presenters/stock.presenter";
+import { Chemical, Location, Setting } from "../../entities";
+import { locationPaths, presentChemical } from "../stockroom";
 
 /** Months after which a safety data sheet is due for review, unless the facility sets its own. */
 export const DEFAULT_SDS_REVIEW_MONTHS = 36; // common practice (many institutions review every 3 years); a facility setting
