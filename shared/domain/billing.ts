@@ -367,7 +367,11 @@ export interface ConsumableCharge {
   amountCents: Cents;
 }
 
-/** quantity × unit cost × (1 + mark-up), each amount rounded half away from zero to the cent. */
+/**
+ * quantity × unit cost × (1 + mark-up), each amount rounded half away from zero to the cent.
+ * Whole-cent unit costs only; charges.ts chargeLine/consumableChargeLine take exact fractional
+ * unit prices and return the line's quantity, unit and unit price too.
+ */
 export function consumableCharge({ quantityUsed, unitCostCents, markupPercent = 0 }: ConsumableInput): ConsumableCharge {
   if (!(quantityUsed >= 0) || !Number.isFinite(quantityUsed)) throw new RangeError("quantityUsed must be zero or more");
   if (!Number.isSafeInteger(unitCostCents) || unitCostCents < 0) throw new RangeError("unitCostCents must be whole cents, zero or more");

@@ -11,8 +11,18 @@
  * - adducts (hydrates, solvates, etherates) joined by ".", "·", "•", "⋅", "∙" or "*":
  *   "LiCl.H2O", "CuSO4·5H2O", "LiB(C6F5)4·2.5(C2H5)2O". A number right after a joining dot
  *   multiplies that adduct part and may be decimal (solvates are often non-integral);
- *   a dot anywhere else joins parts, so "CuSO4.5H2O" is the pentahydrate, never "CuSO4.5".
- *   Non-integral subscripts inside a part (Fe0.95O) are therefore not supported.
+ *   between a count and letters a dot joins parts, so "CuSO4.5H2O" is the pentahydrate,
+ *   never "CuSO4.5" with an H2O.
+ * - decimal counts, as Phasebook prints them in Hill formulas ("C34H25BF20LiO2.5" for the
+ *   2.5-etherate of LiB(C6F5)4): a dot between digits is a decimal point when nothing could
+ *   follow it as an adduct, i.e. its digits end the formula or are followed by ")", "]", a
+ *   charge ("O2.5", "(OH)2.5"); when what follows is a single element, which is no adduct
+ *   ("CaHO4.5S", the Hill formula of CaSO4·0.5H2O; "FeH2.5O2.5"); when the count before it is
+ *   0 ("Fe0.95O"); and throughout a formula written in Hill order with carbon (C, then H, then
+ *   the other elements alphabetically, each once: "C6H12.5O6.25"). Elsewhere such a dot keeps
+ *   its traditional meaning and joins an adduct ("MgCl2.6H2O", "BaCl2.2H2O" are hydrates).
+ *   Left ambiguous, and read as an adduct: a non-carbon Hill formula whose decimal count is
+ *   followed by two or more elements (write such a formula with its adduct, e.g. "CaSO4·0.5H2O").
  * - square brackets as grouping ("K[B(C6H5)4]"); "[13C]", "[2H]" (a digit first) label isotopes.
  * - charges in parentheses ("SO4(2-)", "Fe(3+)") or a bare sign after a letter or a bracket
  *   ("Na+", "Cl-"). A bare sign after a digit ("Fe2+", "PF6-") is refused as ambiguous:
@@ -86,15 +96,51 @@ interface ParsedLine {
   multiplier: number;
 }
 
+const HILL_TOKEN = /([A-Z][a-z]?)(\d+(?:\.\d+)?)?/g;
+
+/**
+ * True for a formula in Hill order with carbon and decimal counts allowed ("C34H25BF20LiO2.5"):
+ * only element symbols and counts, C first, H next if present, the rest alphabetically, each once.
+ */
+function isCarbonHillFormula(compact: string): boolean {
+  if (!/^(?:[A-Z][a-z]?(?:\d+(?:\.\d+)?)?)+$/.test(compact)) return false;
+  const symbols = [...compact.matchAll(HILL_TOKEN)].map((m) => m[1]);
+  if (symbols[0] !== "C" || new Set(symbols).size !== symbols.length) return false;
+  const rest = symbols.slice(symbols[1] === "H" ? 2 : 1);
+  return !rest.includes("H") && rest.every((sym, i) => i === 0 || rest[i - 1].localeCompare(sym, "en") < 0);
+}
+
+/** A "." at `i` that can only be a decimal point (see the notes at the top of this file). */
+function isDecimalPoint(body: string, i: number): boolean {
+  if (body[i] !== "." || !/\d/.test(body[i - 1] ?? "") || !/\d/.test(body[i + 1] ?? "")) return false;
+  const before = /\d+$/.exec(body.slice(0, i))![0];
+  if (before === "0") return true;
+  const after = body.slice(i + 1).replace(/^\d+/, "");
+  // Nothing an adduct could be: the end, a closing bracket, a charge, or a separator before letters.
+  if (after === "" || /^[)\]]/.test(after) || /^\(\d*[+-]\)/.test(after) || /^[.·•⋅∙*]\D/.test(after)) return true;
+  // A single element is no adduct ("CaHO4.5S", the Hill formula of CaSO4·0.5H2O, is not CaHO4 with 5 S).
+  const single = /^([A-Z][a-z]?)(?:\d+(?:\.\d+)?)?(?:$|[)\]]|\(\d*[+-]\)|[.·•⋅∙*]\D)/.exec(after);
+  return single !== null && atomicWeight(single[1]) !== undefined;
+}
+
+/** The first adduct separator in `body` that is not a decimal point, or −1. */
+function findAdductCut(body: string): number {
+  for (let i = 0; i < body.length; i++) {
+    if (ADDUCT_SEPARATORS.test(body[i]) && !isDecimalPoint(body, i)) return i;
+  }
+  return -1;
+}
+
 /** Splits at adduct dots, keeping a leading decimal multiplier of each later part intact. */
 function splitAdductParts(compact: string): string[] {
+  if (isCarbonHillFormula(compact)) return [compact];
   const parts: string[] = [];
   let rest = compact;
   let first = true;
   while (rest.length > 0) {
     const leading = first ? "" : (/^\d+(?:\.\d+)?/.exec(rest)?.[0] ?? "");
     const body = rest.slice(leading.length);
-    const cut = body.search(ADDUCT_SEPARATORS);
+    const cut = findAdductCut(body);
     if (cut === -1) {
       parts.push(leading + body);
       rest = "";

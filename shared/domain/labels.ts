@@ -3,7 +3,7 @@
  * error-correction level that hold that URL, and where labels sit on a sheet of label stock.
  * Pure functions, used by the PDF renderer on the server and by the Scan page in the browser.
  *
- * QR facts (ISO/IEC 18004, as reproduced in the project's reference page): side length
+ * QR facts (ISO/IEC 18004, as reproduced by a secondary source, not re-read in the standard): side length
  * = 4 × version + 17 modules; error correction recovers about 7 % (L), 15 % (M), 25 % (Q)
  * and 30 % (H) of the symbol. Labels use level Q: a smudge or a drop of solvent over a
  * quarter of the code still reads, at a modest cost in size over M.
@@ -37,7 +37,7 @@ export type QrEcLevel = "L" | "M" | "Q" | "H";
 
 /**
  * Byte-mode capacity (bytes) per version and error-correction level.
- * L and M for versions 1–4: ISO/IEC 18004 capacity table as reproduced in the reference page
+ * L and M for versions 1–4: ISO/IEC 18004 capacity table as reproduced by a secondary source
  * (1-L 17, 1-M 14, 2-L 32, 2-M 26, 3-M 42, 4-L 78, 4-M 62). 3-L and all Q and H values, and
  * versions 5–10: from memory of the same table; the unit tests check every entry against the
  * qrcode package, which refuses one byte more than a version holds.

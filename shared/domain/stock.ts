@@ -24,6 +24,7 @@ export interface StockContainer {
  * A prepared solution is kept as a volume of solution: an amount of its solute converts
  * through the concentration (V = n ÷ c); a mass of solution would need the solution's
  * density, which Phasebook does not know, so it is refused. Throws UnitError.
+ * A float: for the decrement itself use exact-amounts.ts withdrawExact, which leaves exactly 0.
  */
 export function amountInContainerUnit(amount: number, unit: string, container: StockContainer, chemical: StockChemical): number {
   if (typeof amount !== "number" || !Number.isFinite(amount)) throw new UnitError("invalid_amount", "amount", "The amount must be a finite number.");
@@ -60,6 +61,8 @@ export function amountInContainerUnit(amount: number, unit: string, container: S
  * Cost in whole cents of an amount at the chemical's unit cost (cents per costUnit), rounded
  * half up to the cent. Null when the chemical has no unit cost or the amount cannot be
  * expressed in the cost unit (e.g. a solid priced per g, logged in mL without a density).
+ * Rounded at the time of use: for billing keep charges.ts usageCost (unrounded) with the usage
+ * and round once on the charge line (consumableChargeLine).
  */
 export function usageCostCents(
   amount: number,

@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import { handlingCautions, needsFumeHood, PRECEDENCE_CAUTION, type CautionChemical } from "@shared/domain/cautions";
 
 // 1,2-Dichloroethane: closed-cup flash point 13 °C (Merck Index), boiling point 83.5 °C (IARC
-// Monographs vol. 71), H-codes as in the reference page; GHS category 2, NFPA class IB.
+// Monographs vol. 71), H-codes as on suppliers' safety data sheets (some add H304 or H331);
+// GHS category 2, NFPA class IB.
 const DCE: CautionChemical = {
   hazardStatements: ["H225", "H302", "H315", "H319", "H335", "H350"],
   flashPointC: 13,

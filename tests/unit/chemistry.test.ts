@@ -15,7 +15,7 @@ function expectRoundsTo(actual: number, published: number, decimals: number): vo
 }
 
 describe("STANDARD_ATOMIC_WEIGHTS", () => {
-  // IUPAC/CIAAW Standard Atomic Weights 2021, abridged values, as listed on the facility's reference page.
+  // IUPAC/CIAAW Standard Atomic Weights 2021, abridged values (Pure Appl. Chem. 94 (2022) 573–600; ciaaw.org).
   it.each([
     ["H", 1.008], ["Li", 6.94], ["B", 10.81], ["C", 12.011], ["N", 14.007], ["O", 15.999],
     ["F", 18.998], ["Na", 22.99], ["P", 30.974], ["S", 32.06], ["Cl", 35.45], ["K", 39.098],
@@ -35,7 +35,7 @@ describe("STANDARD_ATOMIC_WEIGHTS", () => {
 });
 
 describe("molarMassFromFormula", () => {
-  // Molar masses computed from CIAAW 2021 abridged weights, from the facility's reference page.
+  // Molar masses summed by hand from the CIAAW 2021 abridged weights above.
   it.each([
     ["LiCl", 42.39],
     ["NaCl", 58.44],
@@ -91,6 +91,42 @@ describe("molarMassFromFormula", () => {
       // LiB(C6F5)4 685.974 + 2.5 × Et2O 74.123 = 871.2815 (CIAAW 2021 abridged weights)
       expect(molarMassFromFormula("LiB(C6F5)4·2.5(C2H5)2O")).toBeCloseTo(871.2815, 6);
       expect(molarMassFromFormula("LiB(C6F5)4·2.5Et2O")).toBeCloseTo(871.2815, 6);
+    });
+  });
+
+  describe("decimal counts (Hill formulas as Phasebook prints them)", () => {
+    // IUPAC/CIAAW 2021 abridged standard atomic weights: C 12.011, H 1.008, B 10.81, F 18.998,
+    // Li 6.94, O 15.999. C34H25BF20LiO2.5 by hand:
+    // 34 × 12.011 = 408.374; 25 × 1.008 = 25.2; 10.81; 20 × 18.998 = 379.96; 6.94; 2.5 × 15.999 = 39.9975
+    const ETHERATE = 408.374 + 25.2 + 10.81 + 379.96 + 6.94 + 39.9975; // 871.2815
+
+    it("accepts C34H25BF20LiO2.5, the Hill formula printed for the 2.5-etherate, and weighs it 871.2815 g/mol", () => {
+      expect(ETHERATE).toBeCloseTo(871.2815, 9);
+      expect(molarMassFromFormula("C34H25BF20LiO2.5")).toBeCloseTo(ETHERATE, 9);
+      expect(normaliseFormula("C34H25BF20LiO2.5")).toBe("C34H25BF20LiO2.5");
+    });
+
+    it("reads back every Hill formula it prints for a solvate, with the same molar mass", () => {
+      for (const formula of ["LiB(C6F5)4·2.5(C2H5)2O", "LiB(C6F5)4·0.5(C2H5)2O", "CaSO4·0.5H2O", "Fe(OH)2.5", "C6H12O6·0.25H2O", "CdCl2·2.5H2O"]) {
+        const hill = analyseFormula(formula).hillFormula;
+        expect(molarMassFromFormula(hill), `${formula} → ${hill}`).toBeCloseTo(molarMassFromFormula(formula), 9);
+      }
+      expect(analyseFormula("CaSO4·0.5H2O").hillFormula).toBe("CaHO4.5S");
+      expect(analyseFormula("C6H12O6·0.25H2O").hillFormula).toBe("C6H12.5O6.25");
+    });
+
+    it("reads a count of 0.something as a decimal: wüstite Fe0.95O is 0.95 × 55.845 + 15.999 = 69.05175 g/mol", () => {
+      expect(molarMassFromFormula("Fe0.95O")).toBeCloseTo(0.95 * 55.845 + 15.999, 9);
+    });
+
+    it.each([
+      ["MgCl2.6H2O", "MgCl2·6H2O"],
+      ["BaCl2.2H2O", "BaCl2·2H2O"],
+      ["CdCl2.2.5H2O", "CdCl2·2.5H2O"],
+      ["LiB(C6F5)4.2.5Et2O", "LiB(C6F5)4·2.5Et2O"],
+    ])("still reads the traditional dot of %j as an adduct (%j)", (typed, adduct) => {
+      expect(normaliseFormula(typed)).toBe(adduct);
+      expect(molarMassFromFormula(typed)).toBeCloseTo(molarMassFromFormula(adduct), 9);
     });
   });
 

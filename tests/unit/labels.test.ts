@@ -31,7 +31,7 @@ const fits = (n: number, version: number, ec: QrEcLevel) => {
 };
 
 describe("QR_BYTE_CAPACITY", () => {
-  it("agrees with the ISO/IEC 18004 capacity table in the reference page (1-L 17, 1-M 14, 2-L 32, 2-M 26, 3-M 42, 4-L 78, 4-M 62)", () => {
+  it("agrees with the ISO/IEC 18004 capacity table as reproduced by a secondary source (1-L 17, 1-M 14, 2-L 32, 2-M 26, 3-M 42, 4-L 78, 4-M 62)", () => {
     expect(QR_BYTE_CAPACITY.L[0]).toBe(17);
     expect(QR_BYTE_CAPACITY.M[0]).toBe(14);
     expect(QR_BYTE_CAPACITY.L[1]).toBe(32);

@@ -3,13 +3,15 @@
  * the account, the purpose and an optional weekly repeat. It validates with the shared schema;
  * the server re-checks everything and its field errors land on the fields, and a series that
  * fails lists each failing session. Start and end are typed on the facility's clock and sent
- * with that zone's offset for the chosen day, whatever the browser's own zone.
+ * with that zone's offset for the chosen day, whatever the browser's own zone. On the night the
+ * clocks go back the repeated hour happens twice, and the person says which; a time in the hour
+ * skipped when they go forward is refused next to the field.
  */
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { InstrumentDto } from "@shared/schemas/instruments";
 import type { OccurrenceProblem } from "@shared/schemas/bookings";
-import { toZonedInput, zoneShortName, zonedInputToIso } from "@shared/domain/facility-time";
+import { resolveWallClock, toZonedInput, zoneShortName } from "@shared/domain/facility-time";
 import { ApiError } from "@/lib/api-client";
 import { describeError } from "@/lib/forms";
 import { formatSpan } from "@/lib/format";
@@ -19,6 +21,53 @@ import { Input, Select } from "@/components/ui/input";
 import { FieldSet } from "@/components/ui/field";
 import { useCreateBooking } from "../api/booking-actions";
 import { useAccounts, useSetups } from "../api/get-schedule-data";
+
+type TimeField = "start" | "end";
+
+/** The choice matching a known instant when its wall-clock time is ambiguous (a range picked on the calendar). */
+function pickFor(value: string, zone: string, at: Date): string | null {
+  const r = resolveWallClock(value, zone);
+  return r.kind === "ambiguous" ? (r.choices.find((c) => new Date(c.iso).getTime() === at.getTime())?.iso ?? null) : null;
+}
+
+/** A wall-clock input on the facility's clock; in the repeated hour, a radio pair says which of the two. */
+function WallClockInput({
+  label,
+  value,
+  zone,
+  picked,
+  error,
+  testId,
+  onChange,
+  onPick,
+}: {
+  label: string;
+  value: string;
+  zone: string;
+  picked: string | null;
+  error?: string;
+  testId: string;
+  onChange: (value: string) => void;
+  onPick: (iso: string) => void;
+}) {
+  const r = value ? resolveWallClock(value, zone) : null;
+  return (
+    <div className="flex flex-col gap-2">
+      <Input label={label} type="datetime-local" value={value} onChange={(e) => onChange(e.target.value)} required error={r?.kind === "skipped" ? r.message : r?.kind === "ambiguous" ? undefined : error} data-testid={testId} />
+      {r?.kind === "ambiguous" && (
+        <FieldSet legend={r.message} id={`${testId}-which`} error={error}>
+          <div className="flex flex-col gap-1 text-sm">
+            {r.choices.map((c) => (
+              <label key={c.iso} className="flex items-center gap-1.5">
+                <input type="radio" name={`${testId}-which`} value={c.iso} checked={picked === c.iso} onChange={() => onPick(c.iso)} data-testid={`${testId}-choice`} /> {c.label}
+              </label>
+            ))}
+          </div>
+        </FieldSet>
+      )}
+    </div>
+  );
+}
 
 interface Values {
   mode: "instruments" | "setup";
@@ -50,6 +99,11 @@ export function BookingForm({
   const setups = useSetups();
   const create = useCreateBooking();
   const [times, setTimes] = useState({ start: toZonedInput(start, zone), end: toZonedInput(end, zone) });
+  const [picked, setPicked] = useState<Record<TimeField, string | null>>(() => ({
+    start: pickFor(toZonedInput(start, zone), zone, start),
+    end: pickFor(toZonedInput(end, zone), zone, end),
+  }));
+  const [timeErrors, setTimeErrors] = useState<Partial<Record<TimeField, string>>>({});
   const [problems, setProblems] = useState<OccurrenceProblem[]>([]);
   const [general, setGeneral] = useState<string | null>(null);
   const chargeable = (accounts.data ?? []).filter((a) => a.chargeable);
@@ -68,10 +122,22 @@ export function BookingForm({
       setError("accountId", { message: "Choose an account to charge" });
       return;
     }
-    const startIso = zonedInputToIso(times.start, zone);
-    const endIso = zonedInputToIso(times.end, zone);
+    // Each time as one instant: exact, or the reading the person picked in the repeated hour.
+    const errors: Partial<Record<TimeField, string>> = {};
+    const isoOf = (field: TimeField): string | null => {
+      const r = resolveWallClock(times[field], zone);
+      if (r.kind === "exact") return r.iso;
+      if (r.kind === "ambiguous") {
+        if (r.choices.some((c) => c.iso === picked[field])) return picked[field];
+        errors[field] = `Choose which ${times[field].slice(11, 16)} you mean.`;
+      } else if (r.kind === "invalid") errors[field] = times[field] ? r.message : "Give a date and a time.";
+      return null; // a skipped time already shows its sentence under the field
+    };
+    const startIso = isoOf("start");
+    const endIso = isoOf("end");
+    setTimeErrors(errors);
     if (!startIso || !endIso) {
-      setGeneral("Give a start and an end date and time.");
+      setGeneral("Give a start and an end date and time that exist on the facility's clock.");
       return;
     }
     try {
@@ -104,8 +170,26 @@ export function BookingForm({
   return (
     <form onSubmit={submit} className="flex flex-col gap-3" data-testid="booking-form" noValidate>
       <div className="grid gap-3 sm:grid-cols-2">
-        <Input label="Start" type="datetime-local" value={times.start} onChange={(e) => setTimes((t) => ({ ...t, start: e.target.value }))} required data-testid="booking-start" />
-        <Input label="End" type="datetime-local" value={times.end} onChange={(e) => setTimes((t) => ({ ...t, end: e.target.value }))} required data-testid="booking-end" />
+        {(["start", "end"] as const).map((field) => (
+          <WallClockInput
+            key={field}
+            label={field === "start" ? "Start" : "End"}
+            value={times[field]}
+            zone={zone}
+            picked={picked[field]}
+            error={timeErrors[field]}
+            testId={`booking-${field}`}
+            onChange={(value) => {
+              setTimes((t) => ({ ...t, [field]: value }));
+              setPicked((p) => ({ ...p, [field]: null }));
+              setTimeErrors((e) => ({ ...e, [field]: undefined }));
+            }}
+            onPick={(iso) => {
+              setPicked((p) => ({ ...p, [field]: iso }));
+              setTimeErrors((e) => ({ ...e, [field]: undefined }));
+            }}
+          />
+        ))}
       </div>
       <p className="text-xs text-grey-600" data-testid="booking-zone">
         Times are the facility's local time ({zone.replace(/_/g, " ")}, {zoneShortName(start, zone)}), the same clock as the instruments' bookable hours.
