@@ -1,0 +1,7 @@
+/**
+ * Run plans' ion-transfer computations: the one entry the server and the client import.
+ * See each module for its equations and sources.
+ */
+export * from "./constants";
+export * from "./ion-table";
+export * from "./resolve-ions";
