@@ -5,3 +5,4 @@
 export * from "./constants";
 export * from "./ion-table";
 export * from "./resolve-ions";
+export * from "./window";
