@@ -6,3 +6,5 @@ export * from "./constants";
 export * from "./ion-table";
 export * from "./resolve-ions";
 export * from "./window";
+export * from "./analytes";
+export * from "./scale";
