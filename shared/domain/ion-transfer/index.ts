@@ -7,4 +7,5 @@ export * from "./ion-table";
 export * from "./resolve-ions";
 export * from "./window";
 export * from "./analytes";
+export * from "./distribution";
 export * from "./scale";
