@@ -9,3 +9,4 @@ export * from "./window";
 export * from "./analytes";
 export * from "./distribution";
 export * from "./scale";
+export * from "./voltammogram";
