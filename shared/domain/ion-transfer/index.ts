@@ -10,3 +10,4 @@ export * from "./analytes";
 export * from "./distribution";
 export * from "./scale";
 export * from "./voltammogram";
+export * from "./run-plan";
