@@ -42,11 +42,13 @@ function handlerFor(ctx: Ctx, r: AnyRoute): RequestHandler {
     if (errors.length) throw new BadRequest("Some fields are missing or malformed.", errors);
     const answer = await r.handler({ ctx, actor: req.user, params, query, body, req, res });
     if (answer === WRITTEN || res.headersSent) return;
+    // A handler may set another status itself (health answers 503 when the database does not).
+    const chosen = res.statusCode !== 200 ? res.statusCode : status;
     if (answer === undefined) {
-      res.status(status === 200 ? 204 : status).end();
+      res.status(chosen === 200 ? 204 : chosen).end();
       return;
     }
-    res.status(status).json(answer);
+    res.status(chosen).json(answer);
   };
 }
 

@@ -16,13 +16,9 @@ import { createTrainingRouter } from "./training.router";
 import { createBillingRouter } from "./billing.router";
 import { createRatesRouter } from "./rates.router";
 import { createWebhooksRouter } from "./webhooks.router";
-import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
-    { path: "/health", router: createHealthRouter(ctx) },
-    { path: "/facility", router: createFacilityRouter(ctx) },
-    { path: "/dashboard", router: createDashboardRouter(ctx) },
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },
     { path: "/groups", router: createGroupsRouter(ctx) },
@@ -33,8 +29,6 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/calendar", router: createCalendarRouter(ctx) },
     { path: "/accounts", router: createAccountsRouter(ctx) },
     { path: "/reports", router: createReportsRouter(ctx) },
-    { path: "/audit", router: createAuditRouter(ctx) },
-    { path: "/dev", router: createDevRouter(ctx) },
     { path: "/rates", router: createRatesRouter(ctx) },
     { path: "/billing", router: createBillingRouter(ctx) },
     { path: "/webhooks", router: createWebhooksRouter(ctx) },

@@ -48,7 +48,6 @@ export const CONTRACT_ACCESS: Record<string, Who> = {
 
 /** Routes still served by hand-written routers (no declaration to read yet). */
 export const LEGACY_MATRIX: Record<string, Who> = {
-  "GET /api/health": PUBLIC,
   "GET /api/auth/csrf": PUBLIC,
   "POST /api/auth/login": PUBLIC,
   "POST /api/auth/logout": SIGNED_IN,
@@ -56,8 +55,6 @@ export const LEGACY_MATRIX: Record<string, Who> = {
   "POST /api/auth/password": SIGNED_IN,
   "POST /api/auth/password-reset/request": PUBLIC,
   "POST /api/auth/password-reset/confirm": PUBLIC,
-  "GET /api/facility": PUBLIC,
-  "GET /api/dashboard": SIGNED_IN,
   "GET /api/users": ["admin"],
   "POST /api/users": ["admin"],
   "PATCH /api/users/:id": ["admin"],
@@ -96,8 +93,6 @@ export const LEGACY_MATRIX: Record<string, Who> = {
   "GET /api/calendar/:token.ics": PUBLIC,
   "GET /api/reports/utilisation": ["manager"],
   "GET /api/reports/utilisation.csv": ["manager"],
-  "GET /api/audit": ["admin", "manager"],
-  "GET /api/dev/mailbox": ["admin"],
   "GET /api/accounts": SIGNED_IN,
   "POST /api/accounts": ["manager"],
   "GET /api/accounts/:id": SIGNED_IN,

@@ -1,29 +1,14 @@
-/**
- * GET /api/dev/mailbox: what the local fake mailbox received (development only; 404 in
- * production). No shared schema describes it yet because it is a development aid, so the shape
- * is declared here from the API note.
- */
+/** GET /api/dev/mailbox: what the local fake mailbox received (development only; 404 in production). */
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import { api } from "@/lib/api-client";
+import { mailboxPageDto, type MailboxMessageDto, type MailboxPageDto } from "@shared/schemas/system";
+import { api, parseResponse } from "@/lib/api-client";
 import { adminKeys } from "./keys";
 
-export interface MailboxMessage {
-  id: string;
-  from: string | null;
-  to: string[];
-  subject: string;
-  text: string;
-  html?: string | null;
-  date: string;
-}
+export type MailboxMessage = MailboxMessageDto;
+export type MailboxPage = MailboxPageDto;
 
-export interface MailboxPage {
-  items: MailboxMessage[];
-  total: number;
-}
-
-export function getMailbox(signal?: AbortSignal): Promise<MailboxPage> {
-  return api.get<MailboxPage>("/dev/mailbox", { signal });
+export async function getMailbox(signal?: AbortSignal): Promise<MailboxPage> {
+  return parseResponse(mailboxPageDto, await api.get<unknown>("/dev/mailbox", { signal }), "GET /api/dev/mailbox");
 }
 
 export const mailboxQueryOptions = () =>

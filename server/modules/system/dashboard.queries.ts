@@ -4,9 +4,9 @@
  */
 import type { BookingStatus } from "@shared/schemas/bookings";
 import type { DashboardDto } from "@shared/schemas/dashboard";
-import type { Ctx } from "../context";
-import type { AuthUser } from "../middleware/auth";
-import { safetyLocationTotals } from "../modules/safety";
+import type { Ctx } from "../../context";
+import type { AuthUser } from "../../middleware/auth";
+import { safetyLocationTotals } from "../safety";
 
 export async function dashboardFor(ctx: Ctx, user: AuthUser, sections: { manager: boolean; safety: boolean }): Promise<DashboardDto> {
   const now = ctx.now();

@@ -1,0 +1,66 @@
+/** Health, the facility's settings, each role's start page, the audit log and the development mailbox. */
+import { facilityDto } from "@shared/schemas/facility";
+import { dashboardDto } from "@shared/schemas/dashboard";
+import { pageOf } from "@shared/schemas/common";
+import { auditEntryDto, auditQuery, healthDto, mailboxPageDto } from "@shared/schemas/system";
+import { route, type RouteTable } from "../../http/route-table";
+import { hasRole } from "../../middleware/auth";
+import { NotFound } from "../../errors";
+import { dashboardFor } from "./dashboard.queries";
+import { auditPage, databaseAnswers } from "./system.queries";
+
+export const systemTable: RouteTable = {
+  module: "system",
+  description: "Health, the facility's settings, each role's start page, the audit log and, in development, the local mailbox.",
+  routes: [
+    route({
+      method: "get",
+      path: "/health",
+      summary: "Whether the server and its database answer",
+      access: "public",
+      output: healthDto,
+      handler: ({ ctx, res }) => {
+        const ok = databaseAnswers(ctx.ds);
+        res.status(ok ? 200 : 503);
+        return { status: ok ? "ok" : "degraded", db: ok ? "ok" : "unavailable" } as const;
+      },
+    }),
+    route({
+      method: "get",
+      path: "/facility",
+      summary: "The facility's name, time zone and currency (the client shows local times in the facility's zone)",
+      access: "public",
+      output: facilityDto,
+      handler: ({ ctx }) => ({ name: ctx.config.FACILITY_NAME, timeZone: ctx.config.FACILITY_TZ, currency: ctx.config.CURRENCY }),
+    }),
+    route({
+      method: "get",
+      path: "/dashboard",
+      summary: "The signed-in person's start page: next bookings, and the manager's and safety officer's figures",
+      access: "signed_in",
+      output: dashboardDto,
+      handler: ({ ctx, actor }) => dashboardFor(ctx, actor, { manager: hasRole(actor, "manager"), safety: hasRole(actor, "safety_officer", "manager") }),
+    }),
+    route({
+      method: "get",
+      path: "/audit",
+      summary: "The audit log: who did what to which record, newest first",
+      access: ["admin", "manager"],
+      query: auditQuery,
+      output: pageOf(auditEntryDto),
+      handler: ({ ctx, query }) => auditPage(ctx.ds, query),
+    }),
+    route({
+      method: "get",
+      path: "/dev/mailbox",
+      summary: "What the local fake mailbox received (development only; 404 in production)",
+      access: ["admin"],
+      output: mailboxPageDto,
+      handler: async ({ ctx }) => {
+        if (ctx.config.NODE_ENV === "production" || !ctx.mailboxUrl) throw new NotFound("The development mailbox");
+        const answer = await fetch(`${ctx.mailboxUrl}/messages`);
+        return mailboxPageDto.parse(await answer.json());
+      },
+    }),
+  ],
+};
