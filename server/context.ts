@@ -31,6 +31,8 @@ export interface AppDeps {
   quiet?: boolean;
   /** The app's version, shown in the API description. */
   version?: string;
+  /** Parse every JSON answer with its route's declared output schema (tests). */
+  checkResponses?: boolean;
 }
 
 export function createServices(deps: AppDeps) {

@@ -32,6 +32,18 @@ function parse(schema: ZodType | undefined, raw: unknown, prefix: string, errors
   return undefined;
 }
 
+/**
+ * Tests build the app with `checkResponses`: every JSON answer is then parsed with the route's
+ * declared output schema, so the published description cannot drift from what is sent.
+ */
+function checkAnswer(r: AnyRoute, answer: unknown): void {
+  if (!r.output) return;
+  const result = r.output.safeParse(answer);
+  if (!result.success) {
+    throw new Error(`${r.method.toUpperCase()} /api${r.path} answered outside its declared output schema: ${JSON.stringify(result.error.issues.slice(0, 5))}`);
+  }
+}
+
 function handlerFor(ctx: Ctx, r: AnyRoute): RequestHandler {
   const status = r.status ?? 200;
   return async (req, res) => {
@@ -48,6 +60,7 @@ function handlerFor(ctx: Ctx, r: AnyRoute): RequestHandler {
       res.status(chosen === 200 ? 204 : chosen).end();
       return;
     }
+    if (ctx.checkResponses) checkAnswer(r, answer);
     res.status(chosen).json(answer);
   };
 }

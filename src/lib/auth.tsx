@@ -6,13 +6,13 @@
 import type { ReactNode } from "react";
 import { Navigate, Outlet, useLocation } from "react-router-dom";
 import type { Role, UserDto } from "@shared/schemas/auth";
-import { useMe } from "@/features/auth/api/get-me";
+import { useMe } from "./session/get-me";
 import { paths } from "@/config/paths";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { ForbiddenNotice } from "@/components/errors/forbidden-notice";
 
-export { useLogin } from "@/features/auth/api/login";
-export { useLogout } from "@/features/auth/api/logout";
+export { useLogin } from "./session/login";
+export { useLogout } from "./session/logout";
 
 /** The signed-in person, `null` when nobody is signed in, `undefined` while still asking. */
 export function useUser() {

@@ -60,6 +60,7 @@ export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>
     quiet: true,
     staticDir: null,
     bcryptCost: 10,
+    checkResponses: true,
     ...opts.deps,
   });
   const server: Server = await new Promise((resolve) => {

@@ -6,7 +6,7 @@ import { Link } from "react-router-dom";
 import { loginInput, type UserDto } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
 import { isApiError } from "@/lib/api-client";
-import { useLogin } from "../api/login";
+import { useLogin } from "@/lib/auth";
 import { applyServerFieldErrors, describeError, tooManyRequests } from "@/lib/forms";
 import { Input } from "@/components/ui/input";
 import { Button } from "@/components/ui/button";
