@@ -79,3 +79,22 @@ describe("signing in as each demo role", () => {
     }
   });
 });
+
+describe("the API description", () => {
+  it("renders at /api/docs from files the app ships (no CDN), listing the contract's routes", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await context.newPage();
+    const foreign: string[] = [];
+    page.on("request", (r) => {
+      if (!r.url().startsWith(server.url)) foreign.push(r.url());
+    });
+    try {
+      await page.goto(`${server.url}/api/docs`);
+      await expect.poll(() => page.getByText("Phasebook API").first().isVisible(), { timeout: 20_000 }).toBe(true);
+      await expect.poll(() => page.getByText("/api/containers/{id}/usage").first().isVisible()).toBe(true);
+      expect(foreign).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});

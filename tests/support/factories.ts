@@ -11,7 +11,7 @@ let cachedHash: string | null = null;
 
 export async function makeUser(
   ds: DataSource,
-  opts: { roles?: Role[]; email?: string; name?: string; active?: boolean; password?: string } = {},
+  opts: { roles?: Role[]; email?: string; name?: string; active?: boolean; password?: string; groupId?: number | null; organisation?: string | null } = {},
 ): Promise<User> {
   seq += 1;
   const passwordHash = opts.password ? await hashPassword(opts.password, 10) : (cachedHash ??= await hashPassword(TEST_PASSWORD, 10));
@@ -22,7 +22,8 @@ export async function makeUser(
     passwordHash,
     active: opts.active ?? true,
     departmentId: null,
-    groupId: null,
+    groupId: opts.groupId ?? null,
+    organisation: opts.organisation ?? null,
     calendarToken: newToken(24),
     createdAt: t,
     updatedAt: t,

@@ -39,7 +39,7 @@ export async function makeDichloroethane(ds: DataSource): Promise<Chemical> {
 
 export async function makeContainer(
   ds: DataSource,
-  opts: { chemicalId: number; locationId?: number | null; groupId?: number | null; kind?: Container["kind"]; status?: Container["status"]; quantity?: number; unit?: string },
+  opts: { chemicalId: number; locationId?: number | null; groupId?: number | null; organisation?: string | null; kind?: Container["kind"]; status?: Container["status"]; quantity?: number; unit?: string; holdReason?: string | null },
 ): Promise<Container> {
   return ds.getRepository(Container).save({
     chemicalId: opts.chemicalId,
@@ -50,6 +50,8 @@ export async function makeContainer(
     locationId: opts.locationId ?? null,
     status: opts.status ?? "in_use",
     groupId: opts.groupId ?? null,
+    organisation: opts.organisation ?? null,
+    holdReason: opts.holdReason ?? null,
     labelToken: newToken(24),
     expiresAt: "2027-06-30",
     createdAt: stamp,
