@@ -50,11 +50,11 @@ const SETUPS = {
   disposed: { groupId: () => ownGroup, status: "disposed" as const },
 };
 
-const CHANGES = [
+const CHANGES: { name: string; contract: (id: number) => [string, object]; scan: (id: number) => [string, object] }[] = [
   { name: "move", contract: (id: number) => [`/api/containers/${id}/move`, { locationId: places[1] }], scan: (id: number) => [`/api/scan-actions/containers/${id}/move`, { locationId: places[1] }] },
   { name: "mark empty", contract: (id: number) => [`/api/containers/${id}/empty`, {}], scan: (id: number) => [`/api/scan-actions/containers/${id}/empty`, { wasteNote: "" }] },
   { name: "dispose", contract: (id: number) => [`/api/containers/${id}/dispose`, { reason: "Halogenated waste W3" }], scan: (id: number) => [`/api/scan-actions/containers/${id}/dispose`, { wasteNote: "Halogenated waste W3" }] },
-] as const;
+];
 
 describe("container changes through the Stockroom's route and the Scan page's", () => {
   for (const change of CHANGES) {
