@@ -17,6 +17,14 @@ export class ContainerUsage {
   @Column("real") amountInContainerUnit: number;
   /** At unit cost, before any mark-up; null when the chemical has no unit cost. */
   @Column("integer", { nullable: true }) costCents: number | null;
+  /**
+   * The cost as worked out at the time of use, unrounded (decimal strings): the quantity in the
+   * chemical's cost unit and the price of one unit. Billing rounds once, at the charge line,
+   * after the mark-up; costCents above is that figure rounded, for display.
+   */
+  @Column("text", { nullable: true }) costQuantity: string | null;
+  @Column("text", { nullable: true }) costUnit: string | null;
+  @Column("text", { nullable: true }) unitCostCents: string | null;
   @Column("text", { default: "" }) note: string;
   @Index() @Column("text") at: string;
 

@@ -19,6 +19,7 @@ import { InstrumentFault } from "./instrument-fault.entity";
 import { LabelHistory } from "./label-history.entity";
 import { LabelStock } from "./label-stock.entity";
 import { Location } from "./location.entity";
+import { LocationLimit } from "./location-limit.entity";
 import { OutboundMail } from "./outbound-mail.entity";
 import { PasswordReset } from "./password-reset.entity";
 import { ResearchGroup } from "./research-group.entity";
@@ -41,12 +42,12 @@ export {
   BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
 };
 // Stockroom and safety review.
-export { ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert };
+export { ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert };
 
 export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
-  ContainerMovement, SafetyDataSheet, SolutionComponent, StockAlert,
+  ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert,
   Setup, SetupInstrument, TrainingRequest,
   BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
 ];

@@ -10,7 +10,7 @@ export type LocationType =
   | "fume_hood"
   | "waste_area";
 
-/** A place: building › room › cabinet or shelf, with the storage limits the safety office sets. */
+/** A place: building › room › cabinet or shelf. Its storage limits by liquid class are LocationLimit rows. */
 @Entity("locations")
 export class Location {
   @PrimaryGeneratedColumn("increment") id: number;
@@ -18,11 +18,7 @@ export class Location {
   @Column("text") level: LocationLevel;
   @Column("text") name: string;
   @Column("text", { default: "general" }) type: LocationType;
-  /** Litres of GHS category 1–3 flammable liquids allowed here (null: no limit set). */
-  @Column("real", { nullable: true }) flammableLimitLitres: number | null;
-  /** Litres of category 4 combustible liquids allowed here. */
-  @Column("real", { nullable: true }) combustibleLimitLitres: number | null;
-  /** Where the limit comes from, e.g. "Example only: OSHA 1910.106 cabinet limit". */
+  /** Where the location's limits come from, e.g. "Example only: OSHA 1910.106 cabinet limit". */
   @Column("text", { default: "" }) limitNote: string;
 
   @ManyToOne("Location", { onDelete: "RESTRICT", nullable: true })

@@ -27,6 +27,8 @@ export const safetyReviewDto = z.object({
   ),
   expired: z.array(reviewContainer),
   noLocation: z.array(reviewContainer),
+  /** Flammable or combustible liquids whose volume cannot be computed (no density on record). */
+  unknownVolume: z.array(reviewContainer),
   onHold: z.object({ containers: z.array(reviewContainer), chemicals: z.array(z.object({ chemicalId: z.number(), name: z.string(), reason: z.string().nullable() })) }),
   halogenatedWaste: z.array(reviewContainer.extend({ fillPercent: z.number().nullable() })),
   sdsDue: z.array(z.object({ chemicalId: z.number(), name: z.string(), reviewedOn: z.string().nullable() })),

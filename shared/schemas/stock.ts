@@ -6,6 +6,7 @@
  */
 import { z } from "zod";
 import { id, isoDate, pageQuery } from "./common";
+import { locationClassTotals, nfpaClassSchema, storageLimitResultDto } from "./storage";
 
 export const CONTAINER_STATUSES = ["sealed", "in_use", "on_hold", "empty", "disposed"] as const;
 export const containerStatus = z.enum(CONTAINER_STATUSES);
@@ -205,6 +206,11 @@ export const receiveInput = z.object({
   groupId: id().nullable().optional(),
   /** An external customer's own containers: its organisation's name, as on its accounts. */
   organisation: z.string().trim().max(200).nullable().optional(),
+  /**
+   * Receive a flammable or combustible liquid by mass or amount although its chemical has no
+   * density: its volume stays unknown and the storage totals say so ("cannot confirm").
+   */
+  allowUnknownVolume: z.boolean().optional(),
 });
 export type ReceiveInput = z.infer<typeof receiveInput>;
 
@@ -310,6 +316,18 @@ export type PrepareSolutionInput = z.infer<typeof prepareSolutionInput>;
 
 // ---------------------------------------------------------------- locations
 
+/** A storage limit on a location, as the safety office entered it (see shared/schemas/storage.ts). */
+export const locationLimitDto = z.object({
+  id: z.number(),
+  classes: z.array(nfpaClassSchema),
+  maxLitres: z.number(),
+  enteredVolume: z.number(),
+  enteredUnit: z.enum(["L", "US gal"]),
+  includesCabinets: z.boolean(),
+  note: z.string(),
+});
+export type LocationLimitDto = z.infer<typeof locationLimitDto>;
+
 export const locationDto = z.object({
   id: z.number(),
   parentId: z.number().nullable(),
@@ -317,8 +335,8 @@ export const locationDto = z.object({
   name: z.string(),
   path: z.string(),
   type: locationType,
-  flammableLimitLitres: z.number().nullable(),
-  combustibleLimitLitres: z.number().nullable(),
+  /** Limits by fire-code liquid class; the local fire code and the safety office set them. */
+  limits: z.array(locationLimitDto),
   limitNote: z.string(),
 });
 export type LocationDto = z.infer<typeof locationDto>;
@@ -328,8 +346,6 @@ export const locationInput = z.object({
   level: locationLevel,
   name: z.string({ message: "Enter the location's name" }).trim().min(1, "Enter the location's name").max(200),
   type: locationType.default("general"),
-  flammableLimitLitres: optionalNumber("flammable-liquid limit", 0, 1e6),
-  combustibleLimitLitres: optionalNumber("combustible-liquid limit", 0, 1e6),
   limitNote: z.string().max(1000).default(""),
 });
 export type LocationInput = z.infer<typeof locationInput>;
@@ -345,18 +361,18 @@ export const locationTotalsDto = z.object({
   path: z.string(),
   level: locationLevel,
   type: locationType,
-  /** Litres by GHS flammable-liquid category, this location and everything inside it. */
-  litresByCategory: z.object({ "1": z.number(), "2": z.number(), "3": z.number(), "4": z.number() }),
-  /** Categories 1–3 together: what flammable-liquid limits count. */
-  flammableLitres: z.number(),
-  /** Category 4. */
-  combustibleLitres: z.number(),
-  flammableLimitLitres: z.number().nullable(),
-  combustibleLimitLitres: z.number().nullable(),
+  /** Litres by NFPA 30 liquid class: this location's containers and those of the places inside it. */
+  litresByClass: locationClassTotals.shape.litresByClass,
+  /** Flammable or combustible liquids here (or inside) whose volume cannot be computed (kept by mass or amount without a density). */
+  unknownVolumeContainers: z.number().int().min(0),
+  unknownVolumeContainerIds: z.array(z.number()),
+  /** Each limit with the litres that count toward it and its finding: within, over or cannot_confirm. */
+  limits: z.array(storageLimitResultDto.extend({ unknownVolumeContainers: z.number().int().min(0), note: z.string(), enteredVolume: z.number(), enteredUnit: z.enum(["L", "US gal"]) })),
   limitNote: z.string(),
-  flammableOverLimit: z.boolean(),
-  combustibleOverLimit: z.boolean(),
+  /** Some limit is exceeded. */
   overLimit: z.boolean(),
+  /** No limit is exceeded by the known volumes, but some limit cannot be confirmed because of unknown volumes. */
+  cannotConfirm: z.boolean(),
   containerCount: z.number(),
 });
 export type LocationTotalsDto = z.infer<typeof locationTotalsDto>;

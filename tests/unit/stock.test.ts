@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { amountInContainerUnit, containerLitres, locationTotals, usageCostCents } from "@shared/domain/stock";
+import { amountInContainerUnit, containerLitres, usageCostCents } from "@shared/domain/stock";
 import { UnitError } from "@shared/domain/units";
 
 // 1,2-Dichloroethane: density 1.2569 g/mL at 20 °C (Merck Index); M = 98.95 g/mol from
@@ -70,40 +70,3 @@ describe("containerLitres", () => {
   });
 });
 
-describe("locationTotals", () => {
-  const locations = [
-    { id: 1, parentId: null, flammableLimitLitres: null, combustibleLimitLitres: null },
-    { id: 2, parentId: 1, flammableLimitLitres: 20, combustibleLimitLitres: null },
-    { id: 3, parentId: 2, flammableLimitLitres: 10, combustibleLimitLitres: 5 },
-    { id: 4, parentId: 2, flammableLimitLitres: null, combustibleLimitLitres: null },
-  ];
-
-  it("rolls a cabinet's liquids into its room and building, by category", () => {
-    const t = locationTotals(locations, [
-      { locationId: 3, category: 2, litres: 7.5 },
-      { locationId: 3, category: 4, litres: 1 },
-      { locationId: 4, category: 3, litres: 2 },
-      { locationId: 4, category: null, litres: null },
-    ]);
-    expect(t.get(3)).toMatchObject({ flammableLitres: 7.5, combustibleLitres: 1, overLimit: false, containerCount: 2 });
-    expect(t.get(2)).toMatchObject({ flammableLitres: 9.5, litresByCategory: { "1": 0, "2": 7.5, "3": 2, "4": 1 }, containerCount: 4 });
-    expect(t.get(1)!.flammableLitres).toBe(9.5);
-  });
-
-  it("is within the limit at exactly the limit and over it a millilitre above", () => {
-    expect(locationTotals(locations, [{ locationId: 3, category: 1, litres: 10 }]).get(3)!.overLimit).toBe(false);
-    const over = locationTotals(locations, [{ locationId: 3, category: 1, litres: 10.001 }]).get(3)!;
-    expect(over.flammableOverLimit).toBe(true);
-    expect(over.overLimit).toBe(true);
-  });
-
-  it("flags a combustible limit separately from the flammable one", () => {
-    const t = locationTotals(locations, [{ locationId: 3, category: 4, litres: 6 }]).get(3)!;
-    expect(t).toMatchObject({ flammableOverLimit: false, combustibleOverLimit: true, overLimit: true });
-  });
-
-  it("stays within a 10 L limit when 0.1 L is added a hundred times (float noise)", () => {
-    const items = Array.from({ length: 100 }, () => ({ locationId: 3, category: 2 as const, litres: 0.1 }));
-    expect(locationTotals(locations, items).get(3)!.flammableOverLimit).toBe(false);
-  });
-});

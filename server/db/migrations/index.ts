@@ -8,6 +8,8 @@ import { StockroomAndSafety1796173804700 } from "./1796173804700-stockroom-and-s
 import { Recharge1796174960945 } from "./1796174960945-recharge";
 import { BookingInstrumentTimes1796183167192 } from "./1796183167192-booking-instrument-times";
 import { RecordOwnersAndFaults1796231102622 } from "./1796231102622-record-owners-and-faults";
+import { StorageLimitsByClass1796233973566 } from "./1796233973566-storage-limits-by-class";
+import { UsageExactCost1796235000000 } from "./1796235000000-usage-exact-cost";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -18,4 +20,6 @@ export const migrations = [
   Recharge1796174960945,
   BookingInstrumentTimes1796183167192,
   RecordOwnersAndFaults1796231102622,
+  StorageLimitsByClass1796233973566,
+  UsageExactCost1796235000000,
 ];

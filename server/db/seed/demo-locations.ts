@@ -1,16 +1,22 @@
 /**
  * The demo's places: the Halvorsen Chemistry Building › rooms › cabinets, hoods and shelves,
- * with storage limits. Every limit here is an EXAMPLE labelled as such in `limitNote`: the
- * local fire code, the institution's safety office and the safety data sheet set the real ones.
- * The small under-bench cabinet is deliberately over its example limit in the demo stock, so
- * the safety review has something to show.
+ * with storage limits by fire-code liquid class. Every limit here is an EXAMPLE labelled as such
+ * in its note: the local fire code, the institution's safety office and the safety data sheet
+ * set the real ones. The small under-bench cabinet is deliberately over its example limit in the
+ * demo stock, so the safety review has something to show.
  */
+import type { NfpaClass } from "@shared/domain/hazards";
 import type { LocationLevel, LocationType } from "../../entities/location.entity";
 
-/** 1 US gallon = 3.785 411 784 L exactly (US customary units, NIST Handbook 44 Appendix C). */
-export const LITRES_PER_US_GALLON = 3.785411784;
+export interface DemoLimit {
+  classes: NfpaClass[];
+  volume: number;
+  unit: "L" | "US gal";
+  includesCabinets: boolean;
+  note: string;
+}
 
-const gallons = (gal: number): number => Math.round(gal * LITRES_PER_US_GALLON * 100) / 100;
+const CLASS_I: NfpaClass[] = ["IA", "IB", "IC"];
 
 export type LocationKey =
   | "building"
@@ -34,8 +40,7 @@ export interface DemoLocation {
   level: LocationLevel;
   name: string;
   type: LocationType;
-  flammableLimitLitres: number | null;
-  combustibleLimitLitres: number | null;
+  limits: DemoLimit[];
   limitNote: string;
 }
 
@@ -47,8 +52,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "building",
     name: "Halvorsen Chemistry Building",
     type: "general",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -57,12 +61,15 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "room",
     name: "HCB 214 – Interface Laboratory",
     type: "general",
-    // 20 US gal: NFPA 45 allows a class B laboratory unit 10 gal of Class I liquids per 100 ft²
-    // (as quoted by secondary sources, /work/shared/reference/check-values.md); for a 200 ft² unit.
-    flammableLimitLitres: gallons(20),
-    combustibleLimitLitres: null,
+    // NFPA 45, Standard on Fire Protection for Laboratories Using Chemicals, maximum quantities per
+    // laboratory unit (as quoted by secondary sources, not re-read in the standard): a class B unit
+    // 10 US gal of Class I liquids per 100 ft² outside cabinets, twice that with cabinets; for 200 ft².
+    limits: [
+      { classes: CLASS_I, volume: 20, unit: "US gal", includesCabinets: false, note: "Example only: NFPA 45-style Class I limit outside approved cabinets for a 200 ft² class B unit." },
+      { classes: [...CLASS_I, "II", "IIIA"], volume: 40, unit: "US gal", includesCabinets: true, note: "Example only: Classes I, II and IIIA together, cabinets included." },
+    ],
     limitNote:
-      "Example only: a laboratory-unit limit of the kind NFPA 45 sets by lab class and floor area (here 20 US gal); your local fire code and safety office set the real one.",
+      "Example limits of the kind NFPA 45 sets by laboratory class and floor area; your local fire code and safety office set the real ones.",
   },
   {
     key: "underBench",
@@ -70,9 +77,11 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Under-bench solvent cabinet UB-1",
     type: "flammable_cabinet",
-    flammableLimitLitres: 10,
-    combustibleLimitLitres: null,
-    limitNote: "Example only: institutional under-bench limit; your safety office sets the real one.",
+    limits: [
+      { classes: [...CLASS_I, "II"], volume: 10, unit: "L", includesCabinets: true, note: "Example only: institutional under-bench limit for Class I and II liquids." },
+      { classes: ["IA"], volume: 4, unit: "L", includesCabinets: true, note: "Example only: Class IA alone (the most volatile liquids)." },
+    ],
+    limitNote: "Example limits of an institution's own; your safety office sets the real ones.",
   },
   {
     key: "hoodInterface",
@@ -80,8 +89,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Fume hood FH-2",
     type: "fume_hood",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -90,8 +98,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "shelf",
     name: "Bench B-3 (solutions in use)",
     type: "bench",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -100,8 +107,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "room",
     name: "HCB 216 – Preparation Laboratory",
     type: "general",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -110,8 +116,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "shelf",
     name: "Shelf S-2 (electrolyte salts)",
     type: "general",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -120,8 +125,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Corrosives and toxics cabinet CC-1",
     type: "corrosives_cabinet",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -130,8 +134,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Chemical fridge F-1 (no food)",
     type: "fridge",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -140,8 +143,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Fume hood FH-4",
     type: "fume_hood",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -150,8 +152,9 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "room",
     name: "HCB 020 – Solvent Store",
     type: "general",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    // International Fire Code, maximum allowable quantity per control area for Class IB liquids:
+    // 120 US gal before increases for sprinklers and cabinets (as quoted by secondary sources).
+    limits: [{ classes: ["IB"], volume: 120, unit: "US gal", includesCabinets: true, note: "Example only: IFC-style maximum allowable quantity of Class IB liquid per control area, before increases." }],
     limitNote: "",
   },
   {
@@ -160,11 +163,14 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Flammable storage cabinet FC-1 (60 gal)",
     type: "flammable_cabinet",
-    // OSHA 29 CFR 1910.106: at most 60 US gal of category 1–3 and 120 gal of category 4 liquids per cabinet.
-    flammableLimitLitres: gallons(60),
-    combustibleLimitLitres: gallons(120),
-    limitNote:
-      "Example only: OSHA 29 CFR 1910.106 cabinet limit for category 1–3 liquids (60 US gal) and category 4 (120 US gal); your local code and safety office set the real one.",
+    // OSHA 29 CFR 1910.106(d)(3)(i): not more than 60 US gal of Class I or Class II liquids, nor more
+    // than 120 gal of Class III liquids, in a storage cabinet (OSHA's classes, which match NFPA 30's
+    // thresholds for I and II; its Class III covers IIIA and IIIB).
+    limits: [
+      { classes: [...CLASS_I, "II"], volume: 60, unit: "US gal", includesCabinets: true, note: "Example only: OSHA 29 CFR 1910.106(d)(3) cabinet limit, Class I and II liquids." },
+      { classes: ["IIIA", "IIIB"], volume: 120, unit: "US gal", includesCabinets: true, note: "Example only: OSHA 29 CFR 1910.106(d)(3) cabinet limit, Class III liquids." },
+    ],
+    limitNote: "Example limits from OSHA's cabinet quantities; your local code and safety office set the real ones.",
   },
   {
     key: "wasteArea",
@@ -172,8 +178,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "room",
     name: "HCB 022 – Waste Area",
     type: "waste_area",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
   {
@@ -182,8 +187,7 @@ export const DEMO_LOCATIONS: readonly DemoLocation[] = [
     level: "cabinet",
     name: "Halogenated solvent waste point W-1",
     type: "waste_area",
-    flammableLimitLitres: null,
-    combustibleLimitLitres: null,
+    limits: [],
     limitNote: "",
   },
 ];

@@ -18,6 +18,7 @@ import {
   Department,
   Instrument,
   Location,
+  LocationLimit,
   ResearchGroup,
   Setting,
   TrainingRecord,
@@ -34,6 +35,7 @@ import { DEMO_CONTAINERS } from "./demo-containers";
 import { seedStockHistory } from "./demo-stock-history";
 import { DEMO_INSTRUMENTS, DEMO_TRAINING, type InstrumentKey } from "./demo-instruments";
 import { DEMO_LOCATIONS, type LocationKey } from "./demo-locations";
+import { limitVolumeToLitres } from "@shared/domain/storage";
 import { DEMO_DEPARTMENTS, DEMO_GROUPS, DEMO_PASSWORD, DEMO_PEOPLE, type DepartmentCode, type GroupKey, type PersonKey } from "./demo-people";
 import { dateAfter, isoAfter } from "./demo-time";
 import { seedDemoRates } from "./demo-rates";
@@ -142,18 +144,20 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
 
     const locations = new Map<LocationKey, number>();
     for (const l of DEMO_LOCATIONS) {
-      locations.set(
-        l.key,
-        await insertId(em, Location, {
-          parentId: l.parent ? lookup(locations, l.parent) : null,
-          level: l.level,
-          name: l.name,
-          type: l.type,
-          flammableLimitLitres: l.flammableLimitLitres,
-          combustibleLimitLitres: l.combustibleLimitLitres,
-          limitNote: l.limitNote,
-        }),
-      );
+      const locationId = await insertId(em, Location, { parentId: l.parent ? lookup(locations, l.parent) : null, level: l.level, name: l.name, type: l.type, limitNote: l.limitNote });
+      locations.set(l.key, locationId);
+      for (const limit of l.limits) {
+        await em.insert(LocationLimit, {
+          locationId,
+          classes: JSON.stringify(limit.classes),
+          maxLitres: limitVolumeToLitres(limit.volume, limit.unit),
+          enteredVolume: limit.volume,
+          enteredUnit: limit.unit,
+          includesCabinets: limit.includesCabinets,
+          note: limit.note,
+          createdAt: nowIso,
+        });
+      }
     }
 
     const instruments = new Map<InstrumentKey, number>();

@@ -14,6 +14,13 @@ import { AppError } from "../../errors";
 import { safetyLocationTotals, safetyReview } from "./safety.queries";
 import { renderSafetyReport } from "./safety-report";
 import { listSheets, sheetFile, sheetsDue, uploadSheet } from "./sds";
+import { addLimit, removeLimit, replaceLimit } from "./limit.commands";
+import { presentLimit } from "../stockroom";
+import { storageLimitInput } from "@shared/schemas/storage";
+import { locationLimitDto } from "@shared/schemas/stock";
+import { id } from "@shared/schemas/common";
+
+const limitParams = z.object({ id: id(), limitId: id() });
 
 const REVIEWERS = ["safety_officer", "manager"] as const;
 const STOCK_KEEPERS = ["manager", "safety_officer"] as const;
@@ -79,6 +86,38 @@ export const safetyTable: RouteTable = {
         res.type("application/pdf").setHeader("Content-Disposition", `inline; filename="phasebook-safety-review.pdf"`);
         res.send(pdf);
         return WRITTEN;
+      },
+    }),
+    route({
+      method: "post",
+      path: "/locations/:id/limits",
+      summary: "Set a storage limit on a location: a group of liquid classes and the most litres (or US gallons) of them",
+      access: REVIEWERS,
+      params: idParam,
+      body: storageLimitInput,
+      status: 201,
+      output: z.object({ limit: locationLimitDto }),
+      handler: async ({ ctx, actor, params, body }) => ({ limit: presentLimit(await addLimit(ctx, actor, params.id, body)) }),
+    }),
+    route({
+      method: "put",
+      path: "/locations/:id/limits/:limitId",
+      summary: "Change a storage limit",
+      access: REVIEWERS,
+      params: limitParams,
+      body: storageLimitInput,
+      output: z.object({ limit: locationLimitDto }),
+      handler: async ({ ctx, actor, params, body }) => ({ limit: presentLimit(await replaceLimit(ctx, actor, params.id, params.limitId, body)) }),
+    }),
+    route({
+      method: "delete",
+      path: "/locations/:id/limits/:limitId",
+      summary: "Remove a storage limit",
+      access: REVIEWERS,
+      params: limitParams,
+      status: 204,
+      handler: async ({ ctx, actor, params }) => {
+        await removeLimit(ctx, actor, params.id, params.limitId);
       },
     }),
     route({

@@ -1,6 +1,6 @@
 /**
- * The Safety review's findings: flammable-liquid totals per location against the limits the
- * safety office set (a room counts its cabinets), carcinogens and acutely toxic substances and
+ * The Safety review's findings: liquid totals per location by fire-code class against the limits
+ * the safety office set (a room counts its cabinets), carcinogens and acutely toxic substances and
  * where they are, expired or past-retest stock, stock without a place, holds, halogenated waste
  * and how full it is, and safety data sheets due for review. "Today" is the facility's date.
  *
@@ -9,10 +9,10 @@
  */
 import type { DataSource, EntityManager } from "typeorm";
 import { DateTime } from "luxon";
-import { ghsFlammableCategory } from "@shared/domain/hazards";
-import { containerLitres, locationTotals } from "@shared/domain/stock";
+import { storageByLiquidClass } from "@shared/domain/storage";
 import type { LocationTotalsDto } from "@shared/schemas/stock";
-import { Chemical, Location, Setting } from "../../entities";
+import { Chemical, Location, LocationLimit, Setting } from "../../entities";
+import { parseClasses } from "../../entities/location-limit.entity";
 import { locationPaths, presentChemical } from "../stockroom";
 
 /** Months after which a safety data sheet is due for review, unless the facility sets its own. */
@@ -28,10 +28,10 @@ interface StockRow {
   locationId: number | null;
   quantity: number;
   unit: string;
-  kind: string;
   flashPointC: number | null;
   boilingPointC: number | null;
   densityGPerMl: number | null;
+  molarMass: number | null;
 }
 
 export async function sdsReviewMonths(em: EntityManager | DataSource): Promise<number> {
@@ -40,14 +40,21 @@ export async function sdsReviewMonths(em: EntityManager | DataSource): Promise<n
   return Number.isFinite(n) && n > 0 ? n : DEFAULT_SDS_REVIEW_MONTHS;
 }
 
-/** Per-location totals by flammable category, rolled up the tree, with over-limit flags. */
+/**
+ * Per location: litres by NFPA 30 liquid class (its own containers and those of the places inside
+ * it), the flammable or combustible liquids whose volume cannot be computed, and each limit the
+ * safety office set with its finding (within, over, or cannot confirm because of unknown volumes).
+ * A prepared solution counts as its solvent.
+ */
 export async function safetyLocationTotals(em: EntityManager | DataSource): Promise<LocationTotalsDto[]> {
   const locations = await em.getRepository(Location).find({ order: { id: "ASC" } });
+  const limits = await em.getRepository(LocationLimit).find({ order: { id: "ASC" } });
   const rows = (await em.query(
-    `SELECT c.id, c.locationId, c.quantity, c.unit, c.kind,
+    `SELECT c.id, c.locationId, c.quantity, c.unit,
             COALESCE(sv.flashPointC, ch.flashPointC) AS flashPointC,
             CASE WHEN sv.id IS NULL THEN ch.boilingPointC ELSE sv.boilingPointC END AS boilingPointC,
-            CASE WHEN sv.id IS NULL THEN ch.densityGPerMl ELSE sv.densityGPerMl END AS densityGPerMl
+            CASE WHEN sv.id IS NULL THEN ch.densityGPerMl ELSE sv.densityGPerMl END AS densityGPerMl,
+            CASE WHEN sv.id IS NULL THEN ch.molarMass ELSE sv.molarMass END AS molarMass
      FROM containers c
      JOIN chemicals ch ON ch.id = c.chemicalId
      LEFT JOIN solution_components comp ON comp.solutionContainerId = c.id AND comp.role = 'solvent'
@@ -55,24 +62,44 @@ export async function safetyLocationTotals(em: EntityManager | DataSource): Prom
      LEFT JOIN chemicals sv ON sv.id = pc.chemicalId
      WHERE c.status NOT IN ('empty', 'disposed') AND c.locationId IS NOT NULL`,
   )) as StockRow[];
-  const items = rows.map((r) => {
-    const category = ghsFlammableCategory(r.flashPointC, r.boilingPointC);
-    return { locationId: r.locationId, category, litres: category === null ? null : containerLitres(r.quantity, r.unit, r.densityGPerMl) };
+  const limitsOf = new Map<number, LocationLimit[]>();
+  for (const l of limits) limitsOf.set(l.locationId, [...(limitsOf.get(l.locationId) ?? []), l]);
+  // Each container carries its own burning properties (a solution its solvent's), so it is its own "chemical" here.
+  const storage = storageByLiquidClass({
+    locations: locations.map((l) => ({
+      id: l.id,
+      parentId: l.parentId,
+      type: l.type,
+      limits: (limitsOf.get(l.id) ?? []).map((x) => ({ id: x.id, classes: parseClasses(x.classes), maxLitres: x.maxLitres, includesCabinets: Boolean(x.includesCabinets) })),
+    })),
+    containers: rows.map((r) => ({ id: r.id, locationId: r.locationId, quantity: r.quantity, unit: r.unit, chemicalId: r.id })),
+    chemicals: rows.map((r) => ({ id: r.id, flashPointC: r.flashPointC, boilingPointC: r.boilingPointC, densityGPerMl: r.densityGPerMl, molarMass: r.molarMass })),
   });
-  const totals = locationTotals(locations, items);
   const paths = locationPaths(locations);
-  return locations.map((l) => ({
-    id: l.id,
-    parentId: l.parentId,
-    name: l.name,
-    path: paths.get(l.id) ?? l.name,
-    level: l.level,
-    type: l.type,
-    flammableLimitLitres: l.flammableLimitLitres,
-    combustibleLimitLitres: l.combustibleLimitLitres,
-    limitNote: l.limitNote,
-    ...totals.get(l.id)!,
-  }));
+  return locations.map((l) => {
+    const s = storage.get(l.id)!;
+    const entered = new Map((limitsOf.get(l.id) ?? []).map((x) => [x.id, x]));
+    const limitResults = s.limits.map((r) => {
+      const row = entered.get(r.id)!;
+      return { ...r, classes: [...r.classes], note: row.note, enteredVolume: row.enteredVolume, enteredUnit: row.enteredUnit };
+    });
+    return {
+      id: l.id,
+      parentId: l.parentId,
+      name: l.name,
+      path: paths.get(l.id) ?? l.name,
+      level: l.level,
+      type: l.type,
+      litresByClass: s.litresByClass,
+      unknownVolumeContainers: s.unknownVolumeContainers,
+      unknownVolumeContainerIds: s.unknownVolumeContainerIds,
+      limits: limitResults,
+      limitNote: l.limitNote,
+      overLimit: limitResults.some((r) => r.finding === "over"),
+      cannotConfirm: !limitResults.some((r) => r.finding === "over") && limitResults.some((r) => r.finding === "cannot_confirm"),
+      containerCount: s.containerCount,
+    };
+  });
 }
 
 export interface ReviewContainer {
@@ -121,6 +148,8 @@ export async function safetyReview(ds: DataSource, now: Date, tz: string) {
     }));
   const expired = withPath.filter((c) => (c.expiresAt !== null && c.expiresAt < today) || (c.retestAt !== null && c.retestAt < today));
   const noLocation = withPath.filter((c) => c.locationId === null);
+  const unknownIds = new Set((await safetyLocationTotals(ds)).flatMap((t) => t.unknownVolumeContainerIds));
+  const unknownVolume = withPath.filter((c) => unknownIds.has(c.id));
   const onHoldContainers = withPath.filter((c) => c.status === "on_hold");
   const onHoldChemicals = chemicals.filter((ch) => ch.onHoldReason !== null).map((ch) => ({ chemicalId: ch.id, name: ch.name, reason: ch.onHoldReason }));
   const halogenated = new Set(chemicals.filter((ch) => ch.halogenated).map((ch) => ch.id));
@@ -138,7 +167,7 @@ export async function safetyReview(ds: DataSource, now: Date, tz: string) {
     .filter((ch) => (latestBy.get(ch.id) ?? "") < dueBefore)
     .map((ch) => ({ chemicalId: ch.id, name: ch.name, reviewedOn: latestBy.get(ch.id) ?? null }));
 
-  return { today, sdsReviewMonths: months, hazardous, expired, noLocation, onHold: { containers: onHoldContainers, chemicals: onHoldChemicals }, halogenatedWaste, sdsDue };
+  return { today, sdsReviewMonths: months, hazardous, expired, noLocation, unknownVolume, onHold: { containers: onHoldContainers, chemicals: onHoldChemicals }, halogenatedWaste, sdsDue };
 }
 
 export type SafetyReview = Awaited<ReturnType<typeof safetyReview>>;

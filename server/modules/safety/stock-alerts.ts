@@ -111,11 +111,10 @@ export async function runStockAlerts(ds: DataSource, now: Date, opts: { tz: stri
     const over = totals.filter((t) => t.overLimit && !sentOver.has(t.id));
     if (over.length) {
       const to = await recipients(em, ["safety_officer"]);
-      const lines = over.map(
-        (t) =>
-          `- ${t.path}: ${t.flammableLitres.toFixed(2)} L of flammable liquid` +
-          (t.flammableLimitLitres === null ? "" : ` against a limit of ${t.flammableLimitLitres.toFixed(2)} L`) +
-          (t.combustibleOverLimit ? `; ${t.combustibleLitres.toFixed(2)} L combustible against ${t.combustibleLimitLitres!.toFixed(2)} L` : ""),
+      const lines = over.flatMap((t) =>
+        t.limits
+          .filter((l) => l.finding === "over")
+          .map((l) => `- ${t.path}: ${l.totalLitres.toFixed(2)} L of Class ${l.classes.join(" + ")} liquids against a limit of ${l.maxLitres.toFixed(2)} L`),
       );
       for (const address of to) {
         await enqueueMail(em, now, {

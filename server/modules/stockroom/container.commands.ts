@@ -7,7 +7,18 @@
 import type { EntityManager } from "typeorm";
 import { UnitError } from "@shared/domain/units";
 import { isHalogenated } from "@shared/domain/chemistry";
-import { amountInContainerUnit, usageCostCents } from "@shared/domain/stock";
+import {
+  addAmounts,
+  compareAmounts,
+  exactAmountInContainerUnit,
+  exactAmountToNumber,
+  subtractAmount,
+  toExactAmount,
+  withdrawExact,
+  type ExactAmount,
+} from "@shared/domain/exact-amounts";
+import { lineAmountCents, usageCost } from "@shared/domain/charges";
+import { receiptVolumeCheck } from "@shared/domain/storage";
 import type { DisposeInput, MoveInput, ReceiveInput, UsageInput, WasteAddInput } from "@shared/schemas/stock";
 import { Booking, Chemical, Container, ContainerMovement, Location } from "../../entities";
 import type { MovementKind } from "../../entities/container-movement.entity";
@@ -22,9 +33,6 @@ import type { Deps } from "../../core/deps";
 import type { ContainerRow } from "./stock.presenter";
 import { containerRow } from "./container.queries";
 import { containerPolicy } from "./container.policy";
-
-/** Amounts this close to what is left count as "all of it": float noise must not refuse the last drop. */
-const EPSILON_REL = 1e-9;
 
 /** A UnitError from the domain as a 422 naming the request's field. */
 export function unitProblem(e: UnitError, fields: { amount: string; unit: string }): RuleBroken {
@@ -67,6 +75,12 @@ export async function receiveContainers(deps: Deps, actor: AuthUser, input: Rece
     const chem = await em.findOneBy(Chemical, { id: input.chemicalId });
     if (!chem) throw new RuleBroken(`There is no chemical ${input.chemicalId}.`, [{ path: "chemicalId", message: "Choose an existing chemical." }], "unknown_chemical");
     const locationId = await requireLocation(em, input.locationId, "locationId");
+    // A flammable or combustible liquid received by mass (or amount) without a density would be
+    // left out of the storage totals by volume: ask for the density, unless the person says so.
+    const volume = receiptVolumeCheck(input.unit, chem);
+    if (volume.volumeUnknown && !input.allowUnknownVolume) {
+      throw new RuleBroken(volume.message!, [{ path: "unit", message: volume.message! }], "density_needed", { missing: volume.missing, nfpaClass: volume.nfpaClass });
+    }
     if (input.expiresAt && input.retestAt && input.retestAt > input.expiresAt) {
       throw new RuleBroken("The retest date is after the expiry date.", [{ path: "retestAt", message: "A retest date after the expiry date is never reached; check both dates." }]);
     }
@@ -136,14 +150,16 @@ export async function withdraw(
   }
   const chem = readEntity(em.connection, Chemical, `SELECT * FROM chemicals WHERE id = ?`, c.chemicalId)!;
   containerPolicy.authorize(actor, "draw", facts(c, chem));
-  let take: number;
+  // Exact arithmetic in whole base units (nL, µg, nmol): the take that empties a container leaves exactly zero.
+  let w: ReturnType<typeof withdrawExact>;
   try {
-    take = amountInContainerUnit(amount, unit, c, chem);
+    w = withdrawExact(c.quantity, amount, unit, c, chem);
   } catch (e) {
     if (e instanceof UnitError) throw unitProblem(e, fields);
     throw e;
   }
-  if (take > c.quantity * (1 + EPSILON_REL) + 1e-12) {
+  const take = exactAmountToNumber(w.take);
+  if (!w.enough) {
     const msg = `Container ${c.id} has ${formatQty(c.quantity)} ${c.unit} left; ${formatQty(amount)} ${unit} is ${formatQty(take)} ${c.unit}.`;
     throw new RuleBroken(msg, [{ path: fields.amount, message: msg }], "not_enough_left", { left: c.quantity, unit: c.unit });
   }
@@ -156,17 +172,18 @@ export async function withdraw(
     }
     accountId = b.accountId;
   }
-  const left = take >= c.quantity ? 0 : c.quantity - take;
-  const change = { quantity: left, status: left === 0 ? ("empty" as const) : ("in_use" as const), openedAt: c.openedAt ?? now.toISOString() };
+  const change = { quantity: exactAmountToNumber(w.left), status: w.empty ? ("empty" as const) : ("in_use" as const), openedAt: c.openedAt ?? now.toISOString() };
   // Prepared statements on the transaction's connection: TypeORM's builders cost more than the writes themselves.
   prepared(em.connection, `UPDATE containers SET quantity = ?, status = ?, openedAt = ? WHERE id = ?`).run(change.quantity, change.status, change.openedAt, c.id);
-  // A prepared solution's cost was charged when its parents were used.
-  const costCents = c.kind === "solution" ? null : usageCostCents(amount, unit, chem);
+  // A prepared solution's cost was charged when its parents were used. The cost is kept
+  // unrounded (quantity × price of one unit); costCents is only its rounded display figure.
+  const cost = c.kind === "solution" ? null : usageCost(amount, unit, chem);
+  const costCents = cost === null ? null : lineAmountCents(cost.quantity, cost.unitCostCents);
   const usageId = Number(
     prepared(
       em.connection,
-      `INSERT INTO container_usages (containerId, userId, bookingId, accountId, amount, unit, amountInContainerUnit, costCents, note, at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-    ).run(c.id, actor.id, bookingId, accountId, amount, unit, take, costCents, opts.note ?? "", now.toISOString()).lastInsertRowid,
+      `INSERT INTO container_usages (containerId, userId, bookingId, accountId, amount, unit, amountInContainerUnit, costCents, costQuantity, costUnit, unitCostCents, note, at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+    ).run(c.id, actor.id, bookingId, accountId, amount, unit, take, costCents, cost?.quantity ?? null, cost?.unit ?? null, cost?.unitCostCents ?? null, opts.note ?? "", now.toISOString()).lastInsertRowid,
   );
   return { container: Object.assign(c, change), amountInContainerUnit: take, usageId };
 }
@@ -234,21 +251,22 @@ export const markContainerEmpty = (deps: Deps, actor: AuthUser, id: number, wast
  */
 export const pourWaste = (deps: Deps, actor: AuthUser, id: number, input: WasteAddInput) =>
   changeContainer(deps, actor, id, "pourWaste", async (em, c, chem, now) => {
-    let add: number;
+    let add: ExactAmount;
     try {
-      add = amountInContainerUnit(input.amount, input.unit, c, chem);
+      add = exactAmountInContainerUnit(input.amount, input.unit, c, chem);
     } catch (e) {
       if (e instanceof UnitError) throw unitProblem(e, { amount: "amount", unit: "unit" });
       throw e;
     }
-    const room = c.initialQuantity - c.quantity;
-    if (add > room * (1 + EPSILON_REL) + 1e-12) {
-      const msg = `Waste container ${c.id} has room for ${formatQty(Math.max(0, room))} ${c.unit}; ${formatQty(input.amount)} ${input.unit} is ${formatQty(add)} ${c.unit}. Use another container and arrange collection.`;
+    const capacity = toExactAmount(c.initialQuantity, c.unit);
+    const filled = addAmounts(toExactAmount(c.quantity, c.unit), add);
+    if (compareAmounts(filled, capacity) > 0) {
+      const room = Math.max(0, exactAmountToNumber(subtractAmount(capacity, toExactAmount(Math.min(c.quantity, c.initialQuantity), c.unit))));
+      const msg = `Waste container ${c.id} has room for ${formatQty(room)} ${c.unit}; ${formatQty(input.amount)} ${input.unit} is ${formatQty(exactAmountToNumber(add))} ${c.unit}. Use another container and arrange collection.`;
       throw new RuleBroken(msg, [{ path: "amount", message: msg }], "waste_container_full", { room, unit: c.unit });
     }
-    const filled = Math.min(c.initialQuantity, c.quantity + add);
-    await em.update(Container, c.id, { quantity: filled, status: "in_use", openedAt: c.openedAt ?? now.toISOString() });
-    await audit(em, now, actor.id, "container.waste_added", "container", c.id, { amount: input.amount, unit: input.unit, amountInContainerUnit: add, note: input.note ?? "" });
+    await em.update(Container, c.id, { quantity: exactAmountToNumber(filled), status: "in_use", openedAt: c.openedAt ?? now.toISOString() });
+    await audit(em, now, actor.id, "container.waste_added", "container", c.id, { amount: input.amount, unit: input.unit, amountInContainerUnit: exactAmountToNumber(add), note: input.note ?? "" });
   });
 
 export const disposeContainer = (deps: Deps, actor: AuthUser, id: number, input: DisposeInput & { wasteNote?: string }) =>

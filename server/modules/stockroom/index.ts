@@ -6,5 +6,5 @@ export { stockroomTable } from "./routes";
 export { containerPolicy, sameOrganisation, type ContainerFacts } from "./container.policy";
 export { moveContainer, markContainerEmpty, disposeContainer, reportContainerProblem, logUsage, withdraw, requireLocation } from "./container.commands";
 export { containerRow, descendantIds } from "./container.queries";
-export { presentChemical, presentContainer, presentLocation, locationPaths, type ContainerRow } from "./stock.presenter";
+export { presentChemical, presentContainer, presentLocation, presentLimit, locationPaths, type ContainerRow } from "./stock.presenter";
 export { allLocations } from "./location.commands";

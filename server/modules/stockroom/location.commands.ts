@@ -40,8 +40,6 @@ export async function createLocation({ ds, now }: Deps, actorId: number, input: 
       level: input.level,
       name: input.name,
       type: input.type,
-      flammableLimitLitres: input.flammableLimitLitres ?? null,
-      combustibleLimitLitres: input.combustibleLimitLitres ?? null,
       limitNote: input.limitNote,
     });
     const id = res.identifiers[0].id as number;
@@ -58,12 +56,12 @@ export async function updateLocation({ ds, now }: Deps, actorId: number, id: num
     const parentId = input.parentId !== undefined ? input.parentId : current.parentId;
     await checkParent(locations, id, parentId, input.level ?? current.level);
     const values: Omit<Partial<Location>, "parent"> = {};
-    for (const k of ["parentId", "level", "name", "type", "flammableLimitLitres", "combustibleLimitLitres", "limitNote"] as const) {
+    for (const k of ["parentId", "level", "name", "type", "limitNote"] as const) {
       if (input[k] !== undefined) (values as Record<string, unknown>)[k] = input[k];
     }
     if (Object.keys(values).length) await em.update(Location, id, values);
     await audit(em, now(), actorId, "location.updated", "location", id, {
-      before: { flammableLimitLitres: current.flammableLimitLitres, combustibleLimitLitres: current.combustibleLimitLitres },
+      before: { name: current.name, parentId: current.parentId, limitNote: current.limitNote },
       changes: values,
     });
     return (await em.findOneBy(Location, { id }))!;

@@ -3,7 +3,7 @@ import { z } from "zod";
 import { idParam, pageOf } from "@shared/schemas/common";
 import { locationDto, locationInput, locationUpdate } from "@shared/schemas/stock";
 import type { DataSource } from "typeorm";
-import type { Location } from "../../entities";
+import { LocationLimit, type Location } from "../../entities";
 import { route } from "../../http/route-table";
 import { allLocations, createLocation, removeLocation, updateLocation } from "./location.commands";
 import { locationPaths, presentLocation } from "./stock.presenter";
@@ -12,7 +12,7 @@ const LIMIT_KEEPERS = ["safety_officer", "manager"] as const;
 const one = z.object({ location: locationDto });
 
 async function present(ds: DataSource, l: Location) {
-  return presentLocation(l, locationPaths(await allLocations(ds)).get(l.id) ?? l.name);
+  return presentLocation(l, locationPaths(await allLocations(ds)).get(l.id) ?? l.name, await ds.getRepository(LocationLimit).findBy({ locationId: l.id }));
 }
 
 export const locationRoutes = [
@@ -25,7 +25,10 @@ export const locationRoutes = [
     handler: async ({ ctx }) => {
       const all = await allLocations(ctx.ds);
       const paths = locationPaths(all);
-      const items = all.map((l) => presentLocation(l, paths.get(l.id) ?? l.name)).sort((a, b) => a.path.localeCompare(b.path, "en"));
+      const limits = await ctx.ds.getRepository(LocationLimit).find({ order: { id: "ASC" } });
+      const items = all
+        .map((l) => presentLocation(l, paths.get(l.id) ?? l.name, limits.filter((x) => x.locationId === l.id)))
+        .sort((a, b) => a.path.localeCompare(b.path, "en"));
       return { items, total: items.length };
     },
   }),

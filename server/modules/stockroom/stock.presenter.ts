@@ -1,8 +1,9 @@
 /** Chemicals, containers and locations → the DTOs of shared/schemas/stock. */
 import { isHalogenated } from "@shared/domain/chemistry";
 import { ghsFlammableCategory, isAcutelyToxic, isCarcinogen, nfpaClass } from "@shared/domain/hazards";
-import type { ChemicalDto, ContainerDetailDto, ContainerDto, LocationDto } from "@shared/schemas/stock";
-import type { Chemical, Container, Location } from "../../entities";
+import type { ChemicalDto, ContainerDetailDto, ContainerDto, LocationDto, LocationLimitDto } from "@shared/schemas/stock";
+import type { Chemical, Container, Location, LocationLimit } from "../../entities";
+import { parseClasses } from "../../entities/location-limit.entity";
 import type { AuthUser } from "../../middleware/auth";
 import { containerPolicy } from "./container.policy";
 import type { containerDetail } from "./container.queries";
@@ -128,7 +129,7 @@ export function presentContainerDetail(d: Awaited<ReturnType<typeof containerDet
   };
 }
 
-export function presentLocation(l: Location, path: string): LocationDto {
+export function presentLocation(l: Location, path: string, limits: readonly LocationLimit[]): LocationDto {
   return {
     id: l.id,
     parentId: l.parentId,
@@ -136,9 +137,20 @@ export function presentLocation(l: Location, path: string): LocationDto {
     name: l.name,
     path,
     type: l.type,
-    flammableLimitLitres: l.flammableLimitLitres,
-    combustibleLimitLitres: l.combustibleLimitLitres,
+    limits: limits.map(presentLimit),
     limitNote: l.limitNote,
+  };
+}
+
+export function presentLimit(x: LocationLimit): LocationLimitDto {
+  return {
+    id: x.id,
+    classes: parseClasses(x.classes),
+    maxLitres: x.maxLitres,
+    enteredVolume: x.enteredVolume,
+    enteredUnit: x.enteredUnit,
+    includesCabinets: Boolean(x.includesCabinets),
+    note: x.note,
   };
 }
 

@@ -19,11 +19,13 @@ interface AlertProps {
   className?: string;
   /** Hidden prefix read before the message, e.g. "Error:", so the tone is not colour alone. */
   srLabel?: string;
+  "data-testid"?: string;
 }
 
-export function Alert({ tone = "info", children, className, srLabel }: AlertProps) {
+export function Alert({ tone = "info", children, className, srLabel, "data-testid": testId }: AlertProps) {
   return (
     <div
+      data-testid={testId}
       role={tone === "danger" ? "alert" : "status"}
       className={cn("rounded-md border px-3 py-2 text-sm", TONES[tone], className)}
     >

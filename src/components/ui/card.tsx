@@ -11,11 +11,12 @@ interface CardProps {
   children?: ReactNode;
   /** The heading level of the title within the page outline. */
   as?: "h2" | "h3";
+  "data-testid"?: string;
 }
 
-export function Card({ title, description, actions, className, bodyClassName, children, as: Heading = "h2" }: CardProps) {
+export function Card({ title, description, actions, className, bodyClassName, children, as: Heading = "h2", "data-testid": testId }: CardProps) {
   return (
-    <section className={cn("rounded-lg border border-grey-200 bg-white shadow-xs", className)}>
+    <section data-testid={testId} className={cn("rounded-lg border border-grey-200 bg-white shadow-xs", className)}>
       {(title || actions) && (
         <header className="flex items-start justify-between gap-3 border-b border-grey-200 px-4 py-2.5">
           <div className="min-w-0">

@@ -2,6 +2,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { locationDto, type LocationInput, type LocationUpdate } from "@shared/schemas/stock";
+import type { StorageLimitInput } from "@shared/schemas/storage";
 import { api, parseResponse } from "@/lib/api-client";
 import { safetyKeys } from "./keys";
 
@@ -17,3 +18,8 @@ function useLocationMutation<V>(run: (v: V) => Promise<unknown>) {
 export const useCreateLocation = () => useLocationMutation((v: LocationInput) => api.post("/locations", v));
 export const useUpdateLocation = () => useLocationMutation(({ id, ...v }: LocationUpdate & { id: number }) => api.patch(`/locations/${id}`, v));
 export const useDeleteLocation = () => useLocationMutation((id: number) => api.delete(`/locations/${id}`));
+
+export const useAddLimit = () => useLocationMutation(({ locationId, ...v }: StorageLimitInput & { locationId: number }) => api.post(`/locations/${locationId}/limits`, v));
+export const useReplaceLimit = () =>
+  useLocationMutation(({ locationId, limitId, ...v }: StorageLimitInput & { locationId: number; limitId: number }) => api.put(`/locations/${locationId}/limits/${limitId}`, v));
+export const useRemoveLimit = () => useLocationMutation(({ locationId, limitId }: { locationId: number; limitId: number }) => api.delete(`/locations/${locationId}/limits/${limitId}`));

@@ -1,7 +1,11 @@
 /**
- * Per-location flammable totals against the limits the safety office set. Over-limit is said
- * in words ("Over limit by 1.75 L"), not only by colour; limits carry their note (e.g. "Example only").
+ * Per-location liquid totals by fire-code class against the limits the safety office set. Each
+ * finding is said in words ("Over limit by 1.75 L", "Cannot confirm: 1 container of unknown
+ * volume"), not only by colour; limits carry their note (e.g. "Example only").
  */
+import { NFPA_CLASSES } from "@shared/domain/storage";
+import { LIMIT_FINDING_LABELS } from "@shared/schemas/storage";
+import type { LocationTotalsDto } from "@shared/schemas/stock";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
@@ -10,35 +14,65 @@ import { useLocationTotals } from "../api/get-location-totals";
 
 const L = (n: number) => `${n.toFixed(2)} L`;
 
+function Findings({ t }: { t: LocationTotalsDto }) {
+  if (!t.limits.length) return <span className="text-grey-600">No limit set</span>;
+  return (
+    <ul className="flex flex-col gap-1">
+      {t.limits.map((l) => (
+        <li key={l.id} className="text-xs">
+          <span className="font-medium">Class {l.classes.join(" + ")}</span>: {L(l.totalLitres)} of {L(l.maxLitres)}
+          {l.enteredUnit === "US gal" && ` (${l.enteredVolume} US gal)`}
+          {!l.includesCabinets && " outside approved cabinets"}{" "}
+          {l.finding === "over" ? (
+            <Badge tone="danger">Over limit by {L(l.totalLitres - l.maxLitres)}</Badge>
+          ) : l.finding === "cannot_confirm" ? (
+            <Badge tone="warning">Cannot confirm: {l.unknownVolumeContainers} container{l.unknownVolumeContainers > 1 ? "s" : ""} of unknown volume</Badge>
+          ) : (
+            <span>{LIMIT_FINDING_LABELS.within}</span>
+          )}
+          {l.note && <span className="block text-grey-600">{l.note}</span>}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
 export function LocationTotals() {
   const totals = useLocationTotals();
   if (totals.isError) return <Alert tone="danger">{describeError(totals.error)}</Alert>;
-  const rows = (totals.data ?? []).filter((t) => t.containerCount > 0 || t.flammableLimitLitres !== null || t.combustibleLimitLitres !== null);
+  const rows = (totals.data ?? []).filter((t) => t.containerCount > 0 || t.limits.length > 0);
   const over = rows.filter((t) => t.overLimit);
+  const unsure = rows.filter((t) => t.cannotConfirm);
   return (
     <div className="flex flex-col gap-2">
       {over.length > 0 ? (
         <Alert tone="danger" srLabel="Finding">
-          {over.length} location{over.length > 1 ? "s are" : " is"} over the limit: {over.map((t) => t.path).join("; ")}.
+          {over.length} location{over.length > 1 ? "s are" : " is"} over a limit: {over.map((t) => t.path).join("; ")}.
         </Alert>
       ) : (
-        totals.data && <Alert tone="ok">No location is over its limit.</Alert>
+        totals.data && !unsure.length && <Alert tone="ok">No location is over its limits.</Alert>
       )}
-      <Table caption="Flammable liquid per location against its limit">
+      {unsure.length > 0 && (
+        <Alert tone="warning" srLabel="Finding">
+          Cannot confirm {unsure.length} location{unsure.length > 1 ? "s" : ""} ({unsure.map((t) => t.path).join("; ")}): some flammable or combustible liquids there are kept by mass
+          without a density, so their volume is unknown. Enter the chemical's density to count them.
+        </Alert>
+      )}
+      <Table caption="Flammable and combustible liquid per location, by NFPA 30 class, against its limits">
         <THead>
           <tr>
             <Th>Location</Th>
-            <Th className="text-right">Cat. 1</Th>
-            <Th className="text-right">Cat. 2</Th>
-            <Th className="text-right">Cat. 3</Th>
-            <Th className="text-right">Flammable (1–3)</Th>
-            <Th className="text-right">Limit</Th>
-            <Th className="text-right">Combustible (4)</Th>
-            <Th>Finding</Th>
+            {NFPA_CLASSES.map((c) => (
+              <Th key={c} className="text-right">
+                Class {c}
+              </Th>
+            ))}
+            <Th className="text-right">Unknown volume</Th>
+            <Th>Limits and findings</Th>
           </tr>
         </THead>
         <TBody>
-          {totals.isPending && <TableMessage colSpan={8}>Adding up…</TableMessage>}
+          {totals.isPending && <TableMessage colSpan={NFPA_CLASSES.length + 3}>Adding up…</TableMessage>}
           {rows.map((t) => (
             <Tr key={t.id} data-testid={`location-total-${t.id}`} className={t.overLimit ? "bg-danger-50/60" : undefined}>
               <Td>
@@ -47,16 +81,14 @@ export function LocationTotals() {
                   {t.limitNote && <span className="block text-xs text-grey-600">{t.limitNote}</span>}
                 </span>
               </Td>
-              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.litresByCategory["1"])}</Td>
-              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.litresByCategory["2"])}</Td>
-              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.litresByCategory["3"])}</Td>
-              <Td className="text-right font-mono text-xs whitespace-nowrap font-semibold">{L(t.flammableLitres)}</Td>
-              <Td className="text-right font-mono text-xs whitespace-nowrap">{t.flammableLimitLitres === null ? "none set" : L(t.flammableLimitLitres)}</Td>
-              <Td className="text-right font-mono text-xs whitespace-nowrap">{L(t.combustibleLitres)}{t.combustibleLimitLitres !== null && ` / ${L(t.combustibleLimitLitres)}`}</Td>
+              {NFPA_CLASSES.map((c) => (
+                <Td key={c} className="text-right font-mono text-xs whitespace-nowrap">
+                  {L(t.litresByClass[c])}
+                </Td>
+              ))}
+              <Td className="text-right text-xs">{t.unknownVolumeContainers ? `${t.unknownVolumeContainers} container${t.unknownVolumeContainers > 1 ? "s" : ""}` : "–"}</Td>
               <Td>
-                {t.flammableOverLimit && <Badge tone="danger">Over limit by {L(t.flammableLitres - t.flammableLimitLitres!)}</Badge>}
-                {t.combustibleOverLimit && <Badge tone="danger">Combustible over limit by {L(t.combustibleLitres - t.combustibleLimitLitres!)}</Badge>}
-                {!t.overLimit && (t.flammableLimitLitres !== null ? "Within limit" : "")}
+                <Findings t={t} />
               </Td>
             </Tr>
           ))}

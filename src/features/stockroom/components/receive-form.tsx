@@ -8,6 +8,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import { PRECEDENCE_CAUTION } from "@shared/domain/cautions";
 import { CONTAINER_KIND_LABELS, STOCK_UNITS } from "@shared/schemas/stock";
+import { receiptVolumeCheck } from "@shared/domain/storage";
 import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -31,6 +32,7 @@ const schema = z.object({
   lot: z.string().max(200),
   price: z.union([z.literal(""), z.coerce.number().min(0, "The price cannot be negative")]),
   expiresAt: z.union([z.literal(""), z.iso.date({ message: "Use a date" })]),
+  allowUnknownVolume: z.boolean(),
 });
 type In = z.input<typeof schema>;
 type Out = z.output<typeof schema>;
@@ -43,11 +45,15 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
   const form = useForm<In, unknown, Out>({
     resolver: zodResolver(schema),
     mode: "onChange",
-    defaultValues: { chemicalId: chemicalId ?? "", count: 1, quantity: "", unit: "mL", kind: "bottle", locationId: "", supplier: "", lot: "", price: "", expiresAt: "" } as unknown as In,
+    defaultValues: { chemicalId: chemicalId ?? "", count: 1, quantity: "", unit: "mL", kind: "bottle", locationId: "", supplier: "", lot: "", price: "", expiresAt: "", allowUnknownVolume: false } as unknown as In,
   });
   const err = form.formState.errors;
   const chosenId = Number(useWatch({ control: form.control, name: "chemicalId" }));
   const chosen = chemicals.data?.items.find((c) => c.id === chosenId);
+  const unit = useWatch({ control: form.control, name: "unit" });
+  const kind = useWatch({ control: form.control, name: "kind" });
+  // A flammable liquid received by mass without a density cannot be counted by volume in the storage totals.
+  const volume = chosen && kind !== "waste" ? receiptVolumeCheck(unit, chosen) : null;
   const onSubmit = form.handleSubmit(async (v) => {
     setDone(null);
     try {
@@ -62,6 +68,7 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
         lot: v.lot,
         priceCents: v.price === "" ? null : Math.round(v.price * 100),
         expiresAt: v.expiresAt === "" ? null : v.expiresAt,
+        allowUnknownVolume: v.allowUnknownVolume,
       });
       setDone(`Received ${made.length} container(s): ${made.map((c) => `#${c.id}`).join(", ")}. Print their labels from the label sheet.`);
     } catch (e) {
@@ -80,6 +87,15 @@ export function ReceiveForm({ chemicalId }: { chemicalId?: number }) {
           <Input label="Size of each" required inputMode="decimal" {...form.register("quantity")} error={err.quantity?.message} />
           <Select label="Unit" {...form.register("unit")} error={err.unit?.message}>{STOCK_UNITS.map((u) => <option key={u}>{u}</option>)}</Select>
         </div>
+        {volume?.volumeUnknown && (
+          <Alert tone="warning" srLabel="Volume unknown" data-testid="density-needed">
+            <p>{volume.message}</p>
+            <p className="mt-1">Enter its density on the chemical's record, or receive it by volume (mL or L).</p>
+            <label className="mt-1 flex items-center gap-2 text-sm">
+              <input type="checkbox" {...form.register("allowUnknownVolume")} data-testid="allow-unknown-volume" /> Receive it anyway: the storage totals will say its volume is unknown
+            </label>
+          </Alert>
+        )}
         <Select label="Kind" {...form.register("kind")} hint="A waste container's size is its capacity; it starts empty." fieldClassName="w-60">
           {RECEIVED_KINDS.map((k) => <option key={k} value={k}>{CONTAINER_KIND_LABELS[k]}</option>)}
         </Select>
