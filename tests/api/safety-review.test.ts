@@ -6,6 +6,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { readPdf } from "../support/pdf-text";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
@@ -54,9 +55,11 @@ beforeAll(async () => {
     reorderUnit: "mL",
   });
   chemId = chem.body.chemical.id;
-  const room = await safety.post("/api/locations", { level: "room", name: "HCB 214", flammableLimitLitres: 20 });
-  const cab = await safety.post("/api/locations", { parentId: room.body.location.id, level: "cabinet", name: "UB-1", type: "flammable_cabinet", flammableLimitLitres: 10, limitNote: "Example only" });
+  const room = await safety.post("/api/locations", { level: "room", name: "HCB 214" });
+  await safety.post(`/api/locations/${room.body.location.id}/limits`, { classes: ["IA", "IB", "IC", "II"], maxVolume: 20, unit: "L", includesCabinets: true });
+  const cab = await safety.post("/api/locations", { parentId: room.body.location.id, level: "cabinet", name: "UB-1", type: "flammable_cabinet", limitNote: "Example only" });
   cabinetId = cab.body.location.id;
+  await safety.post(`/api/locations/${cabinetId}/limits`, { classes: ["IA", "IB", "IC", "II"], maxVolume: 10, unit: "L", includesCabinets: true, note: "Example only" });
 });
 afterAll(async () => {
   await t.close();
@@ -160,11 +163,26 @@ describe("the Safety review", () => {
     expect(r.body.expired.map((c: { id: number }) => c.id)).toContain(rec.body.containers[0].id);
   });
 
-  it("answers the printable report as a PDF", async () => {
+  it("answers the printable report as a PDF of tables: each class's litres per location, each limit with its finding", async () => {
     const r = await safety.get("/api/safety/report.pdf");
     expect(r.status).toBe(200);
     expect(r.headers.get("content-type")).toContain("application/pdf");
     expect(r.text.startsWith("%PDF-")).toBe(true);
+    const res = await fetch(`${t.url}/api/safety/report.pdf`, { headers: { cookie: safety.cookieHeader } });
+    const pdf = await readPdf(new Uint8Array(await res.arrayBuffer()));
+    const flat = pdf.text.replace(/\s+/g, " ");
+    for (const header of ["Location", "IA", "IB", "IIIB", "Unknown volume", "Classes", "Limit", "Counted", "Finding"]) expect(flat).toContain(header);
+    expect(flat).toContain("UB-1");
+    expect(flat).toMatch(/Class IA \+ IB \+ IC \+ II/);
+    expect(flat).toMatch(/Within limit|Over limit|Cannot confirm/);
+  });
+
+  it("refuses a limit with an unknown class, a negative volume or an unknown unit, naming each field (400)", async () => {
+    const r = await safety.post(`/api/locations/${cabinetId}/limits`, { classes: ["IA", "IV"], maxVolume: -1, unit: "barrel", includesCabinets: true });
+    expect(r.status).toBe(400);
+    expect(r.body.errors.map((e: { path: string }) => e.path)).toEqual(expect.arrayContaining(["classes.1", "maxVolume", "unit"]));
+    const before = (await safety.get("/api/locations")).body.items.find((l: { id: number }) => l.id === cabinetId).limits.length;
+    expect(before).toBe(1);
   });
 
   it("refuses a location inside itself", async () => {

@@ -10,7 +10,7 @@ import bcrypt from "bcryptjs";
 import type { DataSource } from "typeorm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { isValidCas } from "@shared/domain/cas";
-import { ghsFlammableCategory, hazardLabel, isAcutelyToxic, isCarcinogen } from "@shared/domain/hazards";
+import { hazardLabel, isAcutelyToxic, isCarcinogen } from "@shared/domain/hazards";
 import { openDatabase } from "../../server/db/data-source";
 import { seedDemo } from "../../server/db/seed/demo";
 
@@ -265,7 +265,7 @@ describe("seedDemo", () => {
     it("computes molar masses from IUPAC/CIAAW 2021 abridged atomic weights", async () => {
       const rows: Array<{ casNumber: string; molarMass: number }> = await ds.query(`SELECT casNumber, molarMass FROM chemicals`);
       const byCas = new Map(rows.map((r) => [r.casNumber, r.molarMass]));
-      // Values from /work/shared/reference/check-values.md (IUPAC/CIAAW 2021 abridged).
+      // Molar masses summed from the IUPAC/CIAAW 2021 abridged standard atomic weights (Prohaska et al., Pure Appl. Chem. 94 (2022) 573–600).
       expect(byCas.get("7447-41-8")).toBeCloseTo(42.39, 2); // LiCl
       expect(byCas.get("7647-14-5")).toBeCloseTo(58.44, 2); // NaCl
       expect(byCas.get("7447-40-7")).toBeCloseTo(74.55, 2); // KCl
@@ -330,32 +330,36 @@ describe("seedDemo", () => {
 
   describe("storage limits", () => {
     it("labels every configured limit as an example", async () => {
-      const rows: Array<{ name: string; limitNote: string }> = await ds.query(
-        `SELECT name, limitNote FROM locations WHERE flammableLimitLitres IS NOT NULL OR combustibleLimitLitres IS NOT NULL`,
-      );
-      expect(rows.length).toBeGreaterThanOrEqual(3);
-      for (const r of rows) expect(r.limitNote, r.name).toMatch(/^Example only/);
+      const rows: Array<{ note: string }> = await ds.query(`SELECT note FROM location_limits`);
+      expect(rows.length).toBeGreaterThanOrEqual(5);
+      for (const r of rows) expect(r.note).toMatch(/^Example only/);
     });
 
-    it("sets the 60-gallon cabinet's limit to 227.12 L (60 × 3.785 411 784 L, OSHA 29 CFR 1910.106)", async () => {
-      const rows: Array<{ flammableLimitLitres: number }> = await ds.query(
-        `SELECT flammableLimitLitres FROM locations WHERE type = 'flammable_cabinet' AND flammableLimitLitres > 100`,
+    it("keeps the 60-gallon cabinet's limit as 227.124707 L (60 × 3.785 411 784 L, OSHA 29 CFR 1910.106(d)(3); the US gallon per NIST Handbook 44 App. C)", async () => {
+      const rows: Array<{ maxLitres: number; enteredVolume: number; enteredUnit: string }> = await ds.query(
+        `SELECT maxLitres, enteredVolume, enteredUnit FROM location_limits WHERE enteredUnit = 'US gal' AND enteredVolume = 60`,
       );
       expect(rows).toHaveLength(1);
-      expect(rows[0].flammableLimitLitres).toBeCloseTo(227.12, 2);
+      expect(rows[0].maxLitres).toBeCloseTo(60 * 3.785411784, 9);
     });
 
-    it("overfills exactly one cabinet with category 1–3 flammable liquids (UN GHS ch. 2.6)", async () => {
-      const rows: Array<{ locationId: number; limit: number; quantity: number; unit: string; flashPointC: number | null; boilingPointC: number | null }> =
-        await ds.query(
-          `SELECT l.id AS locationId, l.flammableLimitLitres AS "limit", c.quantity, c.unit, ch.flashPointC, ch.boilingPointC
-           FROM locations l JOIN containers c ON c.locationId = l.id JOIN chemicals ch ON ch.id = c.chemicalId
-           WHERE l.level = 'cabinet' AND l.flammableLimitLitres IS NOT NULL AND c.status NOT IN ('empty', 'disposed')`,
-        );
+    it("has limits of the kinds the fire codes set: a class alone, Class I together, Classes I + II + IIIA together, with and without cabinets", async () => {
+      const rows: Array<{ classes: string; includesCabinets: number }> = await ds.query(`SELECT classes, includesCabinets FROM location_limits`);
+      const sets = rows.map((r) => (JSON.parse(r.classes) as string[]).join("+"));
+      expect(sets).toEqual(expect.arrayContaining(["IA", "IA+IB+IC", "IA+IB+IC+II+IIIA"]));
+      expect(rows.some((r) => !r.includesCabinets)).toBe(true);
+    });
+
+    it("overfills exactly one cabinet's Class I + II limit (NFPA 30 closed-cup thresholds: Class I below 100 °F = 37.8 °C, Class II below 140 °F = 60 °C)", async () => {
+      const rows: Array<{ locationId: number; limit: number; quantity: number; unit: string; flashPointC: number | null }> = await ds.query(
+        `SELECT l.id AS locationId, ll.maxLitres AS "limit", c.quantity, c.unit, ch.flashPointC
+           FROM locations l JOIN location_limits ll ON ll.locationId = l.id AND ll.classes = '["IA","IB","IC","II"]'
+           JOIN containers c ON c.locationId = l.id JOIN chemicals ch ON ch.id = c.chemicalId
+          WHERE l.level = 'cabinet' AND c.status NOT IN ('empty', 'disposed')`,
+      );
       const litres = new Map<number, { limit: number; total: number }>();
       for (const r of rows) {
-        const category = ghsFlammableCategory(r.flashPointC, r.boilingPointC);
-        if (category === null || category > 3) continue;
+        if (r.flashPointC === null || r.flashPointC >= 60) continue;
         expect(r.unit).toBe("mL");
         const entry = litres.get(r.locationId) ?? { limit: r.limit, total: 0 };
         entry.total += r.quantity / 1000;

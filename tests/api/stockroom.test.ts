@@ -36,10 +36,12 @@ beforeAll(async () => {
   const m = await signedIn(["member"]);
   member = m.c;
   memberId = m.id;
-  const room = await keeper.post("/api/locations", { level: "room", name: "HCB 214", type: "general", flammableLimitLitres: 75.71 });
-  const cab = await keeper.post("/api/locations", { parentId: room.body.location.id, level: "cabinet", name: "UB-1", type: "flammable_cabinet", flammableLimitLitres: 10 });
+  const room = await keeper.post("/api/locations", { level: "room", name: "HCB 214", type: "general" });
+  expect((await keeper.post(`/api/locations/${room.body.location.id}/limits`, { classes: ["IA", "IB", "IC"], maxVolume: 20, unit: "US gal", includesCabinets: true })).status).toBe(201);
+  const cab = await keeper.post("/api/locations", { parentId: room.body.location.id, level: "cabinet", name: "UB-1", type: "flammable_cabinet" });
   expect(cab.status, cab.text).toBe(201);
   cabinetId = cab.body.location.id;
+  expect((await keeper.post(`/api/locations/${cabinetId}/limits`, { classes: ["IA", "IB", "IC", "II"], maxVolume: 10, unit: "L", includesCabinets: true })).status).toBe(201);
   const a = await keeper.post("/api/chemicals", {
     name: "1,2-Dichloroethane",
     casNumber: "107-06-2",
@@ -240,6 +242,26 @@ describe("POST /api/containers/:id/usage", () => {
     const usages = await t.ds.getRepository(ContainerUsage).findBy({ containerId: c.id });
     expect(usages.reduce((s, u) => s + u.amountInContainerUnit, 0)).toBe(150);
   });
+
+  it("leaves exactly zero and 'empty' after ten parallel usages in mL and L that together take the whole 0.1 L", async () => {
+    const [c] = await receive(dce.id, 0.1, "L");
+    // 3 × 0.01 L + 7 × 10 mL = 0.1 L; in floating point 0.1 − 0.01 − … does not come to 0.
+    const amounts = [...Array.from({ length: 3 }, () => ({ amount: 0.01, unit: "L" })), ...Array.from({ length: 7 }, () => ({ amount: 10, unit: "mL" }))];
+    const answers = await Promise.all(amounts.map((a) => member.post(`/api/containers/${c.id}/usage`, a)));
+    expect(answers.map((a) => a.status)).toEqual(amounts.map(() => 200));
+    const after = (await member.get(`/api/containers/${c.id}`)).body.container;
+    expect(after.quantity).toBe(0);
+    expect(after.status).toBe("empty");
+  });
+
+  it("takes exactly four of ten parallel quarter-usages of a 0.1 L container, in mL and L, and leaves exactly zero", async () => {
+    const [c] = await receive(dce.id, 0.1, "L");
+    const answers = await Promise.all(Array.from({ length: 10 }, (_, i) => member.post(`/api/containers/${c.id}/usage`, i % 2 ? { amount: 25, unit: "mL" } : { amount: 0.025, unit: "L" })));
+    expect(answers.filter((a) => a.status === 200)).toHaveLength(4);
+    const after = (await member.get(`/api/containers/${c.id}`)).body.container;
+    expect(after.quantity).toBe(0);
+    expect(after.status).toBe("empty");
+  });
 });
 
 describe("POST /api/solutions/plan", () => {
@@ -294,20 +316,41 @@ describe("POST /api/solutions", () => {
 });
 
 describe("GET /api/safety/locations", () => {
-  it("totals flammable liquid per cabinet and rolls cabinets into their room, flagging what is over the limit", async () => {
+  it("totals liquid per cabinet by NFPA 30 class, rolls cabinets into their room, and finds each limit", async () => {
     const safety = (await signedIn(["safety_officer"])).c;
     const before = (await safety.get("/api/safety/locations")).body.items.find((l: { id: number }) => l.id === cabinetId);
-    // 4 L more of a category 2 liquid in the 10 L cabinet.
+    // 4 L more of 1,2-dichloroethane (flash 13 °C, boils 83.5 °C: NFPA 30 Class IB) in the 10 L cabinet.
     await receive(dce.id, 2000, "mL", 2);
     const r = await safety.get("/api/safety/locations");
     expect(r.status).toBe(200);
     const cab = r.body.items.find((l: { id: number }) => l.id === cabinetId);
     const room = r.body.items.find((l: { id: number }) => l.id === cab.parentId);
-    expect(cab.flammableLitres).toBeCloseTo(before.flammableLitres + 4, 3);
-    expect(cab.litresByCategory["2"]).toBeCloseTo(cab.flammableLitres, 3);
-    expect(cab.overLimit).toBe(cab.flammableLitres > 10);
-    expect(room.flammableLitres).toBeGreaterThanOrEqual(cab.flammableLitres);
-    expect(room.flammableLimitLitres).toBe(75.71);
+    expect(cab.litresByClass.IB).toBeCloseTo(before.litresByClass.IB + 4, 6);
+    const [cabLimit] = cab.limits;
+    expect(cabLimit).toMatchObject({ classes: ["IA", "IB", "IC", "II"], maxLitres: 10 });
+    expect(cabLimit.finding).toBe(cabLimit.totalLitres > 10 ? "over" : "within");
+    expect(room.litresByClass.IB).toBeGreaterThanOrEqual(cab.litresByClass.IB);
+    // 20 US gal, typed in gallons, kept in litres: 20 × 3.785411784 L (exact by definition, NIST Handbook 44 Appendix C).
+    expect(room.limits[0].maxLitres).toBeCloseTo(75.70823568, 8);
+    expect(room.limits[0]).toMatchObject({ enteredVolume: 20, enteredUnit: "US gal" });
+  });
+
+  it("asks for a density (422 density_needed) when a flammable liquid arrives by mass without one, and counts it as unknown volume when forced", async () => {
+    const hexane = await keeper.post("/api/chemicals", { name: "Hexane (no density on record)", casNumber: "110-54-3", formula: "C6H14", flashPointC: -22, boilingPointC: 69 });
+    expect(hexane.status, hexane.text).toBe(201);
+    const body = { chemicalId: hexane.body.chemical.id, count: 1, quantity: 2000, unit: "g", locationId: cabinetId };
+    const refused = await keeper.post("/api/containers/receive", body);
+    expect(refused.status).toBe(422);
+    expect(refused.body.code).toBe("density_needed");
+    expect(refused.body.errors[0].path).toBe("unit");
+    expect(refused.body.detail).toMatch(/density/);
+    const forced = await keeper.post("/api/containers/receive", { ...body, allowUnknownVolume: true });
+    expect(forced.status).toBe(201);
+    const cab = (await keeper.get("/api/safety/locations")).body.items.find((l: { id: number }) => l.id === cabinetId);
+    expect(cab.unknownVolumeContainers).toBeGreaterThanOrEqual(1);
+    expect(cab.unknownVolumeContainerIds).toContain(forced.body.containers[0].id);
+    for (const limit of cab.limits) expect(limit.finding).not.toBe("within");
+    await keeper.post(`/api/containers/${forced.body.containers[0].id}/dispose`, { reason: "test done" });
   });
 
   it("answers 403 to a member", async () => {

@@ -133,7 +133,7 @@ describe("stock", () => {
     const tooMuch = await as.member.post(`/api/containers/${bottle.id}/usage`, { amount: 1000, unit: "kg" });
     expect(tooMuch.status).toBe(422);
 
-    // check-values.md worked example: 10 mmol/L LiCl in 100 mL needs 42.39 mg (c × V × M).
+    // Worked by hand: c × V × M = 0.010 mol/L × 0.100 L × 42.39 g/mol (CIAAW 2021 abridged: Li 6.94 + Cl 35.45) = 42.39 mg.
     const plan = await as.member.post("/api/solutions/plan", { soluteChemicalId: licl.id, concentrationMolPerL: 0.01, volumeMl: 100 });
     expect(plan.status).toBe(200);
     expect(plan.body.soluteMassG).toBeCloseTo(0.04239, 5);

@@ -20,7 +20,7 @@ export async function makeGroup(ds: DataSource): Promise<ResearchGroup> {
   return ds.getRepository(ResearchGroup).save({ name: `Group ${seq}`, departmentId: dept.id, leadId: null });
 }
 
-/** 1,2-dichloroethane with the H-codes of the reference page (suppliers' safety data sheets). */
+/** 1,2-dichloroethane with the H-codes of suppliers' safety data sheets (section 2). */
 export async function makeDichloroethane(ds: DataSource): Promise<Chemical> {
   return ds.getRepository(Chemical).save({
     name: "1,2-Dichloroethane",

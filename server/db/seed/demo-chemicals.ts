@@ -84,7 +84,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
     synonyms: ["DCE", "ethylene dichloride"],
     casNumber: "107-06-2",
     ...fromFormula("C2H4Cl2"),
-    // Suppliers' safety data sheets (some add H304 or H331); /work/shared/reference/check-values.md.
+    // Suppliers' safety data sheets for 1,2-dichloroethane, section 2 (hazards identification); some add H304 or H331.
     hazardStatements: ["H225", "H302", "H315", "H319", "H335", "H350"],
     pictograms: ["GHS02", "GHS07", "GHS08"],
     signalWord: "Danger",
