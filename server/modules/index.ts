@@ -6,5 +6,7 @@ import type { RouteTable } from "../http/route-table";
 import { stockroomTable } from "./stockroom";
 import { safetyTable } from "./safety";
 import { labelsTable } from "./labels";
+import { peopleTable } from "./people";
 
-export const ROUTE_TABLES: RouteTable[] = [stockroomTable, safetyTable, labelsTable];
+// People first: its session routes (GET /api/auth/me, the signed-in baseline) are matched before any other.
+export const ROUTE_TABLES: RouteTable[] = [peopleTable, stockroomTable, safetyTable, labelsTable];

@@ -25,7 +25,7 @@ import {
   UserRole,
 } from "../../entities";
 import { audit } from "../../core/audit";
-import { hashPassword } from "../../services/user.service";
+import { hashPassword } from "../../modules/people";
 import { newToken } from "../../core/tokens";
 import { DEMO_ACCOUNTS } from "./demo-accounts";
 import { seedDemoBookings } from "./demo-bookings";
