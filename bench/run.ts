@@ -165,7 +165,7 @@ function stockroomScenarios(list: BenchScenario[]): Scenario[] {
 
 async function seedBench(dir: string) {
   const { openDatabase } = await import("../server/db/data-source");
-  const { hashPassword } = await import("../server/services/user.service");
+  const { hashPassword } = await import("../server/modules/people");
   const { newToken } = await import("../server/core/tokens");
   const ds = await openDatabase(path.join(dir, "bench.sqlite"));
   const db = (ds.driver as unknown as { databaseConnection: import("better-sqlite3").Database }).databaseConnection;

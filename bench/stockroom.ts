@@ -13,7 +13,7 @@
  */
 import crypto from "node:crypto";
 import type { DataSource } from "typeorm";
-import { hashPassword } from "../server/services/user.service";
+import { hashPassword } from "../server/modules/people";
 
 export interface BenchGoal {
   /** Requests per second at least this share of the bare route's, measured in the same run. */

@@ -9,11 +9,8 @@ import session from "express-session";
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import { csrfSync } from "csrf-sync";
-import type { PassportStatic } from "passport";
 import { createServices, type AppDeps, type Ctx } from "./context";
-import { DbSessionStore } from "./auth/session-store";
-import { createPassport } from "./auth/passport";
-import { createAuthRouter } from "./routes/auth.router";
+import { createPassport, createSignIn, DbSessionStore } from "./modules/people";
 import { apiRouters, listRoutes } from "./routes";
 import { apiNotFound, errorHandler } from "./middleware/problem";
 import { buildMounts } from "./http/router";
@@ -35,7 +32,18 @@ export interface CreatedApp {
 }
 
 export function createApp(deps: AppDeps): CreatedApp {
-  const ctx: Ctx = { ...deps, services: createServices(deps), now: () => deps.clock.now() };
+  const passport = createPassport(deps.ds);
+  const csrf = csrfSync({
+    getTokenFromRequest: (req) => req.get("x-csrf-token"),
+    skipCsrfProtection: (req) => CSRF_EXEMPT.some((re) => re.test(req.originalUrl)),
+    errorConfig: { statusCode: 403, code: "csrf_invalid", message: "CSRF token missing or stale" },
+  });
+  const ctx: Ctx = {
+    ...deps,
+    services: createServices(deps),
+    now: () => deps.clock.now(),
+    signIn: createSignIn(deps, passport, (req) => csrf.generateToken(req)),
+  };
   const app = express();
   const secureCookies = deps.config.PUBLIC_URL.startsWith("https://");
 
@@ -91,26 +99,15 @@ export function createApp(deps: AppDeps): CreatedApp {
       cookie: { httpOnly: true, sameSite: "lax", secure: secureCookies, maxAge: 12 * 60 * 60 * 1000 },
     }),
   );
-  const passport = createPassport(ctx.services);
   app.use(passport.initialize());
   app.use(passport.session());
-
-  const csrf = csrfSync({
-    getTokenFromRequest: (req) => req.get("x-csrf-token"),
-    skipCsrfProtection: (req) => CSRF_EXEMPT.some((re) => re.test(req.originalUrl)),
-    errorConfig: { statusCode: 403, code: "csrf_invalid", message: "CSRF token missing or stale" },
-  });
   app.use("/api", csrf.csrfSynchronisedProtection);
 
   const tables: RouteTable[] = [
     ...ROUTE_TABLES,
     apiDescriptionTable(() => tables, { version: deps.version ?? "dev", publicUrl: deps.config.PUBLIC_URL }),
   ];
-  const mounts = [
-    { path: "/auth", router: createAuthRouter(ctx, passport as unknown as PassportStatic, (req) => csrf.generateToken(req as express.Request)) },
-    ...buildMounts(ctx, tables),
-    ...apiRouters(ctx),
-  ];
+  const mounts = [...buildMounts(ctx, tables), ...apiRouters(ctx)];
   app.use("/api/docs/assets", docsAssets());
   for (const { path: p, router } of mounts) app.use(`/api${p}`, router);
   app.use("/api", apiNotFound);

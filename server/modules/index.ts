@@ -7,5 +7,7 @@ import { stockroomTable } from "./stockroom";
 import { safetyTable } from "./safety";
 import { labelsTable } from "./labels";
 import { systemTable } from "./system";
+import { peopleTable } from "./people";
 
-export const ROUTE_TABLES: RouteTable[] = [systemTable, stockroomTable, safetyTable, labelsTable];
+// People first: its session routes (GET /api/auth/me, the signed-in baseline) are matched before any other.
+export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, stockroomTable, safetyTable, labelsTable];

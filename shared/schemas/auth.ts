@@ -62,4 +62,13 @@ export const userDto = z.object({
 });
 export type UserDto = z.infer<typeof userDto>;
 
+/** GET /api/auth/me and POST /api/auth/login answer the signed-in person. */
+export const sessionDto = z.object({ user: userDto });
+
+/** GET /api/auth/csrf: the session's token, sent back in the x-csrf-token header. */
+export const csrfTokenDto = z.object({ token: z.string() });
+
+/** POST /api/auth/password-reset/request answers the same words whether or not the address has an account. */
+export const resetRequestedDto = z.object({ detail: z.string() });
+
 export { password as passwordSchema };

@@ -27,6 +27,9 @@ export const trainingListQuery = pageQuery.extend({
 });
 export type TrainingListQuery = z.infer<typeof trainingListQuery>;
 
+/** What the signed-in person may do to a training record (the training policy's answer). */
+export const trainingAbilities = z.object({ view: z.boolean(), revoke: z.boolean() });
+
 export const trainingDto = z.object({
   id: z.number(),
   userId: z.number(),
@@ -40,6 +43,7 @@ export const trainingDto = z.object({
   revokedAt: z.string().nullable(),
   notes: z.string(),
   state: z.enum(["current", "expiring", "expired", "none"]),
+  abilities: trainingAbilities,
 });
 export type TrainingDto = z.infer<typeof trainingDto>;
 
@@ -60,5 +64,17 @@ export const trainingRequestDto = z.object({
   note: z.string(),
   status: z.enum(["open", "granted", "dismissed"]),
   createdAt: z.string(),
+  abilities: z.object({ view: z.boolean(), close: z.boolean() }),
 });
 export type TrainingRequestDto = z.infer<typeof trainingRequestDto>;
+
+export const trainingRequestListQuery = z.object({ status: z.enum(["open", "granted", "dismissed"]).optional() });
+
+/** POST /api/training/requests answers the new request's id and state. */
+export const trainingRequestCreated = z.object({ request: z.object({ id: z.number(), status: z.literal("open"), instrumentId: z.number() }) });
+/** POST /api/training/requests/:id/close answers the request's new state. */
+export const trainingRequestClosed = z.object({ request: z.object({ id: z.number(), status: z.enum(["granted", "dismissed"]) }) });
+
+/** Someone the manager may train: an active person with the member role. */
+export const trainablePersonDto = z.object({ id: z.number(), name: z.string(), email: z.string() });
+export type TrainablePersonDto = z.infer<typeof trainablePersonDto>;

@@ -105,6 +105,16 @@ describe("seedDemo", () => {
       for (const t of tokens) expect(t.length).toBeGreaterThanOrEqual(32);
     });
 
+    it("names buyer@'s organisation exactly as the external customer's account does, and nobody else's", async () => {
+      const people: Array<{ email: string; organisation: string | null }> = await ds.query(`SELECT email, organisation FROM users WHERE organisation IS NOT NULL`);
+      expect(people).toEqual([{ email: "buyer@tidewater.example", organisation: "Tidewater Metals Recovery Ltd" }]);
+      const [account] = await ds.query(
+        `SELECT a.organisation FROM accounts a JOIN account_members m ON m.accountId = a.id JOIN users u ON u.id = m.userId
+         WHERE u.email = 'buyer@tidewater.example' AND a.kind = 'external'`,
+      );
+      expect(account.organisation).toBe(people[0].organisation);
+    });
+
     it("puts every Kestrel Bay researcher in a department and the external buyer in none", async () => {
       const rows: Array<{ email: string; departmentId: number | null; groupId: number | null }> = await ds.query(
         `SELECT email, departmentId, groupId FROM users`,

@@ -2,7 +2,7 @@
 import type { DataSource } from "typeorm";
 import type { Role } from "@shared/schemas/auth";
 import { User, UserRole } from "../../server/entities";
-import { hashPassword } from "../../server/services/user.service";
+import { hashPassword } from "../../server/modules/people";
 import { newToken } from "../../server/core/tokens";
 
 export const TEST_PASSWORD = "correct-horse-battery";

@@ -15,7 +15,7 @@ import { loadConfig } from "../../server/config";
 import { fixedClock } from "../../server/clock";
 import type { Mailer, OutgoingMail } from "../../server/integrations/mailer";
 import type { Ctx } from "../../server/context";
-import type { DbSessionStore } from "../../server/auth/session-store";
+import type { DbSessionStore } from "../../server/modules/people";
 import type { AppDeps } from "../../server/context";
 import type { RouteTable } from "../../server/http/route-table";
 

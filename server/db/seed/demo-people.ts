@@ -47,6 +47,8 @@ export interface DemoPerson {
   roles: Role[];
   department: DepartmentCode | null;
   group: GroupKey | null;
+  /** The external customer this person works for, exactly as on its accounts; absent for Kestrel Bay's own people. */
+  organisation?: string;
   /** Who this person is in the story; not stored, it explains the choice of data. */
   story: string;
 }
@@ -113,6 +115,7 @@ export const DEMO_PEOPLE: readonly DemoPerson[] = [
     roles: ["member"],
     department: null,
     group: null,
+    organisation: "Tidewater Metals Recovery Ltd",
     story: "Process chemist at Tidewater Metals Recovery Ltd, the external customer who pays by card.",
   },
   {

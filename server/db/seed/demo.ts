@@ -26,7 +26,7 @@ import {
   UserRole,
 } from "../../entities";
 import { audit } from "../../core/audit";
-import { hashPassword } from "../../services/user.service";
+import { hashPassword } from "../../core/passwords";
 import { newToken } from "../../core/tokens";
 import { DEMO_ACCOUNTS } from "./demo-accounts";
 import { seedDemoBookings } from "./demo-bookings";
@@ -56,6 +56,10 @@ export interface SeedDemoOptions {
 function checkDemoData(): void {
   const bad = DEMO_CHEMICALS.filter((c) => !isValidCas(c.casNumber)).map((c) => `${c.name} (${c.casNumber})`);
   if (bad.length > 0) throw new Error(`Demo chemicals with an invalid CAS number: ${bad.join(", ")}`);
+  // A customer's people are named with its organisation exactly as its accounts are, or the organisation rules would not match them.
+  const organisations = new Set(DEMO_ACCOUNTS.filter((a) => a.kind === "external").map((a) => a.organisation));
+  const stray = DEMO_PEOPLE.filter((p) => p.organisation !== undefined && !organisations.has(p.organisation)).map((p) => `${p.email} (${p.organisation})`);
+  if (stray.length > 0) throw new Error(`Demo people of an organisation no external account has: ${stray.join(", ")}`);
 }
 
 async function insertId(em: EntityManager, entity: Parameters<EntityManager["insert"]>[0], row: object): Promise<number> {
@@ -93,6 +97,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
         active: true,
         departmentId: p.department ? lookup(departments, p.department) : null,
         groupId: null, // set below, once the groups exist (a group needs its lead first)
+        organisation: p.organisation ?? null,
         calendarToken: newToken(24),
         createdAt: isoAfter(now, -420),
         updatedAt: isoAfter(now, -420),

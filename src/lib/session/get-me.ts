@@ -1,16 +1,13 @@
 /** GET /api/auth/me: who is signed in. A 401 is an answer here ("nobody"), not an error. */
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import { z } from "zod";
-import { userDto, type UserDto } from "@shared/schemas/auth";
+import { sessionDto, type UserDto } from "@shared/schemas/auth";
 import { api, isApiError, parseResponse } from "@/lib/api-client";
 import { authKeys } from "./keys";
-
-const meResponse = z.object({ user: userDto });
 
 export async function getMe(signal?: AbortSignal): Promise<UserDto | null> {
   try {
     const data = await api.get<unknown>("/auth/me", { signal });
-    return parseResponse(meResponse, data, "GET /api/auth/me").user;
+    return parseResponse(sessionDto, data, "GET /api/auth/me").user;
   } catch (error) {
     if (isApiError(error, 401)) return null;
     throw error;

@@ -1,15 +1,12 @@
 /** POST /api/auth/login. Sign-in replaces the session, so the CSRF token is fetched anew afterwards. */
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { z } from "zod";
-import { userDto, type LoginInput, type UserDto } from "@shared/schemas/auth";
+import { sessionDto, type LoginInput, type UserDto } from "@shared/schemas/auth";
 import { api, parseResponse, refreshCsrfToken } from "@/lib/api-client";
 import { authKeys } from "./keys";
 
-const loginResponse = z.object({ user: userDto });
-
 export async function login(input: LoginInput): Promise<UserDto> {
   const data = await api.post<unknown>("/auth/login", input);
-  return parseResponse(loginResponse, data, "POST /api/auth/login").user;
+  return parseResponse(sessionDto, data, "POST /api/auth/login").user;
 }
 
 export function useLogin() {

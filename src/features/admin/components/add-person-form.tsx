@@ -15,6 +15,7 @@ import { Alert } from "@/components/ui/alert";
 import { LoadingLine } from "@/components/ui/spinner";
 import { RoleCheckboxes } from "./role-checkboxes";
 import { DepartmentGroupFields } from "./department-group-fields";
+import { OrganisationField } from "./organisation-field";
 
 interface AddPersonFormProps {
   onAdded: (user: UserAdminDto) => void;
@@ -36,7 +37,7 @@ function AddPersonFormBody({ onAdded, onCancel }: AddPersonFormProps) {
   const form = useForm({
     resolver: zodResolver(createUserInput),
     mode: "onTouched",
-    defaultValues: { name: "", email: "", roles: ["member"], password: undefined, departmentId: null, groupId: null },
+    defaultValues: { name: "", email: "", roles: ["member"], password: undefined, departmentId: null, groupId: null, organisation: "" },
   });
   const {
     register,
@@ -54,7 +55,7 @@ function AddPersonFormBody({ onAdded, onCancel }: AddPersonFormProps) {
         setError("email", { type: "server", message: "Someone already uses this e-mail address" }, { shouldFocus: true });
         return;
       }
-      const mapped = applyServerFieldErrors(error, setError, ["name", "email", "roles", "password", "departmentId", "groupId"]);
+      const mapped = applyServerFieldErrors(error, setError, ["name", "email", "roles", "password", "departmentId", "groupId", "organisation"]);
       if (!mapped) setFormError(describeError(error));
     }
   });
@@ -68,6 +69,7 @@ function AddPersonFormBody({ onAdded, onCancel }: AddPersonFormProps) {
       </div>
       <RoleCheckboxes id={rolesId} registration={register("roles")} error={errors.roles?.message} />
       <DepartmentGroupFields form={form} />
+      <OrganisationField registration={register("organisation")} error={errors.organisation?.message} />
       <Input
         label="First password (optional)"
         type="password"

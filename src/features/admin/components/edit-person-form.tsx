@@ -1,4 +1,8 @@
-/** Changes a person's name, roles, department and group (PATCH /api/users/:id). */
+/**
+ * Changes a person's name, roles, department, group and organisation (PATCH /api/users/:id).
+ * The Administrator role stays checked where the person's abilities say it may not be removed
+ * (one's own account).
+ */
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -13,13 +17,13 @@ import { Alert } from "@/components/ui/alert";
 import { LoadingLine } from "@/components/ui/spinner";
 import { RoleCheckboxes } from "./role-checkboxes";
 import { DepartmentGroupFields } from "./department-group-fields";
+import { OrganisationField } from "./organisation-field";
 
-// The PATCH schema makes every field optional; this form always sends these four.
-const editForm = updateUserInput.required().pick({ name: true, roles: true, departmentId: true, groupId: true });
+// The PATCH schema makes every field optional; this form always sends these five.
+const editForm = updateUserInput.required().pick({ name: true, roles: true, departmentId: true, groupId: true, organisation: true });
 
 interface EditPersonFormProps {
   person: UserAdminDto;
-  isSelf: boolean;
   onSaved: (user: UserAdminDto) => void;
   onCancel: () => void;
 }
@@ -31,30 +35,29 @@ export function EditPersonForm(props: EditPersonFormProps) {
   return <EditPersonFormBody {...props} />;
 }
 
-function EditPersonFormBody({ person, isSelf, onSaved, onCancel }: EditPersonFormProps) {
+function EditPersonFormBody({ person, onSaved, onCancel }: EditPersonFormProps) {
   const update = useUpdateUser();
   const rolesId = useId();
   const [formError, setFormError] = useState<string | null>(null);
   const form = useForm({
     resolver: zodResolver(editForm),
     mode: "onTouched",
-    defaultValues: { name: person.name, roles: person.roles, departmentId: person.departmentId, groupId: person.groupId },
+    defaultValues: { name: person.name, roles: person.roles, departmentId: person.departmentId, groupId: person.groupId, organisation: person.organisation ?? "" },
   });
   const {
     register,
     handleSubmit,
     setError,
-    watch,
     formState: { errors },
   } = form;
-  const droppingOwnAdmin = isSelf && !watch("roles")?.includes("admin");
+  const keepsAdmin = person.roles.includes("admin") && !person.abilities.removeAdminRole;
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
     try {
       onSaved(await update.mutateAsync({ id: person.id, input: values }));
     } catch (error) {
-      if (!applyServerFieldErrors(error, setError, ["name", "roles", "departmentId", "groupId"])) setFormError(describeError(error));
+      if (!applyServerFieldErrors(error, setError, ["name", "roles", "departmentId", "groupId", "organisation"])) setFormError(describeError(error));
     }
   });
 
@@ -65,11 +68,14 @@ function EditPersonFormBody({ person, isSelf, onSaved, onCancel }: EditPersonFor
       <p className="text-xs text-grey-600">
         E-mail: <span className="font-mono">{person.email}</span>
       </p>
-      <RoleCheckboxes id={rolesId} registration={register("roles")} error={errors.roles?.message} />
-      {droppingOwnAdmin && (
-        <Alert tone="warning">You are removing your own Administrator role: after saving you can no longer manage people.</Alert>
-      )}
+      <RoleCheckboxes
+        id={rolesId}
+        registration={register("roles")}
+        error={errors.roles?.message}
+        kept={keepsAdmin ? { role: "admin", reason: "You cannot remove your own Administrator role; another administrator can." } : undefined}
+      />
       <DepartmentGroupFields form={form} />
+      <OrganisationField registration={register("organisation")} error={errors.organisation?.message} />
       <div className="flex justify-end gap-2 pt-1">
         <Button onClick={onCancel}>Cancel</Button>
         <Button type="submit" variant="primary" loading={update.isPending}>

@@ -1,6 +1,7 @@
 /**
- * Administration › People: every account with its roles, department and state, sortable by
- * column and filtered by name or e-mail on the server. Add, edit and (de)activate open dialogs.
+ * Administration › People: every account with its roles, department, group, organisation and
+ * state, sortable by column and filtered by name, e-mail or organisation on the server. Add, edit
+ * and (de)activate open dialogs; each row's abilities (the user policy's answer) say which.
  */
 import { useMemo, useState } from "react";
 import {
@@ -13,7 +14,6 @@ import {
 } from "@tanstack/react-table";
 import { ROLE_LABELS } from "@shared/schemas/auth";
 import type { UserAdminDto } from "@shared/schemas/users";
-import { useUser } from "@/lib/auth";
 import { describeError } from "@/lib/forms";
 import { formatDate } from "@/lib/format";
 import { useDebouncedValue } from "@/hooks/use-debounced-value";
@@ -36,7 +36,6 @@ const PAGE_LIMIT = 500;
 const column = createColumnHelper<UserAdminDto>();
 
 export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; onAddOpenChange: (open: boolean) => void }) {
-  const { data: me } = useUser();
   const [filter, setFilter] = useState("");
   const q = useDebouncedValue(filter.trim());
   const users = useUsers({ q: q || undefined, limit: PAGE_LIMIT, offset: 0 });
@@ -86,6 +85,7 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
       }),
       column.accessor((u) => departmentName(u.departmentId), { id: "department", header: "Department" }),
       column.accessor((u) => groupName(u.groupId), { id: "group", header: "Group" }),
+      column.accessor((u) => u.organisation ?? "", { id: "organisation", header: "Organisation" }),
       column.accessor("active", {
         header: "State",
         cell: (c) => (c.getValue() ? <Badge tone="ok">Active</Badge> : <Badge tone="neutral">Deactivated</Badge>),
@@ -96,17 +96,20 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
         header: () => <span className="sr-only">Actions</span>,
         cell: ({ row }) => {
           const person = row.original;
-          const isSelf = person.id === me?.id;
+          // The user policy's answer for this row: nobody deactivates their own account.
+          const mayToggle = person.active ? person.abilities.deactivate : person.abilities.reactivate;
           return (
             <div className="flex justify-end gap-1">
-              <Button size="sm" variant="ghost" onClick={() => setEditing(person)} aria-label={`Edit ${person.name}`}>
-                Edit
-              </Button>
+              {person.abilities.edit && (
+                <Button size="sm" variant="ghost" onClick={() => setEditing(person)} aria-label={`Edit ${person.name}`}>
+                  Edit
+                </Button>
+              )}
               <Button
                 size="sm"
                 variant="ghost"
-                disabled={isSelf && person.active}
-                title={isSelf && person.active ? "You cannot deactivate your own account" : undefined}
+                disabled={!mayToggle}
+                title={!mayToggle && person.active ? "You cannot deactivate your own account; another administrator can" : undefined}
                 onClick={() => setToggling(person)}
                 aria-label={`${person.active ? "Deactivate" : "Reactivate"} ${person.name}`}
                 className={person.active ? "text-danger-700 hover:text-danger-800" : undefined}
@@ -118,7 +121,7 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
         },
       }),
     ],
-    [departmentName, groupName, me?.id],
+    [departmentName, groupName],
   );
 
   const items = users.data?.items;
@@ -136,7 +139,7 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
       <div className="flex flex-wrap items-end gap-3">
         <div className="flex w-full max-w-xs flex-col gap-1">
           <label htmlFor="people-filter" className="text-xs font-medium text-grey-700">
-            Filter by name or e-mail
+            Filter by name, e-mail or organisation
           </label>
           <input
             id="people-filter"
@@ -207,7 +210,6 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
         {editing && (
           <EditPersonForm
             person={editing}
-            isSelf={editing.id === me?.id}
             onCancel={() => setEditing(null)}
             onSaved={(user) => {
               setEditing(null);

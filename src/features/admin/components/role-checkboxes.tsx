@@ -1,6 +1,10 @@
-/** The five roles as checkboxes under one legend; react-hook-form collects the checked ones into an array. */
+/**
+ * The five roles as checkboxes under one legend; react-hook-form collects the checked ones into
+ * an array. A `kept` role cannot be unchecked (the person's abilities said so); it stays enabled,
+ * because react-hook-form leaves disabled boxes out of the value.
+ */
 import type { UseFormRegisterReturn } from "react-hook-form";
-import { ROLES, ROLE_LABELS } from "@shared/schemas/auth";
+import { ROLES, ROLE_LABELS, type Role } from "@shared/schemas/auth";
 import { Checkbox } from "@/components/ui/input";
 import { FieldSet } from "@/components/ui/field";
 
@@ -12,22 +16,36 @@ const ROLE_HINTS: Record<(typeof ROLES)[number], string> = {
   admin: "people, roles, settings",
 };
 
-export function RoleCheckboxes({ id, registration, error }: { id: string; registration: UseFormRegisterReturn; error?: string }) {
+interface RoleCheckboxesProps {
+  id: string;
+  registration: UseFormRegisterReturn;
+  error?: string;
+  kept?: { role: Role; reason: string };
+}
+
+export function RoleCheckboxes({ id, registration, error, kept }: RoleCheckboxesProps) {
   return (
-    <FieldSet id={id} legend="Roles" error={error}>
+    <FieldSet id={id} legend="Roles" error={error} hint={kept?.reason}>
       <div className="grid gap-1.5 sm:grid-cols-2">
-        {ROLES.map((role) => (
-          <Checkbox
-            key={role}
-            value={role}
-            label={
-              <>
-                {ROLE_LABELS[role]} <span className="text-xs text-grey-500">— {ROLE_HINTS[role]}</span>
-              </>
-            }
-            {...registration}
-          />
-        ))}
+        {ROLES.map((role) => {
+          const isKept = kept?.role === role;
+          return (
+            <Checkbox
+              key={role}
+              value={role}
+              label={
+                <>
+                  {ROLE_LABELS[role]} <span className="text-xs text-grey-500">— {ROLE_HINTS[role]}</span>
+                </>
+              }
+              {...registration}
+              aria-disabled={isKept || undefined}
+              title={isKept ? kept.reason : undefined}
+              onClick={isKept ? (e) => e.preventDefault() : undefined}
+              data-testid={`role-${role}`}
+            />
+          );
+        })}
       </div>
     </FieldSet>
   );

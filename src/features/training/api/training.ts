@@ -3,8 +3,8 @@
  * GET /api/training/people, GET/POST /api/training/requests, POST /api/training/requests/:id/close.
  */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { z } from "zod";
-import { trainingDto, trainingRequestDto, type GrantTrainingInput, type TrainingListQuery } from "@shared/schemas/training";
+import { pageOf } from "@shared/schemas/common";
+import { trainablePersonDto, trainingDto, trainingRequestDto, type GrantTrainingInput, type TrainingListQuery } from "@shared/schemas/training";
 import { api, parseResponse } from "@/lib/api-client";
 
 export const trainingKeys = {
@@ -14,8 +14,9 @@ export const trainingKeys = {
   people: () => [...trainingKeys.all, "people"] as const,
 };
 
-const page = z.object({ items: z.array(trainingDto), total: z.number() });
-const requestPage = z.object({ items: z.array(trainingRequestDto), total: z.number() });
+const page = pageOf(trainingDto);
+const requestPage = pageOf(trainingRequestDto);
+const peoplePage = pageOf(trainablePersonDto);
 
 export const useTrainingRecords = (q: Partial<TrainingListQuery>) =>
   useQuery({
@@ -32,7 +33,7 @@ export const useTrainingRequests = (status?: "open" | "granted" | "dismissed") =
 export const useTrainablePeople = (enabled: boolean) =>
   useQuery({
     queryKey: trainingKeys.people(),
-    queryFn: ({ signal }) => api.get<{ items: { id: number; name: string; email: string }[] }>("/training/people", { signal }),
+    queryFn: async ({ signal }) => parseResponse(peoplePage, await api.get<unknown>("/training/people", { signal }), "GET /api/training/people"),
     enabled,
   });
 

@@ -1,7 +1,8 @@
 /**
  * The manager's training page: open requests from members, records expiring within 30 days,
  * all records with revoke (a dialog asks the reason, kept on the record and in the audit log), and the grant
- * form (which renews a live record). The route passes the instruments in.
+ * form (which renews a live record). Revoke and dismiss are offered where the record's abilities
+ * (the training policy's answer) allow them. The route passes the instruments in.
  */
 import { useState } from "react";
 import type { InstrumentDto } from "@shared/schemas/instruments";
@@ -51,7 +52,7 @@ function RecordsTable({ items, onRevoke }: { items: TrainingDto[]; onRevoke?: (r
             <Td className="text-xs">{r.notes || "—"}</Td>
             {onRevoke && (
               <Td className="text-right">
-                {r.state !== "none" && (
+                {r.abilities.revoke && (
                   <Button size="sm" variant="danger" onClick={() => onRevoke(r)}>
                     Revoke…
                   </Button>
@@ -195,9 +196,11 @@ export function TrainingPage({ instruments }: { instruments: InstrumentDto[] }) 
                   <strong>{r.userName}</strong> asks for training on <strong>{r.instrumentName}</strong>
                   {r.note && <> — “{r.note}”</>} <span className="text-xs text-grey-600">({formatDateTime(r.createdAt, zone)})</span>
                 </span>
-                <Button size="sm" onClick={() => close.mutate({ id: r.id, outcome: "dismissed" })}>
-                  Dismiss
-                </Button>
+                {r.abilities.close && (
+                  <Button size="sm" onClick={() => close.mutate({ id: r.id, outcome: "dismissed" })}>
+                    Dismiss
+                  </Button>
+                )}
               </li>
             ))}
           </ul>

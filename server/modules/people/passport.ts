@@ -1,15 +1,18 @@
-/** passport-local over our user service; the session keeps only the user id. */
+/** passport-local over the people's credentials; the session keeps only the user id. */
 import { Passport } from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
-import type { Services } from "../context";
+import type { DataSource } from "typeorm";
+import { verifyCredentials } from "./password.commands";
+import { signedIn } from "./user.queries";
 
-export function createPassport(services: Services): InstanceType<typeof Passport> {
+export type PassportInstance = InstanceType<typeof Passport>;
+
+export function createPassport(ds: DataSource): PassportInstance {
   const passport = new Passport();
   passport.use(
     new LocalStrategy({ usernameField: "email", passwordField: "password", session: true }, (email, password, done) => {
-      services.users
-        .verifyCredentials(email, password)
-        .then((u) => done(null, (u && services.users.signedIn(u.id)) || false))
+      verifyCredentials(ds, email, password)
+        .then((u) => done(null, (u && signedIn(ds, u.id)) || false))
         .catch(done);
     }),
   );
@@ -17,7 +20,7 @@ export function createPassport(services: Services): InstanceType<typeof Passport
   passport.deserializeUser((id: number, done) => {
     let user: Express.User | null;
     try {
-      user = services.users.signedIn(id);
+      user = signedIn(ds, id);
     } catch (e) {
       return done(e);
     }

@@ -4,8 +4,8 @@
  */
 import session from "express-session";
 import type { DataSource } from "typeorm";
-import { SessionRow } from "../entities";
-import { prepared } from "../db/prepared";
+import { SessionRow } from "../../entities";
+import { prepared } from "../../db/prepared";
 
 const TOUCH_EVERY_MS = 5 * 60 * 1000;
 

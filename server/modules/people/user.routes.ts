@@ -1,0 +1,60 @@
+/**
+ * People administration (administrators): list, add, change roles, department, group and
+ * organisation, deactivate and reactivate. The user policy decides on each person; every row
+ * carries the administrator's abilities on it.
+ */
+import { z } from "zod";
+import { idParam, pageOf } from "@shared/schemas/common";
+import { createUserInput, organisationList, updateUserInput, userAdminDto, userListQuery } from "@shared/schemas/users";
+import { route } from "../../http/route-table";
+import { createUser, updateUser } from "./user.commands";
+import { knownOrganisations, listUsers } from "./user.queries";
+import { presentUserAdmin } from "./user.presenter";
+
+const ADMINS = ["admin"] as const;
+const one = z.object({ user: userAdminDto });
+
+export const userRoutes = [
+  route({
+    method: "get",
+    path: "/users",
+    summary: "People with an account, by name, filtered by name, e-mail or organisation",
+    access: ADMINS,
+    query: userListQuery,
+    output: pageOf(userAdminDto),
+    handler: async ({ ctx, actor, query }) => {
+      const page = await listUsers(ctx.ds, query);
+      return { items: page.items.map((u) => presentUserAdmin(u, actor)), total: page.total };
+    },
+  }),
+  route({
+    method: "get",
+    path: "/users/organisations",
+    summary: "External customers' organisations already known (from their accounts and people), offered when typing a person's",
+    access: ADMINS,
+    output: organisationList,
+    handler: async ({ ctx }) => ({ items: await knownOrganisations(ctx.ds) }),
+  }),
+  route({
+    method: "post",
+    path: "/users",
+    summary: "Add a person; without a first password they are mailed a link to choose one",
+    access: ADMINS,
+    body: createUserInput,
+    status: 201,
+    output: one,
+    handler: async ({ ctx, actor, body }) => ({ user: presentUserAdmin(await createUser(ctx, actor, body), actor) }),
+  }),
+  route({
+    method: "patch",
+    path: "/users/:id",
+    summary: "Change a person's name, roles, department, group or organisation, or whether they may sign in",
+    description: "Nobody deactivates their own account or removes their own Administrator role (422). A deactivation ends the person's sessions.",
+    access: ADMINS,
+    policy: "user.edit",
+    params: idParam,
+    body: updateUserInput,
+    output: one,
+    handler: async ({ ctx, actor, params, body }) => ({ user: presentUserAdmin(await updateUser(ctx, actor, params.id, body), actor) }),
+  }),
+];
