@@ -11,7 +11,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { DataSource } from "typeorm";
 import { DateTime } from "luxon";
-import { createBillingService, mailDueStatements } from "../server/services/billing.service";
+import { createBillingService, mailDueStatements } from "../server/modules/recharge/billing-run.commands";
 
 export interface RechargeBenchOptions {
   period?: string;

@@ -9,9 +9,9 @@ import { createBookingService } from "./services/booking.service";
 import { createInstrumentService } from "./services/instrument.service";
 import { createSetupService } from "./services/setup.service";
 import { createTrainingService } from "./services/training.service";
-import { createAccountsService } from "./services/accounts.service";
-import { createBillingService } from "./services/billing.service";
-import { createRatesService } from "./services/rates.service";
+import { createAccountsService } from "./modules/recharge/account.commands";
+import { createBillingService } from "./modules/recharge/billing-run.commands";
+import { createRatesService } from "./modules/recharge/rate.commands";
 
 export interface AppDeps {
   ds: DataSource;

@@ -10,8 +10,8 @@ import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../core/outbox";
 import { runStockAlerts } from "../modules/safety";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
-import { processDueInvoices } from "../services/invoicing.service";
-import { mailDueStatements } from "../services/billing.service";
+import { processDueInvoices } from "../modules/recharge/invoice.commands";
+import { mailDueStatements } from "../modules/recharge/billing-run.commands";
 
 export interface JobDeps {
   ds: DataSource;

@@ -7,15 +7,15 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
-import { createAccountsRouter } from "./accounts.router";
+import { createAccountsRouter } from "../modules/recharge/account.routes";
 import { createBookingsRouter } from "./bookings.router";
 import { createCalendarRouter } from "./calendar.router";
 import { createReportsRouter } from "./reports.router";
 import { createSetupsRouter } from "./setups.router";
 import { createTrainingRouter } from "./training.router";
-import { createBillingRouter } from "./billing.router";
-import { createRatesRouter } from "./rates.router";
-import { createWebhooksRouter } from "./webhooks.router";
+import { createBillingRouter } from "../modules/recharge/billing.routes";
+import { createRatesRouter } from "../modules/recharge/rate.routes";
+import { createWebhooksRouter } from "../modules/recharge/webhook.routes";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {

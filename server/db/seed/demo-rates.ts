@@ -11,7 +11,7 @@ import type { CustomerClass } from "../../entities/account.entity";
 import type { InstrumentKind } from "../../entities/instrument.entity";
 import { Account, Booking, BookingInstrument, Instrument, Rate, Setting, User } from "../../entities";
 import { UNTOUCHED_BOOKING } from "../../entities/booking.entity";
-import { BILLING_POLICY_KEY } from "../../services/billing-policy";
+import { BILLING_POLICY_KEY } from "../../modules/recharge/billing-settings";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
 
 interface DemoRate {

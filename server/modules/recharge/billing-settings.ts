@@ -4,7 +4,7 @@
  */
 import type { EntityManager } from "typeorm";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
-import { Setting } from "../entities";
+import { Setting } from "../../entities";
 
 export const BILLING_POLICY_KEY = "billing_policy";
 

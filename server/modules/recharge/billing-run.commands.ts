@@ -21,17 +21,17 @@ import type {
   SpendReportDto,
   StatementListItemDto,
 } from "@shared/schemas/recharge";
-import type { AuthUser } from "../middleware/auth";
-import { hasRole } from "../middleware/auth";
-import { Account, AccountMember, BillingRun, ChargeLine, ProcessedEvent, Statement, User } from "../entities";
-import { Conflict, NotFound, RuleBroken } from "../errors";
-import { serialTransaction } from "../db/serial";
-import { audit } from "../core/audit";
-import { enqueueMail } from "../core/outbox";
-import { type ComputedMonth, computeMonth, streamMonth } from "./billing-compute";
-import { presentComputedStatement, presentStatement } from "../presenters/recharge.presenter";
-import { createRunWriter } from "./billing-writer";
-import { processDueInvoices } from "./invoicing.service";
+import type { AuthUser } from "../../middleware/auth";
+import { hasRole } from "../../middleware/auth";
+import { Account, AccountMember, BillingRun, ChargeLine, ProcessedEvent, Statement, User } from "../../entities";
+import { Conflict, NotFound, RuleBroken } from "../../errors";
+import { serialTransaction } from "../../db/serial";
+import { audit } from "../../core/audit";
+import { enqueueMail } from "../../core/outbox";
+import { type ComputedMonth, computeMonth, streamMonth } from "./month-stream";
+import { presentComputedStatement, presentStatement } from "./recharge.presenter";
+import { createRunWriter } from "./statement-lines.commands";
+import { processDueInvoices } from "./invoice.commands";
 import { renderStatementPdf } from "./statement-pdf";
 
 /** Used where no facility name is passed in (the bench, older callers); FACILITY_NAME sets it. */

@@ -18,13 +18,13 @@ import {
   type RateReviewRowDto,
   type RateUpdateInput,
 } from "@shared/schemas/recharge";
-import { Instrument, Rate } from "../entities";
-import { Conflict, NotFound, RuleBroken } from "../errors";
-import { serialTransaction } from "../db/serial";
-import type { AuthUser } from "../middleware/auth";
-import { audit } from "../core/audit";
-import { toRateEntry } from "./billing-compute";
-import { readBillingPolicy, writeBillingPolicy } from "./billing-policy";
+import { Instrument, Rate } from "../../entities";
+import { Conflict, NotFound, RuleBroken } from "../../errors";
+import { serialTransaction } from "../../db/serial";
+import type { AuthUser } from "../../middleware/auth";
+import { audit } from "../../core/audit";
+import { toRateEntry } from "./month-stream";
+import { readBillingPolicy, writeBillingPolicy } from "./billing-settings";
 
 export interface RatesDeps {
   ds: DataSource;

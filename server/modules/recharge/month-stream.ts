@@ -30,9 +30,9 @@ import { sumCents } from "@shared/domain/money";
 import type { BookableHours } from "@shared/domain/booking-rules";
 import { monthRange } from "@shared/domain/utilisation";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
-import type { ChargeKind } from "../entities/charge-line.entity";
-import { Account, Rate } from "../entities";
-import { readBillingPolicy } from "./billing-policy";
+import type { ChargeKind } from "../../entities/charge-line.entity";
+import { Account, Rate } from "../../entities";
+import { readBillingPolicy } from "./billing-settings";
 
 export interface ComputedLine {
   kind: ChargeKind;

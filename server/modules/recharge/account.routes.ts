@@ -19,9 +19,9 @@ import {
   type AccountUpdateInput,
   type AdjustmentInput,
 } from "@shared/schemas/recharge";
-import type { Ctx } from "../context";
-import { currentUser, requireAuth, requireRole } from "../middleware/auth";
-import { body, params, query, validate } from "../middleware/validate";
+import type { Ctx } from "../../context";
+import { currentUser, requireAuth, requireRole } from "../../middleware/auth";
+import { body, params, query, validate } from "../../middleware/validate";
 
 export function createAccountsRouter(ctx: Ctx): Router {
   const r = Router();

@@ -5,7 +5,7 @@
  * better-sqlite3 has one connection, and the TypeORM transaction that owns the run has begun on it.
  */
 import type { EntityManager } from "typeorm";
-import type { ComputedLine } from "./billing-compute";
+import type { ComputedLine } from "./month-stream";
 
 interface RawStatement {
   run(...params: unknown[]): { lastInsertRowid: number | bigint };

@@ -4,8 +4,8 @@
  */
 import { Router } from "express";
 import Stripe from "stripe";
-import type { Ctx } from "../context";
-import { BadRequest } from "../errors";
+import type { Ctx } from "../../context";
+import { BadRequest } from "../../errors";
 
 export function createWebhooksRouter(ctx: Ctx): Router {
   const r = Router();

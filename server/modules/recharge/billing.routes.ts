@@ -5,9 +5,9 @@
 import { Router } from "express";
 import { idParam, pageQuery } from "@shared/schemas/common";
 import { billingPolicyInput, previewQuery, reportQuery, runInput, voidInput, type BillingPolicyDto, type ReportQuery } from "@shared/schemas/recharge";
-import type { Ctx } from "../context";
-import { currentUser, requireAuth, requireRole } from "../middleware/auth";
-import { body, params, query, validate } from "../middleware/validate";
+import type { Ctx } from "../../context";
+import { currentUser, requireAuth, requireRole } from "../../middleware/auth";
+import { body, params, query, validate } from "../../middleware/validate";
 
 const pagedReport = pageQuery.extend(reportQuery.shape);
 

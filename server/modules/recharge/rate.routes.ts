@@ -11,9 +11,9 @@ import {
   type RateReviewInput,
   type RateUpdateInput,
 } from "@shared/schemas/recharge";
-import type { Ctx } from "../context";
-import { currentUser, requireAuth, requireRole } from "../middleware/auth";
-import { body, params, validate } from "../middleware/validate";
+import type { Ctx } from "../../context";
+import { currentUser, requireAuth, requireRole } from "../../middleware/auth";
+import { body, params, validate } from "../../middleware/validate";
 
 export function createRatesRouter(ctx: Ctx): Router {
   const r = Router();

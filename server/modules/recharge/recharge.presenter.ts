@@ -3,8 +3,8 @@
  * contract the client parses every answer with.
  */
 import type { ChargeLineDto, StatementDto } from "@shared/schemas/recharge";
-import type { Account, ChargeLine, Statement } from "../entities";
-import type { ComputedStatement } from "../services/billing-compute";
+import type { Account, ChargeLine, Statement } from "../../entities";
+import type { ComputedStatement } from "./month-stream";
 
 type LineFields = Pick<ChargeLine, "kind" | "description" | "bookingId" | "instrumentId" | "usageId" | "userId" | "quantity" | "unit" | "unitPriceCents" | "amountCents" | "at">;
 

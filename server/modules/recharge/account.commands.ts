@@ -14,11 +14,11 @@ import type {
   AdjustmentInput,
 } from "@shared/schemas/recharge";
 import { In } from "typeorm";
-import { Account, AccountMember, BillingAdjustment, BillingRun, User } from "../entities";
-import { Conflict, NotFound, RuleBroken } from "../errors";
-import { serialTransaction } from "../db/serial";
-import { type AuthUser, hasRole } from "../middleware/auth";
-import { audit } from "../core/audit";
+import { Account, AccountMember, BillingAdjustment, BillingRun, User } from "../../entities";
+import { Conflict, NotFound, RuleBroken } from "../../errors";
+import { serialTransaction } from "../../db/serial";
+import { type AuthUser, hasRole } from "../../middleware/auth";
+import { audit } from "../../core/audit";
 
 export interface AccountsDeps {
   ds: DataSource;
