@@ -9,9 +9,6 @@ import { createBookingService } from "./services/booking.service";
 import { createInstrumentService } from "./services/instrument.service";
 import { createSetupService } from "./services/setup.service";
 import { createTrainingService } from "./services/training.service";
-import { createAccountsService } from "./modules/recharge/account.commands";
-import { createBillingService } from "./modules/recharge/billing-run.commands";
-import { createRatesService } from "./modules/recharge/rate.commands";
 
 export interface AppDeps {
   ds: DataSource;
@@ -41,9 +38,6 @@ export function createServices(deps: AppDeps) {
     instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
     setups: createSetupService({ ds: deps.ds, now }),
     training: createTrainingService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
-    accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
-    rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
-    billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments, facilityName: deps.config.FACILITY_NAME }),
   };
 }
 

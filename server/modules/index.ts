@@ -6,5 +6,6 @@ import type { RouteTable } from "../http/route-table";
 import { stockroomTable } from "./stockroom";
 import { safetyTable } from "./safety";
 import { labelsTable } from "./labels";
+import { rechargeTable } from "./recharge";
 
-export const ROUTE_TABLES: RouteTable[] = [stockroomTable, safetyTable, labelsTable];
+export const ROUTE_TABLES: RouteTable[] = [stockroomTable, safetyTable, labelsTable, rechargeTable];

@@ -7,15 +7,11 @@ import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
 import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
-import { createAccountsRouter } from "../modules/recharge/account.routes";
 import { createBookingsRouter } from "./bookings.router";
 import { createCalendarRouter } from "./calendar.router";
 import { createReportsRouter } from "./reports.router";
 import { createSetupsRouter } from "./setups.router";
 import { createTrainingRouter } from "./training.router";
-import { createBillingRouter } from "../modules/recharge/billing.routes";
-import { createRatesRouter } from "../modules/recharge/rate.routes";
-import { createWebhooksRouter } from "../modules/recharge/webhook.routes";
 import { createAuditRouter, createDashboardRouter, createDevRouter, createFacilityRouter, createHealthRouter } from "./system.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
@@ -31,13 +27,9 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/setups", router: createSetupsRouter(ctx) },
     { path: "/training", router: createTrainingRouter(ctx) },
     { path: "/calendar", router: createCalendarRouter(ctx) },
-    { path: "/accounts", router: createAccountsRouter(ctx) },
     { path: "/reports", router: createReportsRouter(ctx) },
     { path: "/audit", router: createAuditRouter(ctx) },
     { path: "/dev", router: createDevRouter(ctx) },
-    { path: "/rates", router: createRatesRouter(ctx) },
-    { path: "/billing", router: createBillingRouter(ctx) },
-    { path: "/webhooks", router: createWebhooksRouter(ctx) },
   ];
 }
 

@@ -47,6 +47,8 @@ export interface DemoPerson {
   roles: Role[];
   department: DepartmentCode | null;
   group: GroupKey | null;
+  /** An external customer's organisation (as on its account); left out: the host institution's own people. */
+  organisation?: string;
   /** Who this person is in the story; not stored, it explains the choice of data. */
   story: string;
 }
@@ -113,6 +115,7 @@ export const DEMO_PEOPLE: readonly DemoPerson[] = [
     roles: ["member"],
     department: null,
     group: null,
+    organisation: "Tidewater Metals Recovery Ltd",
     story: "Process chemist at Tidewater Metals Recovery Ltd, the external customer who pays by card.",
   },
   {

@@ -11,7 +11,7 @@ import type { CustomerClass } from "../../entities/account.entity";
 import type { InstrumentKind } from "../../entities/instrument.entity";
 import { Account, Booking, BookingInstrument, Instrument, Rate, Setting, User } from "../../entities";
 import { UNTOUCHED_BOOKING } from "../../entities/booking.entity";
-import { BILLING_POLICY_KEY } from "../../modules/recharge/billing-settings";
+import { BILLING_SETTINGS_KEY } from "../../modules/recharge/billing-settings";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
 
 interface DemoRate {
@@ -73,7 +73,7 @@ export async function seedDemoRates(em: EntityManager, opts: { now: Date; tz?: s
       });
     }
   }
-  await em.save(Setting, { key: BILLING_POLICY_KEY, value: JSON.stringify(DEMO_BILLING_POLICY) });
+  await em.save(Setting, { key: BILLING_SETTINGS_KEY, value: JSON.stringify(DEMO_BILLING_POLICY) });
   await seedBillingHistory(em, local, nowIso);
 }
 

@@ -91,6 +91,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
         active: true,
         departmentId: p.department ? lookup(departments, p.department) : null,
         groupId: null, // set below, once the groups exist (a group needs its lead first)
+        organisation: p.organisation ?? null,
         calendarToken: newToken(24),
         createdAt: isoAfter(now, -420),
         updatedAt: isoAfter(now, -420),

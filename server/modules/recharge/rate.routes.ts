@@ -1,50 +1,71 @@
-/** The rate schedule (published to everyone signed in; changed by the manager) and the rate review. */
-import { Router } from "express";
+/** The rate schedule (published to everyone signed in; changed by the manager) and the yearly rate review. */
 import { idParam } from "@shared/schemas/common";
-import {
-  rateApplyInput,
-  rateInput,
-  rateReviewInput,
-  rateUpdateInput,
-  type RateApplyInput,
-  type RateInput,
-  type RateReviewInput,
-  type RateUpdateInput,
-} from "@shared/schemas/recharge";
-import type { Ctx } from "../../context";
-import { currentUser, requireAuth, requireRole } from "../../middleware/auth";
-import { body, params, validate } from "../../middleware/validate";
+import { ratePage, rateApplyInput, rateInput, rateResponse, rateReviewInput, rateReviewResponse, rateUpdateInput } from "@shared/schemas/recharge";
+import { route } from "../../http/route-table";
+import { listRates, reviewRates } from "./rate.queries";
+import { applyRates, createRate, removeRate, updateRate } from "./rate.commands";
 
-export function createRatesRouter(ctx: Ctx): Router {
-  const r = Router();
-  const rates = ctx.services.rates;
-
-  r.get("/", requireAuth, async (_req, res) => {
-    const items = await rates.list();
-    res.json({ items, total: items.length });
-  });
-
-  r.post("/", requireRole("manager"), validate({ body: rateInput }), async (req, res) => {
-    res.status(201).json({ rate: await rates.create(currentUser(req), body<RateInput>(req)) });
-  });
-
-  r.post("/review", requireRole("manager"), validate({ body: rateReviewInput }), async (req, res) => {
-    res.json({ items: await rates.review(body<RateReviewInput>(req)) });
-  });
-
-  r.post("/apply", requireRole("manager"), validate({ body: rateApplyInput }), async (req, res) => {
-    const items = await rates.apply(currentUser(req), body<RateApplyInput>(req));
-    res.status(201).json({ items, total: items.length });
-  });
-
-  r.patch("/:id", requireRole("manager"), validate({ params: idParam, body: rateUpdateInput }), async (req, res) => {
-    res.json({ rate: await rates.update(currentUser(req), params<{ id: number }>(req).id, body<RateUpdateInput>(req)) });
-  });
-
-  r.delete("/:id", requireRole("manager"), validate({ params: idParam }), async (req, res) => {
-    await rates.remove(currentUser(req), params<{ id: number }>(req).id);
-    res.status(204).end();
-  });
-
-  return r;
-}
+export const rateRoutes = [
+  route({
+    method: "get",
+    path: "/rates",
+    summary: "Every rate, past, present and future, with whether it is in effect today",
+    access: "signed_in",
+    output: ratePage,
+    handler: async ({ ctx }) => {
+      const items = await listRates(ctx);
+      return { items, total: items.length };
+    },
+  }),
+  route({
+    method: "post",
+    path: "/rates",
+    summary: "Add a rate for an instrument (or a kind of instrument) and customer class from a date",
+    description: "422 `rate_overlap` when the instrument (or kind) and class would have two rates at once.",
+    access: ["manager"],
+    body: rateInput,
+    status: 201,
+    output: rateResponse,
+    handler: async ({ ctx, actor, body }) => ({ rate: await createRate(ctx, actor, body) }),
+  }),
+  route({
+    method: "post",
+    path: "/rates/review",
+    summary: "The rate review: break-even and class rates per instrument beside the rates in effect (changes nothing)",
+    access: ["manager"],
+    body: rateReviewInput,
+    output: rateReviewResponse,
+    handler: async ({ ctx, body }) => ({ items: await reviewRates(ctx, body) }),
+  }),
+  route({
+    method: "post",
+    path: "/rates/apply",
+    summary: "Apply reviewed rates from a date (each instrument's running rate ends there)",
+    access: ["manager"],
+    body: rateApplyInput,
+    status: 201,
+    output: ratePage,
+    handler: async ({ ctx, actor, body }) => {
+      const items = await applyRates(ctx, actor, body);
+      return { items, total: items.length };
+    },
+  }),
+  route({
+    method: "patch",
+    path: "/rates/:id",
+    summary: "Change a rate (its amount, dates, minimum, increment, after-hours factor or note)",
+    access: ["manager"],
+    params: idParam,
+    body: rateUpdateInput,
+    output: rateResponse,
+    handler: async ({ ctx, actor, params, body }) => ({ rate: await updateRate(ctx, actor, params.id, body) }),
+  }),
+  route({
+    method: "delete",
+    path: "/rates/:id",
+    summary: "Delete a rate no final statement was priced with (409 `rate_in_use` otherwise)",
+    access: ["manager"],
+    params: idParam,
+    handler: ({ ctx, actor, params }) => removeRate(ctx, actor, params.id),
+  }),
+];

@@ -1,9 +1,20 @@
 /**
  * Recharge entities and computed statements → the DTOs of shared/schemas/recharge, the one
- * contract the client parses every answer with.
+ * contract the client parses every answer with. Records carry `abilities` from their policy.
  */
-import type { ChargeLineDto, StatementDto } from "@shared/schemas/recharge";
-import type { Account, ChargeLine, Statement } from "../../entities";
+import type {
+  AccountAbilities,
+  AccountDto,
+  AccountMemberDto,
+  BillingRunAbilities,
+  BillingRunDto,
+  BillingRunSummaryDto,
+  ChargeLineDto,
+  RateDto,
+  StatementAbilities,
+  StatementDto,
+} from "@shared/schemas/recharge";
+import type { Account, BillingRun, ChargeLine, Rate, Statement } from "../../entities";
 import type { ComputedStatement } from "./month-stream";
 
 type LineFields = Pick<ChargeLine, "kind" | "description" | "bookingId" | "instrumentId" | "usageId" | "userId" | "quantity" | "unit" | "unitPriceCents" | "amountCents" | "at">;
@@ -30,7 +41,7 @@ export function presentChargeLine(l: ChargeLine): ChargeLineDto {
 }
 
 /** A stored statement with its lines (in statement order: by date, then as priced). */
-export function presentStatement(st: Statement, account: Account, lines: ChargeLine[], warnings: string[] = []): StatementDto {
+export function presentStatement(st: Statement, account: Account, lines: ChargeLine[], abilities: StatementAbilities, warnings: string[] = []): StatementDto {
   return {
     id: st.id,
     accountId: account.id,
@@ -45,10 +56,11 @@ export function presentStatement(st: Statement, account: Account, lines: ChargeL
     invoiceNumber: st.invoiceNumber,
     invoiceUrl: st.invoiceUrl,
     paidAt: st.paidAt,
+    abilities,
   };
 }
 
-/** A preview's statement: computed, not stored, so it has no ids. */
+/** A preview's statement: computed, not stored, so it has no ids and nothing to act on. */
 export function presentComputedStatement(s: ComputedStatement, currency: string): StatementDto {
   return {
     accountId: s.account.id,
@@ -59,5 +71,88 @@ export function presentComputedStatement(s: ComputedStatement, currency: string)
     currency,
     warnings: s.warnings,
     lines: s.lines.map(lineFields),
+  };
+}
+
+export function presentRun(run: BillingRun, statements: StatementDto[], abilities: BillingRunAbilities): BillingRunDto {
+  return {
+    id: run.id,
+    period: run.period,
+    status: run.status,
+    currency: run.currency,
+    total: run.totalCents,
+    createdAt: run.createdAt,
+    voidedAt: run.voidedAt,
+    voidReason: run.voidReason,
+    statements,
+    abilities,
+  };
+}
+
+/** A run in the list: counts of its statements by invoice status instead of the statements. */
+export function presentRunSummary(run: BillingRun, byInvoiceStatus: { invoiceStatus: string; n: number }[], abilities: BillingRunAbilities): BillingRunSummaryDto {
+  return {
+    id: run.id,
+    period: run.period,
+    status: run.status,
+    currency: run.currency,
+    total: run.totalCents,
+    createdAt: run.createdAt,
+    voidedAt: run.voidedAt,
+    statementCount: byInvoiceStatus.reduce((n, x) => n + Number(x.n), 0),
+    invoices: Object.fromEntries(byInvoiceStatus.filter((x) => x.invoiceStatus !== "none").map((x) => [x.invoiceStatus, Number(x.n)])),
+    abilities,
+  };
+}
+
+export function presentAccount(
+  a: Account,
+  extra: { ownerName: string | null; chargeable: boolean; myMembership: { monthlyCapCents: number | null } | null; abilities: AccountAbilities },
+): AccountDto {
+  return {
+    id: a.id,
+    code: a.code,
+    name: a.name,
+    kind: a.kind,
+    customerClass: a.customerClass,
+    departmentId: a.departmentId,
+    ownerId: a.ownerId,
+    ownerName: extra.ownerName,
+    validFrom: a.validFrom,
+    validTo: a.validTo,
+    organisation: a.organisation,
+    billingEmail: a.billingEmail,
+    active: a.active,
+    chargeable: extra.chargeable,
+    ...(extra.myMembership ? { myMonthlyCapCents: extra.myMembership.monthlyCapCents } : {}),
+    abilities: extra.abilities,
+  };
+}
+
+export function presentMember(m: { userId: number | string; name: string; email: string; monthlyCapCents: number | string | null; exceptionReason: string | null }): AccountMemberDto {
+  return {
+    userId: Number(m.userId),
+    name: m.name,
+    email: m.email,
+    monthlyCapCents: m.monthlyCapCents == null ? null : Number(m.monthlyCapCents),
+    exceptionReason: m.exceptionReason ?? null,
+  };
+}
+
+export function presentRate(r: Rate, instrumentName: string | null, today: string): RateDto {
+  return {
+    id: r.id,
+    instrumentId: r.instrumentId,
+    instrumentName,
+    instrumentKind: r.instrumentKind,
+    customerClass: r.customerClass,
+    hourlyRateCents: r.hourlyRateCents,
+    effectiveFrom: r.effectiveFrom,
+    effectiveTo: r.effectiveTo,
+    minimumMinutes: r.minimumMinutes,
+    roundingIncrementMinutes: r.roundingIncrementMinutes,
+    afterHoursFactor: r.afterHoursFactor,
+    note: r.note,
+    inEffect: r.effectiveFrom <= today && (r.effectiveTo == null || today < r.effectiveTo),
   };
 }
