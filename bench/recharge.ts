@@ -11,7 +11,11 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { DataSource } from "typeorm";
 import { DateTime } from "luxon";
-import { finaliseRun, mailDueStatements, type RechargeDeps } from "../server/modules/recharge";
+// The run's own files, not the area's public entry: the entry also loads the route table (Express,
+// the payment SDK, every schema), which would add to the memory this bench measures.
+import { finaliseRun } from "../server/modules/recharge/billing-run.commands";
+import { mailDueStatements } from "../server/modules/recharge/statement.commands";
+import type { RechargeDeps } from "../server/modules/recharge/recharge-deps";
 
 export interface RechargeBenchOptions {
   period?: string;
