@@ -11,7 +11,11 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { DataSource } from "typeorm";
 import { DateTime } from "luxon";
-import { createBillingService, mailDueStatements } from "../server/services/billing.service";
+// The run's own files, not the area's public entry: the entry also loads the route table (Express,
+// the payment SDK, every schema), which would add to the memory this bench measures.
+import { finaliseRun } from "../server/modules/recharge/billing-run.commands";
+import { mailDueStatements } from "../server/modules/recharge/statement.commands";
+import type { RechargeDeps } from "../server/modules/recharge/recharge-deps";
 
 export interface RechargeBenchOptions {
   period?: string;
@@ -160,7 +164,7 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   const seedMs = performance.now() - t0;
   const now = () => DateTime.fromFormat(opts.period, "yyyy-MM", { zone: opts.tz }).plus({ months: 1, days: 2 }).toJSDate();
   // Statement PDFs go to the outbox after the run's commit (mail-statements job); timed apart.
-  const billing = createBillingService({ ds, tz: opts.tz, currency: "CAD", now, mailStatements: false });
+  const deps: RechargeDeps = { ds, now, config: { FACILITY_TZ: opts.tz, CURRENCY: "CAD", FACILITY_NAME: "Liquid Interfaces Core" } };
 
   global.gc?.();
   let peakRss = process.memoryUsage().rss;
@@ -172,7 +176,7 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   };
   const timer = setInterval(sample, 5);
   const start = performance.now();
-  const run = await billing.createRun({ id: 1, email: "bench@kestrelbay.example", name: "Bench", roles: ["manager"], groupId: null, leadOf: [], organisation: null }, opts.period);
+  const run = await finaliseRun(deps, { id: 1, email: "bench@kestrelbay.example", name: "Bench", roles: ["manager"], groupId: null, leadOf: [], organisation: null }, opts.period);
   const runMs = performance.now() - start;
   sample();
   const runPeakRss = peakRss;

@@ -7,9 +7,6 @@ import type { Mailer } from "./integrations/mailer";
 import { createBookingService } from "./services/booking.service";
 import { createInstrumentService } from "./services/instrument.service";
 import { createSetupService } from "./services/setup.service";
-import { createAccountsService } from "./services/accounts.service";
-import { createBillingService } from "./services/billing.service";
-import { createRatesService } from "./services/rates.service";
 import type { SignIn } from "./modules/people";
 
 export interface AppDeps {
@@ -40,9 +37,6 @@ export function createServices(deps: AppDeps) {
     bookings: createBookingService({ ds: deps.ds, now, config: deps.config }),
     instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
     setups: createSetupService({ ds: deps.ds, now }),
-    accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
-    rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
-    billing: createBillingService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, currency: deps.config.CURRENCY, now, payments: deps.payments, facilityName: deps.config.FACILITY_NAME }),
   };
 }
 

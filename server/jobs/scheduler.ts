@@ -10,8 +10,7 @@ import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../core/outbox";
 import { runStockAlerts } from "../modules/safety";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
-import { processDueInvoices } from "../services/invoicing.service";
-import { mailDueStatements } from "../services/billing.service";
+import { mailStatementsJob, sendInvoicesJob } from "../modules/recharge";
 
 export interface JobDeps {
   ds: DataSource;
@@ -43,18 +42,9 @@ export const jobs: Job[] = [
   { name: "booking-reminders", everyMs: 5 * 60_000, run: (d) => sendBookingReminders(d.ds, d.clock.now(), d.config) },
   { name: "no-shows", everyMs: 60_000, run: (d) => markNoShows(d.ds, d.clock.now(), d.config) },
   { name: "training-expiry-notices", everyMs: 60 * 60_000, run: (d) => sendTrainingExpiryNotices(d.ds, d.clock.now(), d.config) },
-  {
-    // Invoices the payment service did not take when a run was finalised (or voided), retried with backoff.
-    name: "send-invoices",
-    everyMs: 30_000,
-    run: (d) => processDueInvoices({ ds: d.ds, payments: d.payments, now: () => d.clock.now(), facilityName: d.config.FACILITY_NAME }),
-  },
-  {
-    // Statement PDFs of final runs not yet in the outbox (a large month, or a crash mid-way).
-    name: "mail-statements",
-    everyMs: 15_000,
-    run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20, tz: d.config.FACILITY_TZ, facility: d.config.FACILITY_NAME }),
-  },
+  // Recharge: invoices the payment service did not take yet, and statement PDFs not yet mailed.
+  sendInvoicesJob,
+  mailStatementsJob,
 ];
 
 export function startScheduler(deps: JobDeps, list: Job[] = jobs): { stop(): void } {

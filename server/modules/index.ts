@@ -8,6 +8,7 @@ import { safetyTable } from "./safety";
 import { labelsTable } from "./labels";
 import { systemTable } from "./system";
 import { peopleTable } from "./people";
+import { rechargeTable } from "./recharge";
 
 // People first: its session routes (GET /api/auth/me, the signed-in baseline) are matched before any other.
-export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, stockroomTable, safetyTable, labelsTable];
+export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, stockroomTable, safetyTable, labelsTable, rechargeTable];

@@ -5,14 +5,10 @@
 import type { Router } from "express";
 import type { Ctx } from "../context";
 import { createInstrumentsRouter } from "./instruments.router";
-import { createAccountsRouter } from "./accounts.router";
 import { createBookingsRouter } from "./bookings.router";
 import { createCalendarRouter } from "./calendar.router";
 import { createReportsRouter } from "./reports.router";
 import { createSetupsRouter } from "./setups.router";
-import { createBillingRouter } from "./billing.router";
-import { createRatesRouter } from "./rates.router";
-import { createWebhooksRouter } from "./webhooks.router";
 
 export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
   return [
@@ -20,11 +16,7 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/bookings", router: createBookingsRouter(ctx) },
     { path: "/setups", router: createSetupsRouter(ctx) },
     { path: "/calendar", router: createCalendarRouter(ctx) },
-    { path: "/accounts", router: createAccountsRouter(ctx) },
     { path: "/reports", router: createReportsRouter(ctx) },
-    { path: "/rates", router: createRatesRouter(ctx) },
-    { path: "/billing", router: createBillingRouter(ctx) },
-    { path: "/webhooks", router: createWebhooksRouter(ctx) },
   ];
 }
 

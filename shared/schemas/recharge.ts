@@ -100,6 +100,34 @@ export const accountListQuery = pageQuery.extend({ all: z.enum(["true", "false"]
 
 export const accountKind = z.enum(["internal", "external"]);
 
+export const accountAbilities = z.object({
+  view: z.boolean(),
+  /** Change who may charge it and their caps (its group lead, the manager). */
+  manageMembers: z.boolean(),
+  /** Add someone now (manageMembers, and the account open today). */
+  addMember: z.boolean(),
+  /** Let in someone of another organisation, saying why (the manager). */
+  makeException: z.boolean(),
+  edit: z.boolean(),
+  adjust: z.boolean(),
+  charge: z.boolean(),
+});
+export type AccountAbilities = z.infer<typeof accountAbilities>;
+
+/**
+ * The codes a refused new member is answered with (422) when they are not of the account's
+ * organisation; the manager may then add them as an exception, saying why.
+ */
+export const ORGANISATION_MISMATCH_CODES = ["external_person_internal_account", "internal_person_external_account", "other_organisation"] as const;
+
+/** Why the manager lets someone of another organisation charge an account: a few words at least. */
+export const exceptionReason = z
+  .string()
+  .trim()
+  .min(10, "Say why, in a few words")
+  .max(500)
+  .refine((v) => v.split(/\s+/).filter(Boolean).length >= 3, "Say why, in a few words");
+
 export const accountDto = z.object({
   id: z.number().int(),
   code: z.string(),
@@ -118,11 +146,12 @@ export const accountDto = z.object({
   chargeable: z.boolean(),
   /** The caller's monthly cap on this account, when the caller may charge it. */
   myMonthlyCapCents: amount.nullable().optional(),
-  /** The caller owns it (group lead) or manages all accounts: may change who charges it. */
-  canManageMembers: z.boolean(),
+  /** What the caller may do with this account, as the account policy decides (the client shows buttons from these). */
+  abilities: accountAbilities,
 });
 export type AccountDto = z.infer<typeof accountDto>;
 export const accountPage = pageOf(accountDto);
+export const accountResponse = z.object({ account: accountDto });
 
 export const accountCreateInput = z.object({
   code: z.string().trim().min(2).max(40),
@@ -144,6 +173,8 @@ export type AccountUpdateInput = z.infer<typeof accountUpdateInput>;
 export const accountMemberInput = z.object({
   email: z.string().trim().min(3).max(254),
   monthlyCapCents: cents("the monthly cap").min(0).nullable().optional(),
+  /** The manager's stated exception for a person of another organisation (only the manager may send it). */
+  exceptionReason: exceptionReason.optional(),
 });
 export type AccountMemberInput = z.infer<typeof accountMemberInput>;
 
@@ -157,9 +188,12 @@ export const accountMemberDto = z.object({
   name: z.string(),
   email: z.string(),
   monthlyCapCents: amount.nullable(),
+  /** Why the manager let this person charge an account of another organisation; null: no exception. */
+  exceptionReason: z.string().nullable(),
 });
 export type AccountMemberDto = z.infer<typeof accountMemberDto>;
 export const accountMemberPage = pageOf(accountMemberDto);
+export const accountMemberResponse = z.object({ member: accountMemberDto });
 
 export const adjustmentInput = z.object({
   amountCents: cents("the amount").refine((v) => v !== 0, "An adjustment of zero changes nothing"),
@@ -178,6 +212,8 @@ export const adjustmentDto = z.object({
   billedRunId: z.number().int().nullable(),
 });
 export type AdjustmentDto = z.infer<typeof adjustmentDto>;
+export const adjustmentPage = pageOf(adjustmentDto);
+export const adjustmentResponse = z.object({ adjustment: adjustmentDto });
 
 // ---- billing runs and statements ----------------------------------------------------------------
 
@@ -209,6 +245,14 @@ export const chargeLineDto = z.object({
 });
 export type ChargeLineDto = z.infer<typeof chargeLineDto>;
 
+export const statementAbilities = z.object({
+  /** See it in the list and download its PDF. */
+  download: z.boolean(),
+  /** Pay its invoice: an external account's open invoice on a final run. */
+  pay: z.boolean(),
+});
+export type StatementAbilities = z.infer<typeof statementAbilities>;
+
 export const statementDto = z.object({
   /** Absent on a preview's statements, which are not stored. */
   id: z.number().int().optional(),
@@ -225,8 +269,18 @@ export const statementDto = z.object({
   invoiceNumber: z.string().nullable().optional(),
   invoiceUrl: z.string().nullable().optional(),
   paidAt: z.string().nullable().optional(),
+  /** What the caller may do with it; absent on a preview's statements, which are not stored. */
+  abilities: statementAbilities.optional(),
 });
 export type StatementDto = z.infer<typeof statementDto>;
+
+export const billingRunAbilities = z.object({
+  /** Void it (a final run none of whose invoices has been paid). */
+  void: z.boolean(),
+  /** Export its finance journal. */
+  journal: z.boolean(),
+});
+export type BillingRunAbilities = z.infer<typeof billingRunAbilities>;
 
 export const billingRunDto = z.object({
   id: z.number().int(),
@@ -238,6 +292,7 @@ export const billingRunDto = z.object({
   voidedAt: z.string().nullable(),
   voidReason: z.string().nullable(),
   statements: z.array(statementDto),
+  abilities: billingRunAbilities,
 });
 export type BillingRunDto = z.infer<typeof billingRunDto>;
 export const billingRunResponse = z.object({ run: billingRunDto });
@@ -270,11 +325,15 @@ export const statementListItemDto = statementDto.omit({ lines: true }).extend({
   runId: z.number().int(),
   period: z.string(),
   runStatus,
+  abilities: statementAbilities,
 });
 export type StatementListItemDto = z.infer<typeof statementListItemDto>;
 export const statementPage = pageOf(statementListItemDto);
 
 export const invoiceRetryResult = z.object({ done: z.number().int(), failed: z.number().int() });
+
+/** The answer to a payment-service event: received, and whether its id had been handled before. */
+export const webhookReceipt = z.object({ received: z.boolean(), duplicate: z.boolean() });
 
 // ---- rate review ------------------------------------------------------------------------------
 

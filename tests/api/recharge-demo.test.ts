@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DateTime } from "luxon";
 import { seedDemo } from "../../server/db/seed/demo";
+import { DEMO_BILLING_POLICY } from "../../server/db/seed/demo-rates";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import type { BillingRunDto } from "@shared/schemas/recharge";
@@ -31,6 +32,12 @@ describe("the demo's recharge data", () => {
     for (const kind of ["potentiostat", "interface_cell", "support"]) {
       for (const cls of ["internal", "external_academic", "commercial"]) expect(pairs.has(`${kind}|${cls}`), `${kind} ${cls}`).toBe(true);
     }
+  });
+
+  it("prices with the billing settings the demo wrote (the seed keeps the settings' key itself)", async () => {
+    const r = await manager.get("/api/billing/policy");
+    expect(r.status).toBe(200);
+    expect(r.body.policy).toEqual(DEMO_BILLING_POLICY);
   });
 
   it("bills last month with totals that reconcile to the cent", async () => {

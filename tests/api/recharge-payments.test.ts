@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import Stripe from "stripe";
 import { startFakePayments, type FakePayments } from "../../fakes/payments/server";
 import { createPaymentsClient } from "../../server/integrations/payments";
-import { processDueInvoices } from "../../server/services/invoicing.service";
+import { processDueInvoices } from "../../server/modules/recharge/invoice.commands";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { readPdf } from "../support/pdf-text";

@@ -8,7 +8,7 @@ import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { makeAccount, makeBooking, makeContainer, makeInstrument, makeRate, makeUsage } from "../support/billing-factories";
-import { computeMonth } from "../../server/services/billing-compute";
+import { computeMonth } from "../../server/modules/recharge/month-stream";
 import type { Account } from "../../server/entities";
 import type { BillingRunDto, StatementDto } from "@shared/schemas/recharge";
 

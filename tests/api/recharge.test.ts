@@ -15,7 +15,7 @@ import { makeAccount, makeBooking, makeContainer, makeInstrument, makeRate, make
 import type { Account, Instrument, User } from "../../server/entities";
 import type { BillingRunDto, StatementDto } from "@shared/schemas/recharge";
 import { jobs, type JobDeps } from "../../server/jobs/scheduler";
-import { ROUNDING_RULE } from "../../server/services/statement-pdf";
+import { ROUNDING_RULE } from "../../server/modules/recharge/statement-pdf";
 import { readPdf } from "../support/pdf-text";
 
 let t: TestApp;

@@ -1,7 +1,9 @@
 /**
  * The manager bills last month in the browser: finalises the run, downloads the finance journal
  * (whose amounts add up to the internal statements), sees Tidewater's invoice open, pays it on
- * the fake payment service's hosted page, and sees the statement turn to paid.
+ * the fake payment service's hosted page, and sees the statement turn to paid. On the accounts
+ * tab, a group lead cannot put the external customer on an internal grant; the manager can, by
+ * saying why, and the member list shows the exception.
  */
 import fs from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -90,6 +92,38 @@ describe("a month of recharge billing in the browser", () => {
       expect(await page.locator('[data-testid="nav-recharge"]').count()).toBe(0);
       await page.click('[data-testid="nav-charges"]');
       await expect.poll(() => page.getByRole("table", { name: "My charges" }).getByRole("row", { name: new RegExp(period) }).count(), { timeout: 15_000 }).toBeGreaterThan(0);
+    });
+  });
+  it("refuses the group lead an external customer on an internal grant, and lets the manager add them as a stated exception", async () => {
+    const addBuyer = async (page: Page) => {
+      await page.getByRole("row", { name: /CHEM-4410-SIG/ }).getByRole("button", { name: "Manage" }).click();
+      await page.getByLabel("Add a person (e-mail)").fill("buyer@tidewater.example");
+      await page.getByRole("button", { name: "Allow to charge" }).click();
+      await expect.poll(() => page.getByRole("alert").filter({ hasText: "Tidewater" }).count(), { timeout: 15_000 }).toBe(1);
+    };
+    const as = async (email: string, look: (page: Page) => Promise<void>) => {
+      const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+      const page = await context.newPage();
+      try {
+        await signIn(page, server.url, email);
+        await page.click('[data-testid="nav-recharge"]');
+        await page.click('[data-testid="recharge-tab-accounts"]');
+        await look(page);
+      } finally {
+        await context.close();
+      }
+    };
+    await as("lead@kestrelbay.example", async (page) => {
+      await addBuyer(page);
+      // The exception is the manager's to make: the group lead is not offered it.
+      expect(await page.getByLabel("Exception: why").count()).toBe(0);
+    });
+    await as("manager@kestrelbay.example", async (page) => {
+      await addBuyer(page);
+      await page.getByLabel("Exception: why").fill("Joint corrosion study with Tidewater, agreed with the PI");
+      await page.getByRole("button", { name: "Allow as an exception" }).click();
+      const row = page.getByRole("table", { name: "People who may charge this account" }).getByRole("row", { name: /Elena Marsh/ });
+      await expect.poll(() => row.textContent(), { timeout: 15_000 }).toContain("Joint corrosion study with Tidewater");
     });
   });
 });

@@ -11,7 +11,6 @@ import type { CustomerClass } from "../../entities/account.entity";
 import type { InstrumentKind } from "../../entities/instrument.entity";
 import { Account, Booking, BookingInstrument, Instrument, Rate, Setting, User } from "../../entities";
 import { UNTOUCHED_BOOKING } from "../../entities/booking.entity";
-import { BILLING_POLICY_KEY } from "../../services/billing-policy";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
 
 interface DemoRate {
@@ -28,6 +27,13 @@ export const DEMO_RATES: readonly DemoRate[] = [
   { kind: "interface_cell", rates: { internal: 1500, external_academic: 2250, commercial: 4000 }, minimumMinutes: 60, roundingIncrementMinutes: 15, afterHoursFactor: null },
   { kind: "support", rates: { internal: 1000, external_academic: 1500, commercial: 3000 }, minimumMinutes: null, roundingIncrementMinutes: null, afterHoursFactor: null },
 ];
+
+/**
+ * The settings row Recharge reads its billing settings from (server/modules/recharge/
+ * billing-settings.ts). Seeds import no area code, so the key is written here too;
+ * tests/api/recharge-demo.test.ts checks that the area reads back what the demo wrote.
+ */
+const BILLING_SETTINGS_KEY = "billing_policy";
 
 export const DEMO_BILLING_POLICY: BillingPolicyDto = {
   roundingIncrementMinutes: 15,
@@ -73,7 +79,7 @@ export async function seedDemoRates(em: EntityManager, opts: { now: Date; tz?: s
       });
     }
   }
-  await em.save(Setting, { key: BILLING_POLICY_KEY, value: JSON.stringify(DEMO_BILLING_POLICY) });
+  await em.save(Setting, { key: BILLING_SETTINGS_KEY, value: JSON.stringify(DEMO_BILLING_POLICY) });
   await seedBillingHistory(em, local, nowIso);
 }
 

@@ -3,7 +3,7 @@
  * /api/accounts/:id/members, and POST /api/accounts/:id/adjustments (credits and corrections).
  */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { accountMemberPage, accountPage } from "@shared/schemas/recharge";
+import { accountMemberPage, accountMemberResponse, accountPage, type AccountMemberInput } from "@shared/schemas/recharge";
 import { api, parseResponse } from "@/lib/api-client";
 import { rechargeKeys } from "./keys";
 
@@ -28,7 +28,11 @@ function useMembersChanged(accountId: number) {
 
 export function useAddMember(accountId: number) {
   const changed = useMembersChanged(accountId);
-  return useMutation({ mutationFn: (v: { email: string; monthlyCapCents: number | null }) => api.post(`/accounts/${accountId}/members`, v), onSuccess: changed });
+  return useMutation({
+    mutationFn: async (v: AccountMemberInput) =>
+      parseResponse(accountMemberResponse, await api.post<unknown>(`/accounts/${accountId}/members`, v), "POST /api/accounts/:id/members"),
+    onSuccess: changed,
+  });
 }
 
 export function useUpdateMember(accountId: number) {

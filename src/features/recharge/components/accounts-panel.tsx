@@ -1,19 +1,22 @@
 /**
  * Accounts and who may charge them: the group lead (or the manager) adds people by e-mail with an
  * optional monthly cap, changes the cap or removes them; the manager enters credits with a reason.
+ * A person of another organisation than the account's is refused (422); the manager may then add
+ * them as an exception, saying why. What is offered follows each account's `abilities`.
  */
 import { useState } from "react";
-import type { AccountDto } from "@shared/schemas/recharge";
+import { ORGANISATION_MISMATCH_CODES, type AccountDto } from "@shared/schemas/recharge";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Input } from "@/components/ui/input";
 import { Table, TBody, Td, Th, THead, Tr } from "@/components/ui/table";
+import { isApiError } from "@/lib/api-client";
 import { useAccounts, useAddAdjustment, useAddMember, useMembers, useRemoveMember, useUpdateMember } from "../api/accounts";
 import { money, parseDollars } from "./money";
 
-export function AccountsPanel({ isManager }: { isManager: boolean }) {
+export function AccountsPanel() {
   const accounts = useAccounts();
   const [open, setOpen] = useState<number | null>(null);
   const selected = accounts.data?.items.find((a) => a.id === open) ?? null;
@@ -45,7 +48,7 @@ export function AccountsPanel({ isManager }: { isManager: boolean }) {
                   </span>
                 </Td>
                 <Td>
-                  {a.canManageMembers && (
+                  {a.abilities.manageMembers && (
                     <Button type="button" size="sm" variant="ghost" onClick={() => setOpen(a.id)}>
                       Manage
                     </Button>
@@ -56,12 +59,14 @@ export function AccountsPanel({ isManager }: { isManager: boolean }) {
           </TBody>
         </Table>
       </Card>
-      {selected && <AccountDetail account={selected} isManager={isManager} />}
+      {selected && <AccountDetail key={selected.id} account={selected} />}
     </div>
   );
 }
 
-function AccountDetail({ account, isManager }: { account: AccountDto; isManager: boolean }) {
+const MISMATCH: readonly string[] = ORGANISATION_MISMATCH_CODES;
+
+function AccountDetail({ account }: { account: AccountDto }) {
   const members = useMembers(account.id);
   const add = useAddMember(account.id);
   const update = useUpdateMember(account.id);
@@ -71,6 +76,10 @@ function AccountDetail({ account, isManager }: { account: AccountDto; isManager:
   const [cap, setCap] = useState("");
   const [amount, setAmount] = useState("");
   const [reason, setReason] = useState("");
+  const [exception, setException] = useState("");
+  // The server refused the person as not of the account's organisation: the manager may say why they should charge it anyway.
+  const mismatch = isApiError(add.error, 422) && add.error.code !== undefined && MISMATCH.includes(add.error.code);
+  const offerException = mismatch && account.abilities.makeException;
   const capCents = cap.trim() === "" ? null : parseDollars(cap);
   const amountCents = parseDollars(amount);
   return (
@@ -80,6 +89,7 @@ function AccountDetail({ account, isManager }: { account: AccountDto; isManager:
           <Tr>
             <Th>Person</Th>
             <Th>Monthly cap</Th>
+            <Th>Exception</Th>
             <Th />
           </Tr>
         </THead>
@@ -90,6 +100,9 @@ function AccountDetail({ account, isManager }: { account: AccountDto; isManager:
                 {m.name} <span className="text-xs text-grey-600">{m.email}</span>
               </Td>
               <Td>{m.monthlyCapCents == null ? "no cap" : money(m.monthlyCapCents)}</Td>
+              <Td className="text-xs text-grey-700" data-testid={`member-exception-${m.userId}`}>
+                {m.exceptionReason ?? "—"}
+              </Td>
               <Td className="flex gap-1">
                 <Button
                   type="button"
@@ -111,21 +124,44 @@ function AccountDetail({ account, isManager }: { account: AccountDto; isManager:
           ))}
         </TBody>
       </Table>
-      <form
-        className="mt-3 flex flex-wrap items-end gap-2"
-        onSubmit={(e) => {
-          e.preventDefault();
-          add.mutate({ email, monthlyCapCents: capCents }, { onSuccess: () => setEmail("") });
-        }}
-      >
-        <Input label="Add a person (e-mail)" type="email" value={email} onChange={(e) => setEmail(e.target.value)} />
-        <Input label="Monthly cap (optional)" value={cap} onChange={(e) => setCap(e.target.value)} error={cap && capCents === null ? "Give an amount like 400.00" : undefined} />
-        <Button type="submit" variant="primary" disabled={!email || (cap !== "" && capCents === null)}>
-          Allow to charge
-        </Button>
-      </form>
+      {account.abilities.addMember ? (
+        <form
+          className="mt-3 flex flex-wrap items-end gap-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            const exceptionReason = offerException && exception.trim() ? exception.trim() : undefined;
+            add.mutate(
+              { email, monthlyCapCents: capCents, exceptionReason },
+              {
+                onSuccess: () => {
+                  setEmail("");
+                  setException("");
+                },
+              },
+            );
+          }}
+        >
+          <Input label="Add a person (e-mail)" type="email" value={email} onChange={(e) => setEmail(e.target.value)} />
+          <Input label="Monthly cap (optional)" value={cap} onChange={(e) => setCap(e.target.value)} error={cap && capCents === null ? "Give an amount like 400.00" : undefined} />
+          {offerException && (
+            <Input
+              label="Exception: why"
+              id="member-exception"
+              value={exception}
+              onChange={(e) => setException(e.target.value)}
+              hint="Why this person may charge an account of another organisation; kept with the membership and in the audit log."
+              fieldClassName="min-w-72"
+            />
+          )}
+          <Button type="submit" variant="primary" disabled={!email || (cap !== "" && capCents === null)}>
+            {offerException && exception.trim() ? "Allow as an exception" : "Allow to charge"}
+          </Button>
+        </form>
+      ) : (
+        <p className="mt-3 text-sm text-grey-600">This account is closed or past its validity dates; nobody new may charge it.</p>
+      )}
       {(add.error || update.error || remove.error) && <Alert tone="danger" className="mt-2">{(add.error ?? update.error ?? remove.error)!.message}</Alert>}
-      {isManager && (
+      {account.abilities.adjust && (
         <form
           className="mt-4 flex flex-wrap items-end gap-2 border-t border-grey-100 pt-3"
           onSubmit={(e) => {

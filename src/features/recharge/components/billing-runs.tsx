@@ -180,9 +180,11 @@ function RunDetail({ id }: { id: number }) {
       title={`Run #${run.id} · ${run.period}`}
       description={`${run.status === "final" ? "Final" : `Void (${run.voidReason ?? ""})`} · internal statements ${money(internal, run.currency)} · total ${money(run.total, run.currency)}`}
       actions={
-        <a className={buttonClasses("secondary", "sm")} href={`/api/billing/runs/${run.id}/journal.csv`} download data-testid="journal-link">
-          Journal (CSV)
-        </a>
+        run.abilities.journal && (
+          <a className={buttonClasses("secondary", "sm")} href={`/api/billing/runs/${run.id}/journal.csv`} download data-testid="journal-link">
+            Journal (CSV)
+          </a>
+        )
       }
     >
       <Table caption={`Statements of ${run.period}`}>
@@ -214,15 +216,17 @@ function RunDetail({ id }: { id: number }) {
                 )}
               </Td>
               <Td>
-                <a className="text-xs text-aqueous-800 underline" href={`/api/billing/statements/${s.id}/statement.pdf`} download>
-                  Statement PDF
-                </a>
+                {s.abilities?.download && (
+                  <a className="text-xs text-aqueous-800 underline" href={`/api/billing/statements/${s.id}/statement.pdf`} download>
+                    Statement PDF
+                  </a>
+                )}
               </Td>
             </Tr>
           ))}
         </TBody>
       </Table>
-      {run.status === "final" && (
+      {run.abilities.void && (
         <form
           className="mt-3 flex flex-wrap items-end gap-2"
           onSubmit={(e) => {

@@ -41,7 +41,7 @@ export function RechargePage() {
       {tab === "runs" && <BillingRuns />}
       {tab === "rates" && <RatesPanel canEdit={isManager} />}
       {tab === "review" && <RateReview />}
-      {tab === "accounts" && <AccountsPanel isManager={isManager} />}
+      {tab === "accounts" && <AccountsPanel />}
       {tab === "spend" && <SpendView isManager={isManager} />}
     </div>
   );

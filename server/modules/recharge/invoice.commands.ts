@@ -7,7 +7,7 @@
  */
 import type { DataSource } from "typeorm";
 import type Stripe from "stripe";
-import { Account, BillingRun, ChargeLine, Statement } from "../entities";
+import { Account, BillingRun, ChargeLine, Statement } from "../../entities";
 
 /** Minutes before each retry of an invoice the payment service did not take. */
 const RETRY_MINUTES = [1, 5, 15, 60, 180, 720];

@@ -1,11 +1,11 @@
 /**
  * Writes a finalising billing run's statements and charge lines while the month is being priced
- * (billing-compute's streamMonth hands over one page of lines at a time), so a month of tens of
+ * (month-stream's streamMonth hands over one page of lines at a time), so a month of tens of
  * thousands of lines never sits in memory whole. Runs on the run's own transaction connection:
  * better-sqlite3 has one connection, and the TypeORM transaction that owns the run has begun on it.
  */
 import type { EntityManager } from "typeorm";
-import type { ComputedLine } from "./billing-compute";
+import type { ComputedLine } from "./month-pricer";
 
 interface RawStatement {
   run(...params: unknown[]): { lastInsertRowid: number | bigint };
@@ -42,7 +42,7 @@ export function createRunWriter(em: EntityManager, run: { id: number; period: st
   const insert = `INSERT INTO charge_lines (${LINE_COLUMNS.map((c) => `"${c}"`).join(", ")}) VALUES `;
   const one = db.prepare(insert + row);
   const chunk = db.prepare(insert + Array.from({ length: CHUNK }, () => row).join(", "));
-  // Totals and invoice state are set once the month is complete (finishRun in billing.service).
+  // Totals and invoice state are set once the month is complete (closeStatements in billing-run.commands).
   const openStatement = db.prepare(
     `INSERT INTO statements (runId, accountId, period, totalCents, currency, invoiceStatus, invoiceAttempts, createdAt) VALUES (?, ?, ?, 0, ?, 'none', 0, ?)`,
   );
