@@ -5,9 +5,6 @@ import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
 import { createUserService } from "./services/user.service";
-import { createBookingService } from "./services/booking.service";
-import { createInstrumentService } from "./services/instrument.service";
-import { createSetupService } from "./services/setup.service";
 import { createTrainingService } from "./services/training.service";
 import { createAccountsService } from "./services/accounts.service";
 import { createBillingService } from "./services/billing.service";
@@ -39,9 +36,6 @@ export function createServices(deps: AppDeps) {
   const now = () => deps.clock.now();
   return {
     users: createUserService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL, facilityName: deps.config.FACILITY_NAME, bcryptCost: deps.bcryptCost }),
-    bookings: createBookingService({ ds: deps.ds, now, config: deps.config }),
-    instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
-    setups: createSetupService({ ds: deps.ds, now }),
     training: createTrainingService({ ds: deps.ds, now, publicUrl: deps.config.PUBLIC_URL }),
     accounts: createAccountsService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),
     rates: createRatesService({ ds: deps.ds, tz: deps.config.FACILITY_TZ, now }),

@@ -7,5 +7,6 @@ import { stockroomTable } from "./stockroom";
 import { safetyTable } from "./safety";
 import { labelsTable } from "./labels";
 import { systemTable } from "./system";
+import { scheduleTable } from "./schedule";
 
-export const ROUTE_TABLES: RouteTable[] = [systemTable, stockroomTable, safetyTable, labelsTable];
+export const ROUTE_TABLES: RouteTable[] = [systemTable, stockroomTable, safetyTable, labelsTable, scheduleTable];

@@ -5,13 +5,8 @@
 import type { Router } from "express";
 import type { Ctx } from "../context";
 import { createDepartmentsRouter, createGroupsRouter } from "./org.router";
-import { createInstrumentsRouter } from "./instruments.router";
 import { createUsersRouter } from "./users.router";
 import { createAccountsRouter } from "./accounts.router";
-import { createBookingsRouter } from "./bookings.router";
-import { createCalendarRouter } from "./calendar.router";
-import { createReportsRouter } from "./reports.router";
-import { createSetupsRouter } from "./setups.router";
 import { createTrainingRouter } from "./training.router";
 import { createBillingRouter } from "./billing.router";
 import { createRatesRouter } from "./rates.router";
@@ -22,13 +17,8 @@ export function apiRouters(ctx: Ctx): { path: string; router: Router }[] {
     { path: "/users", router: createUsersRouter(ctx) },
     { path: "/departments", router: createDepartmentsRouter(ctx) },
     { path: "/groups", router: createGroupsRouter(ctx) },
-    { path: "/instruments", router: createInstrumentsRouter(ctx) },
-    { path: "/bookings", router: createBookingsRouter(ctx) },
-    { path: "/setups", router: createSetupsRouter(ctx) },
     { path: "/training", router: createTrainingRouter(ctx) },
-    { path: "/calendar", router: createCalendarRouter(ctx) },
     { path: "/accounts", router: createAccountsRouter(ctx) },
-    { path: "/reports", router: createReportsRouter(ctx) },
     { path: "/rates", router: createRatesRouter(ctx) },
     { path: "/billing", router: createBillingRouter(ctx) },
     { path: "/webhooks", router: createWebhooksRouter(ctx) },

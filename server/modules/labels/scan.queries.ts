@@ -7,13 +7,14 @@ import type { DataSource } from "typeorm";
 import { handlingCautions } from "@shared/domain/cautions";
 import { isLabelTokenShape } from "@shared/domain/labels";
 import { pictogramsFor, signalWordFor, type GhsPictogram } from "@shared/domain/hazards";
+import type { BookingStatus } from "@shared/schemas/bookings";
 import { recordPath, type LabelledTypeName, type ScanBookingDto, type ScanContainerRecord, type ScanInstrumentRecord, type ScanResultDto } from "@shared/schemas/labels";
 import { AuditEntry, Chemical, Container, Instrument, LabelHistory } from "../../entities";
 import { AppError, NotFound } from "../../errors";
 import { hasRole, type AuthUser } from "../../middleware/auth";
 import type { Deps } from "../../core/deps";
 import { allLocations, containerPolicy, locationPaths, presentChemical } from "../stockroom";
-import { instrumentPolicy, openFaults } from "../schedule";
+import { bookingPolicy, instrumentPolicy, openFaults, readBookingSettings } from "../schedule";
 
 /**
  * A retired token opens nothing: 404 as the contract has it for a token that leads nowhere, with
@@ -85,6 +86,7 @@ async function bookingsOf(deps: Deps, user: AuthUser, instrumentId: number): Pro
       [instrumentId, t, ...ACTIVE_BOOKING],
     );
   const seesNames = hasRole(user, "manager", "admin");
+  const { checkInEarlyMinutes } = readBookingSettings(deps.ds);
   const dto = (b: (typeof rows)[number]): ScanBookingDto => {
     const mine = b.userId === user.id;
     return {
@@ -96,6 +98,8 @@ async function bookingsOf(deps: Deps, user: AuthUser, instrumentId: number): Pro
       who: mine || seesNames ? b.userName : null,
       checkedInAt: mine || seesNames ? b.checkedInAt : null,
       checkedOutAt: mine || seesNames ? b.checkedOutAt : null,
+      // The Schedule's booking policy says what the scanner may do (check in, check out…).
+      abilities: bookingPolicy.abilities(user, { booking: { ...b, status: b.status as BookingStatus }, nowMs: t, checkInEarlyMinutes }),
     };
   };
   const current = rows.find((b) => b.startMs <= t && b.status !== "requested");

@@ -1,20 +1,46 @@
 /**
- * The facility's booking policy (late-cancellation window, no-show grace, check-in opening),
- * kept as one settings row so the manager can change it without a deploy.
+ * The facility's booking settings (late-cancellation window, no-show grace, check-in opening),
+ * kept as one settings row so the manager can change them without a deploy. These are numbers
+ * the rules use; who may do what to a booking is booking.policy.ts's.
  */
-import type { EntityManager } from "typeorm";
-import { DEFAULT_BOOKING_POLICY, bookingPolicy, type BookingPolicy } from "@shared/schemas/bookings";
-import { Setting } from "../entities";
+import type { DataSource, EntityManager } from "typeorm";
+import { DEFAULT_BOOKING_SETTINGS, bookingSettings, type BookingSettings } from "@shared/schemas/bookings";
+import { MINUTE_MS } from "@shared/domain/intervals";
+import { Setting } from "../../entities";
+import { prepared } from "../../db/prepared";
+import { serialTransaction } from "../../db/serial";
+import { audit } from "../../core/audit";
+import type { Deps } from "../../core/deps";
+import type { AuthUser } from "../../middleware/auth";
 
-export const BOOKING_POLICY_KEY = "booking_policy";
+/** The settings row's key; its first name, kept so databases already written keep their settings. */
+export const BOOKING_SETTINGS_KEY = "booking_policy";
 
-export async function readBookingPolicy(em: EntityManager): Promise<BookingPolicy> {
-  const row = await em.findOneBy(Setting, { key: BOOKING_POLICY_KEY });
-  if (!row) return DEFAULT_BOOKING_POLICY;
-  const parsed = bookingPolicy.partial().safeParse(JSON.parse(row.value));
-  return { ...DEFAULT_BOOKING_POLICY, ...(parsed.success ? parsed.data : {}) };
+function parseSettings(value: string | undefined): BookingSettings {
+  if (value === undefined) return DEFAULT_BOOKING_SETTINGS;
+  const parsed = bookingSettings.partial().safeParse(JSON.parse(value));
+  return { ...DEFAULT_BOOKING_SETTINGS, ...(parsed.success ? parsed.data : {}) };
 }
 
-export async function writeBookingPolicy(em: EntityManager, policy: BookingPolicy): Promise<void> {
-  await em.save(Setting, { key: BOOKING_POLICY_KEY, value: JSON.stringify(policy) });
+/**
+ * The settings as they stand, read with a prepared statement (on the transaction's connection
+ * inside one): the week of bookings and every booking change read them for check-in's opening.
+ */
+export function readBookingSettings(ds: DataSource): BookingSettings {
+  const row = prepared(ds, `SELECT value FROM settings WHERE key = ?`).get(BOOKING_SETTINGS_KEY) as { value: string } | undefined;
+  return parseSettings(row?.value);
+}
+
+/** The manager replaces the settings; audited with the new values. */
+export async function saveBookingSettings(deps: Deps, actor: AuthUser, settings: BookingSettings): Promise<BookingSettings> {
+  await serialTransaction(deps.ds, async (em: EntityManager) => {
+    await em.save(Setting, { key: BOOKING_SETTINGS_KEY, value: JSON.stringify(settings) });
+    await audit(em, deps.now(), actor.id, "booking_policy.changed", "setting", null, settings);
+  });
+  return settings;
+}
+
+/** Cancelling a confirmed booking less than `lateCancelHours` before its start is late. */
+export function isLateCancel(startMs: number, nowMs: number, settings: Pick<BookingSettings, "lateCancelHours">): boolean {
+  return startMs - nowMs < settings.lateCancelHours * 60 * MINUTE_MS;
 }

@@ -1,40 +1,44 @@
-/** Personal iCalendar feeds: the secret feed itself (no sign-in, the token is the key) and its rotation. */
-import { Router } from "express";
-import type { Ctx } from "../context";
-import { currentUser, requireAuth } from "../middleware/auth";
-import { NotFound } from "../errors";
-import { User } from "../entities";
-import { serialTransaction } from "../db/serial";
-import { audit } from "../core/audit";
-import { newToken } from "../core/tokens";
-import { feedForToken } from "../services/calendar.service";
+/** Personal iCalendar feeds: the secret feed itself (no sign-in, the token is the key) and its address and rotation. */
+import { z } from "zod";
+import { calendarFeedDto } from "@shared/schemas/bookings";
+import { route, WRITTEN } from "../../http/route-table";
+import { NotFound } from "../../errors";
+import { calendarTokenOf, feedForToken, feedUrl } from "./calendar.queries";
+import { rotateCalendarToken } from "./calendar.commands";
 
-export function createCalendarRouter(ctx: Ctx): Router {
-  const r = Router();
-  const feedUrl = (token: string) => `${ctx.config.PUBLIC_URL}/api/calendar/${token}.ics`;
+/** Tokens are base64url; anything else cannot be one, and is answered like an unknown token. */
+const FEED_TOKEN = /^[A-Za-z0-9_-]{16,64}$/;
 
-  r.get("/me", requireAuth, async (req, res) => {
-    const u = await ctx.ds.getRepository(User).findOneByOrFail({ id: currentUser(req).id });
-    res.json({ url: feedUrl(u.calendarToken) });
-  });
-
-  r.post("/me/rotate", requireAuth, async (req, res) => {
-    const me = currentUser(req);
-    const token = newToken(24);
-    await serialTransaction(ctx.ds, async (em) => {
-      await em.update(User, me.id, { calendarToken: token, updatedAt: ctx.now().toISOString() });
-      await audit(em, ctx.now(), me.id, "calendar_token.rotated", "user", me.id, {});
-    });
-    res.json({ url: feedUrl(token) });
-  });
-
-  r.get("/:token.ics", async (req, res) => {
-    const token = String(req.params.token ?? "");
-    // Tokens are base64url; anything else cannot be one, and is answered like an unknown token.
-    const text = /^[A-Za-z0-9_-]{16,64}$/.test(token) ? await feedForToken(ctx.ds, token, ctx.now(), ctx.config.PUBLIC_URL, ctx.config.FACILITY_NAME) : null;
-    if (text === null) throw new NotFound("That calendar feed");
-    res.type("text/calendar; charset=utf-8").set("Cache-Control", "private, max-age=300").send(text);
-  });
-
-  return r;
-}
+export const calendarRoutes = [
+  route({
+    method: "get",
+    path: "/calendar/me",
+    summary: "The secret address of the signed-in person's calendar feed",
+    access: "signed_in",
+    output: calendarFeedDto,
+    handler: async ({ ctx, actor }) => ({ url: feedUrl(ctx.config.PUBLIC_URL, await calendarTokenOf(ctx.ds, actor.id)) }),
+  }),
+  route({
+    method: "post",
+    path: "/calendar/me/rotate",
+    summary: "A new secret address for the calendar feed; the old one stops working",
+    access: "signed_in",
+    output: calendarFeedDto,
+    handler: async ({ ctx, actor }) => ({ url: feedUrl(ctx.config.PUBLIC_URL, await rotateCalendarToken(ctx, actor)) }),
+  }),
+  route({
+    method: "get",
+    path: "/calendar/:token.ics",
+    summary: "A person's bookings as an iCalendar feed (RFC 5545); the secret token is the key",
+    description: "404 for a token that is unknown, of an inactive person, or not shaped like a token.",
+    access: "public",
+    params: z.object({ token: z.string() }),
+    produces: "text/calendar",
+    handler: async ({ ctx, params, res }) => {
+      const text = FEED_TOKEN.test(params.token) ? await feedForToken(ctx.ds, params.token, ctx.now(), ctx.config.PUBLIC_URL, ctx.config.FACILITY_NAME) : null;
+      if (text === null) throw new NotFound("That calendar feed");
+      res.type("text/calendar; charset=utf-8").set("Cache-Control", "private, max-age=300").send(text);
+      return WRITTEN;
+    },
+  }),
+];

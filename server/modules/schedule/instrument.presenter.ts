@@ -1,7 +1,11 @@
-import type { BookableHours, InstrumentDto } from "@shared/schemas/instruments";
-import type { Instrument } from "../entities";
+/** Instruments → the DTOs of shared/schemas/instruments, with what the viewer may do to each. */
+import type { BookableHours, InstrumentDetailDto, InstrumentDto } from "@shared/schemas/instruments";
+import type { Instrument } from "../../entities";
+import type { AuthUser } from "../../middleware/auth";
+import { instrumentPolicy } from "./instrument.policy";
+import type { FaultRow } from "./instrument.queries";
 
-export function presentInstrument(i: Instrument): InstrumentDto {
+export function presentInstrument(i: Instrument, viewer: AuthUser): InstrumentDto {
   return {
     id: i.id,
     name: i.name,
@@ -20,5 +24,11 @@ export function presentInstrument(i: Instrument): InstrumentDto {
     maxLengthMinutes: i.maxLengthMinutes,
     bookableHours: JSON.parse(i.bookableHours) as BookableHours,
     afterHoursAllowed: i.afterHoursAllowed,
+    abilities: instrumentPolicy.abilities(viewer, i),
   };
+}
+
+/** The instrument's page: the instrument with its open fault reports. */
+export function presentInstrumentDetail(i: Instrument, viewer: AuthUser, faults: FaultRow[]): InstrumentDetailDto {
+  return { ...presentInstrument(i, viewer), openFaults: faults };
 }

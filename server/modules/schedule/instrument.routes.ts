@@ -1,41 +1,106 @@
-/** Instruments: the list and one record for everyone signed in; adding and editing for managers. */
-import { Router } from "express";
-import { idParam } from "@shared/schemas/common";
+/**
+ * Instruments: the list (contract GET /api/instruments) and one instrument with its open fault
+ * reports for everyone signed in; adding, editing and changing the status for the manager;
+ * fault reports from anyone signed in (202: stored and mailed, the status stays the manager's
+ * to change), closed by the manager. The instrument policy decides on each instrument.
+ */
 import { z } from "zod";
-import { instrumentInput, instrumentListQuery, instrumentPatch, type InstrumentListQuery, type InstrumentPatchParsed as InstrumentPatch } from "@shared/schemas/instruments";
-import type { Ctx } from "../context";
-import { currentUser, requireAuth, requireRole } from "../middleware/auth";
-import { body, params, query, validate } from "../middleware/validate";
-import { Instrument } from "../entities";
-import { NotFound } from "../errors";
-import { presentInstrument } from "../presenters/instrument.presenter";
+import { idParam, pageOf } from "@shared/schemas/common";
+import {
+  closeFaultInput,
+  faultParams,
+  faultReportDto,
+  instrumentDetailDto,
+  instrumentDto,
+  instrumentInput,
+  instrumentListQuery,
+  instrumentPatch,
+  reportFaultInput,
+} from "@shared/schemas/instruments";
+import { route } from "../../http/route-table";
+import { createInstrument, updateInstrument } from "./instrument.commands";
+import { closeInstrumentFault, reportInstrumentFault } from "./instrument-fault.commands";
+import { faultReport, getInstrument, listInstruments, openFaults } from "./instrument.queries";
+import { presentInstrument, presentInstrumentDetail } from "./instrument.presenter";
 
-export function createInstrumentsRouter(ctx: Ctx): Router {
-  const r = Router();
-  const repo = () => ctx.ds.getRepository(Instrument);
+const one = z.object({ instrument: instrumentDto });
+const oneFault = z.object({ fault: faultReportDto });
 
-  r.get("/", requireAuth, validate({ query: instrumentListQuery }), async (req, res) => {
-    const q = query<InstrumentListQuery>(req);
-    const where = { ...(q.kind ? { kind: q.kind } : {}), ...(q.status ? { status: q.status } : {}) };
-    const [items, total] = await repo().findAndCount({ where, order: { kind: "ASC", name: "ASC" }, skip: q.offset, take: q.limit });
-    res.json({ items: items.map(presentInstrument), total });
-  });
-
-  r.get("/:id", requireAuth, validate({ params: idParam }), async (req, res) => {
-    const i = await repo().findOneBy({ id: params<{ id: number }>(req).id });
-    if (!i) throw new NotFound("That instrument");
-    res.json({ instrument: presentInstrument(i) });
-  });
-
-  r.post("/", requireRole("manager"), validate({ body: instrumentInput }), async (req, res) => {
-    const i = await ctx.services.instruments.create(currentUser(req), body<z.output<typeof instrumentInput>>(req));
-    res.status(201).json({ instrument: presentInstrument(i) });
-  });
-
-  r.patch("/:id", requireRole("manager"), validate({ params: idParam, body: instrumentPatch }), async (req, res) => {
-    const i = await ctx.services.instruments.update(currentUser(req), params<{ id: number }>(req).id, body<InstrumentPatch>(req));
-    res.json({ instrument: presentInstrument(i) });
-  });
-
-  return r;
-}
+export const instrumentRoutes = [
+  route({
+    method: "get",
+    path: "/instruments",
+    summary: "Potentiostats, interface cells and support equipment, by kind and name",
+    access: "signed_in",
+    query: instrumentListQuery,
+    output: pageOf(instrumentDto),
+    handler: async ({ ctx, actor, query }) => {
+      const { items, total } = await listInstruments(ctx.ds, query);
+      return { items: items.map((i) => presentInstrument(i, actor)), total };
+    },
+  }),
+  route({
+    method: "get",
+    path: "/instruments/:id",
+    summary: "One instrument with its booking rules, open fault reports and what the caller may do to it",
+    access: "signed_in",
+    params: idParam,
+    output: z.object({ instrument: instrumentDetailDto }),
+    handler: async ({ ctx, actor, params }) => {
+      const i = await getInstrument(ctx.ds, params.id);
+      return { instrument: presentInstrumentDetail(i, actor, await openFaults(ctx.ds.manager, i.id)) };
+    },
+  }),
+  route({
+    method: "post",
+    path: "/instruments",
+    summary: "Add an instrument with its booking rules",
+    access: ["manager"],
+    body: instrumentInput,
+    status: 201,
+    output: one,
+    handler: async ({ ctx, actor, body }) => ({ instrument: presentInstrument(await createInstrument(ctx, actor, body), actor) }),
+  }),
+  route({
+    method: "patch",
+    path: "/instruments/:id",
+    summary: "Change an instrument's rules or status; leaving service tells the owners of its upcoming bookings",
+    description: "A status change asks the instrument policy: leaving service is takeOutOfService, coming back returnToService.",
+    access: ["manager"],
+    policy: "instrument.edit",
+    params: idParam,
+    body: instrumentPatch,
+    output: one,
+    handler: async ({ ctx, actor, params, body }) => ({ instrument: presentInstrument(await updateInstrument(ctx, actor, params.id, body), actor) }),
+  }),
+  route({
+    method: "post",
+    path: "/instruments/:id/faults",
+    summary: "Report a fault: stored, shown on the instrument and mailed to the manager",
+    description: "Answers 202 with the stored report: whether the instrument leaves service is the manager's decision. 409 for a retired instrument.",
+    access: "signed_in",
+    policy: "instrument.reportFault",
+    params: idParam,
+    body: reportFaultInput,
+    status: 202,
+    output: oneFault,
+    handler: async ({ ctx, actor, params, body }) => {
+      const faultId = await reportInstrumentFault(ctx, actor, params.id, body.note);
+      return { fault: await faultReport(ctx.ds, params.id, faultId) };
+    },
+  }),
+  route({
+    method: "post",
+    path: "/instruments/:id/faults/:faultId/close",
+    summary: "Close a fault report, saying what was done",
+    access: ["manager"],
+    policy: "instrument.closeFault",
+    params: faultParams,
+    body: closeFaultInput,
+    output: oneFault,
+    handler: async ({ ctx, actor, params, body }) => {
+      await closeInstrumentFault(ctx, actor, params.id, params.faultId, body.resolution);
+      return { fault: await faultReport(ctx.ds, params.id, params.faultId) };
+    },
+  }),
+];

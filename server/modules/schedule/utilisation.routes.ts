@@ -1,29 +1,32 @@
-/** Managers' reports: utilisation per instrument per month, as JSON for the chart and as CSV. */
-import { Router } from "express";
-import { z } from "zod";
-import type { Ctx } from "../context";
-import { requireRole } from "../middleware/auth";
-import { query, validate } from "../middleware/validate";
-import { utilisationCsv, utilisationReport } from "../services/utilisation.service";
+/** The manager's utilisation report: per instrument per month, as JSON for the chart and as CSV. */
+import { utilisationQuery, utilisationReport as utilisationReportDto } from "@shared/schemas/reports";
+import { route, WRITTEN } from "../../http/route-table";
+import { utilisationCsv, utilisationReport } from "./utilisation.queries";
 
-const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Give a month as YYYY-MM");
-const utilisationQuery = z.object({ from: month, to: month, instrumentId: z.coerce.number().int().positive().optional() });
-type UtilisationQuery = z.infer<typeof utilisationQuery>;
-
-export function createReportsRouter(ctx: Ctx): Router {
-  const r = Router();
-  r.get("/utilisation", requireRole("manager"), validate({ query: utilisationQuery }), async (req, res) => {
-    const q = query<UtilisationQuery>(req);
-    const items = await utilisationReport(ctx.ds, ctx.config.FACILITY_TZ, q.from, q.to, q.instrumentId);
-    res.json({ items, total: items.length, tz: ctx.config.FACILITY_TZ });
-  });
-  r.get("/utilisation.csv", requireRole("manager"), validate({ query: utilisationQuery }), async (req, res) => {
-    const q = query<UtilisationQuery>(req);
-    const rows = await utilisationReport(ctx.ds, ctx.config.FACILITY_TZ, q.from, q.to, q.instrumentId);
-    res
-      .type("text/csv; charset=utf-8")
-      .set("Content-Disposition", `attachment; filename="utilisation-${q.from}-to-${q.to}.csv"`)
-      .send(utilisationCsv(rows));
-  });
-  return r;
-}
+export const utilisationRoutes = [
+  route({
+    method: "get",
+    path: "/reports/utilisation",
+    summary: "Bookable, booked and used hours per instrument per month, in the facility's time zone",
+    access: ["manager"],
+    query: utilisationQuery,
+    output: utilisationReportDto,
+    handler: async ({ ctx, query }) => {
+      const items = await utilisationReport(ctx.ds, ctx.config.FACILITY_TZ, query.from, query.to, query.instrumentId);
+      return { items, total: items.length, tz: ctx.config.FACILITY_TZ };
+    },
+  }),
+  route({
+    method: "get",
+    path: "/reports/utilisation.csv",
+    summary: "The utilisation report as CSV (RFC 4180)",
+    access: ["manager"],
+    query: utilisationQuery,
+    produces: "text/csv",
+    handler: async ({ ctx, query, res }) => {
+      const rows = await utilisationReport(ctx.ds, ctx.config.FACILITY_TZ, query.from, query.to, query.instrumentId);
+      res.type("text/csv; charset=utf-8").set("Content-Disposition", `attachment; filename="utilisation-${query.from}-to-${query.to}.csv"`).send(utilisationCsv(rows));
+      return WRITTEN;
+    },
+  }),
+];
