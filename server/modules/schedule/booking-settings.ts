@@ -16,9 +16,12 @@ import type { AuthUser } from "../../middleware/auth";
 /** The settings row's key; its first name, kept so databases already written keep their settings. */
 export const BOOKING_SETTINGS_KEY = "booking_policy";
 
+/** Built once: the week of bookings reads the settings on every request. */
+const storedSettings = bookingSettings.partial();
+
 function parseSettings(value: string | undefined): BookingSettings {
   if (value === undefined) return DEFAULT_BOOKING_SETTINGS;
-  const parsed = bookingSettings.partial().safeParse(JSON.parse(value));
+  const parsed = storedSettings.safeParse(JSON.parse(value));
   return { ...DEFAULT_BOOKING_SETTINGS, ...(parsed.success ? parsed.data : {}) };
 }
 
