@@ -240,7 +240,7 @@ describe("instrument faults and status", () => {
 });
 
 describe("the Scan page's booking line", () => {
-  it("carries the booking policy's abilities: check in to one's own booking, nothing on someone else's", async () => {
+  it("carries the booking policy's abilities and its rule of who sees a booking in full", async () => {
     const cell = await trainedCell();
     const mine = await book(memberApi, cell.id, dec(2, "11:10"), dec(2, "12:00"));
     expect(mine.status).toBe(201);
@@ -254,6 +254,12 @@ describe("the Scan page's booking line", () => {
       expect((await memberApi.post(`/api/bookings/${mine.body.booking.id}/check-in`)).status).toBe(200);
       const after = await memberApi.get(`/api/scan/${cell.labelToken}`);
       expect(after.body.record.currentBooking.abilities).toMatchObject({ checkIn: false, checkOut: true });
+      // Who booked it follows the Schedule's rule: the manager sees it, an administrator does not.
+      const admin = await makeUser(t.ds, { roles: ["admin"] });
+      const adminApi = new ApiClient(t.url);
+      await adminApi.login(admin.email, TEST_PASSWORD);
+      expect((await adminApi.get(`/api/scan/${cell.labelToken}`)).body.record.nextBooking).toMatchObject({ id: null, who: null, mine: false });
+      expect((await managerApi.get(`/api/scan/${cell.labelToken}`)).body.record.nextBooking).toMatchObject({ id: theirs.body.booking.id, who: "Otto Other" });
     } finally {
       t.clock.set("2026-12-02T15:00:00.000Z");
     }
