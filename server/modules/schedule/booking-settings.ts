@@ -19,10 +19,16 @@ export const BOOKING_SETTINGS_KEY = "booking_policy";
 /** Built once: the week of bookings reads the settings on every request. */
 const storedSettings = bookingSettings.partial();
 
+/** The last stored text and what it parsed to: the row is read every time, parsed only when it changed. */
+let last: { value: string; settings: BookingSettings } | null = null;
+
 function parseSettings(value: string | undefined): BookingSettings {
   if (value === undefined) return DEFAULT_BOOKING_SETTINGS;
+  if (last?.value === value) return last.settings;
   const parsed = storedSettings.safeParse(JSON.parse(value));
-  return { ...DEFAULT_BOOKING_SETTINGS, ...(parsed.success ? parsed.data : {}) };
+  const settings = Object.freeze({ ...DEFAULT_BOOKING_SETTINGS, ...(parsed.success ? parsed.data : {}) });
+  last = { value, settings };
+  return settings;
 }
 
 /**
