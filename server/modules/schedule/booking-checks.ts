@@ -4,6 +4,7 @@
  * rules (shared/domain/booking-rules) and finds its instruments free, cleaning buffers
  * included. They run inside the caller's serialised transaction, on its connection.
  */
+import type { DataSource } from "typeorm";
 import { checkBookingRules, type BookableHours, type TrainingRecord as DomainTraining } from "@shared/domain/booking-rules";
 import { conflicts, MINUTE_MS } from "@shared/domain/intervals";
 import { INSTRUMENT_STATUS_LABELS } from "@shared/schemas/instruments";
@@ -11,7 +12,6 @@ import type { OccurrenceProblem } from "@shared/schemas/bookings";
 import type { Account, Instrument, TrainingRecord } from "../../entities";
 import { AppError, RuleBroken, type FieldError } from "../../errors";
 import type { AuthUser } from "../../middleware/auth";
-import type { DataSource } from "typeorm";
 import { accountPolicy } from "../recharge";
 import { localRange } from "./booking-mail";
 import { accountAndMembership, holdersNear, instrumentsByIds, MAX_BOOKING_MS, trainingRecordsOf } from "./booking.queries";

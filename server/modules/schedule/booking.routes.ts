@@ -4,8 +4,9 @@
  * check-out and no-show. Which booking a person may change, and when, is the booking policy's
  * to say; the commands ask it, and every booking shown in full carries its `abilities`.
  */
-import { idParam } from "@shared/schemas/common";
+import { idParam, pageOf } from "@shared/schemas/common";
 import {
+  bookingListItem,
   bookingListQuery,
   bookingSettings,
   bookingSettingsAnswer,
@@ -15,9 +16,7 @@ import {
   oneBookingDto,
   optionalReasonInput,
   reasonInput,
-  bookingListItem,
 } from "@shared/schemas/bookings";
-import { pageOf } from "@shared/schemas/common";
 import { route, WRITTEN } from "../../http/route-table";
 import { NotFound } from "../../errors";
 import { seesInFull } from "./booking.policy";
