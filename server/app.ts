@@ -9,11 +9,10 @@ import session from "express-session";
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
 import { csrfSync } from "csrf-sync";
-import { createServices, type AppDeps, type Ctx } from "./context";
+import type { AppDeps, Ctx } from "./context";
 import { createPassport, createSignIn, DbSessionStore } from "./modules/people";
-import { apiRouters, listRoutes } from "./routes";
 import { apiNotFound, errorHandler } from "./middleware/problem";
-import { buildMounts } from "./http/router";
+import { buildMounts, listRoutes } from "./http/router";
 import { apiDescriptionTable, docsAssets } from "./http/api-description";
 import type { RouteTable } from "./http/route-table";
 import { ROUTE_TABLES } from "./modules";
@@ -40,7 +39,6 @@ export function createApp(deps: AppDeps): CreatedApp {
   });
   const ctx: Ctx = {
     ...deps,
-    services: createServices(deps),
     now: () => deps.clock.now(),
     signIn: createSignIn(deps, passport, (req) => csrf.generateToken(req)),
   };
@@ -107,7 +105,7 @@ export function createApp(deps: AppDeps): CreatedApp {
     ...ROUTE_TABLES,
     apiDescriptionTable(() => tables, { version: deps.version ?? "dev", publicUrl: deps.config.PUBLIC_URL }),
   ];
-  const mounts = [...buildMounts(ctx, tables), ...apiRouters(ctx)];
+  const mounts = buildMounts(ctx, tables);
   app.use("/api/docs/assets", docsAssets());
   for (const { path: p, router } of mounts) app.use(`/api${p}`, router);
   app.use("/api", apiNotFound);

@@ -1,12 +1,9 @@
-/** What routers and jobs share: data source, configuration, clock, services and integrations. */
+/** What the areas share: data source, configuration, clock and integrations. */
 import type { DataSource } from "typeorm";
 import type Stripe from "stripe";
 import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
-import { createBookingService } from "./services/booking.service";
-import { createInstrumentService } from "./services/instrument.service";
-import { createSetupService } from "./services/setup.service";
 import type { SignIn } from "./modules/people";
 
 export interface AppDeps {
@@ -31,19 +28,8 @@ export interface AppDeps {
   checkResponses?: boolean;
 }
 
-export function createServices(deps: AppDeps) {
-  const now = () => deps.clock.now();
-  return {
-    bookings: createBookingService({ ds: deps.ds, now, config: deps.config }),
-    instruments: createInstrumentService({ ds: deps.ds, now, tz: deps.config.FACILITY_TZ, publicUrl: deps.config.PUBLIC_URL }),
-    setups: createSetupService({ ds: deps.ds, now }),
-  };
-}
-
-export type Services = ReturnType<typeof createServices>;
-
+/** What every route handler, command and query gets: the app's dependencies and the clock's now(). */
 export interface Ctx extends AppDeps {
-  services: Services;
   now: () => Date;
   /** Passport, the CSRF token and the sign-in rate limits, for the session routes (People). */
   signIn: SignIn;

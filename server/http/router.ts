@@ -87,3 +87,18 @@ export function buildMounts(ctx: Ctx, tables: RouteTable[]): Mount[] {
   }
   return [...mounts].map(([path, router]) => ({ path, router }));
 }
+
+/** Lists "METHOD /api/path" for every route of a mounted router (Express 5 router stack), for the role-matrix test. */
+export function listRoutes(mounts: Mount[]): string[] {
+  const out: string[] = [];
+  for (const { path, router } of mounts) {
+    for (const layer of (router as unknown as { stack: { route?: { path: string; methods: Record<string, boolean> } }[] }).stack) {
+      if (!layer.route) continue;
+      for (const m of Object.keys(layer.route.methods)) {
+        if (m === "_all") continue;
+        out.push(`${m.toUpperCase()} /api${path}${layer.route.path === "/" ? "" : layer.route.path}`);
+      }
+    }
+  }
+  return out;
+}

@@ -9,7 +9,7 @@ import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../core/outbox";
 import { runStockAlerts } from "../modules/safety";
-import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
+import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "../modules/schedule";
 import { mailStatementsJob, sendInvoicesJob } from "../modules/recharge";
 
 export interface JobDeps {

@@ -9,6 +9,7 @@ import { labelsTable } from "./labels";
 import { systemTable } from "./system";
 import { peopleTable } from "./people";
 import { rechargeTable } from "./recharge";
+import { scheduleTable } from "./schedule";
 
 // People first: its session routes (GET /api/auth/me, the signed-in baseline) are matched before any other.
-export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, stockroomTable, safetyTable, labelsTable, rechargeTable];
+export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, scheduleTable, stockroomTable, safetyTable, labelsTable, rechargeTable];

@@ -63,6 +63,12 @@ export const bookingListQuery = pageQuery.extend({
 });
 export type BookingListQuery = z.infer<typeof bookingListQuery>;
 
+/** What a person may do to a booking, decided by the server's booking policy with its clock. */
+export const BOOKING_ACTIONS = ["cancel", "move", "checkIn", "checkOut", "approve", "decline", "noShow"] as const;
+export type BookingAction = (typeof BOOKING_ACTIONS)[number];
+export const bookingAbilities = z.object(Object.fromEntries(BOOKING_ACTIONS.map((a) => [a, z.boolean()])) as Record<BookingAction, z.ZodBoolean>);
+export type BookingAbilities = z.infer<typeof bookingAbilities>;
+
 /** A booking in full: for its owner and for managers. */
 export const bookingDto = z.object({
   id: z.number(),
@@ -84,6 +90,8 @@ export const bookingDto = z.object({
   declineReason: z.string().nullable(),
   cancelReason: z.string().nullable(),
   createdAt: z.string(),
+  /** What the caller may do to it now (the booking policy's answer; the client offers only these). */
+  abilities: bookingAbilities,
 });
 export type BookingDto = z.infer<typeof bookingDto>;
 
@@ -99,7 +107,13 @@ export const busyBlockDto = z.object({
 });
 export type BusyBlockDto = z.infer<typeof busyBlockDto>;
 
+export const bookingListItem = z.union([bookingDto, busyBlockDto]);
 export type BookingListItem = BookingDto | BusyBlockDto;
+
+/** One booking as the routes that change it answer. */
+export const oneBookingDto = z.object({ booking: bookingListItem });
+/** POST /api/bookings: the first booking, and every session of a weekly series. */
+export const madeBookingsDto = z.object({ booking: bookingDto, bookings: z.array(bookingDto) });
 
 /** One failing session of a weekly series, as the 409/422 answer names it. */
 export interface OccurrenceProblem {
@@ -110,8 +124,11 @@ export interface OccurrenceProblem {
   reasons: { path: string; message: string }[];
 }
 
-/** The facility's booking policy (a settings row), editable by the manager. */
-export const bookingPolicy = z.object({
+/**
+ * The facility's booking settings (a settings row the manager edits; GET/PUT /api/bookings/policy):
+ * numbers the booking rules use, not who may do what (that is the server's booking policy).
+ */
+export const bookingSettings = z.object({
   /** Cancelling less than this many hours before the start is a late cancellation. */
   lateCancelHours: z.number().int().min(0).max(24 * 14),
   /** A confirmed booking nobody checked in to within this many minutes becomes a no-show. */
@@ -119,5 +136,10 @@ export const bookingPolicy = z.object({
   /** Check-in opens this many minutes before the start. */
   checkInEarlyMinutes: z.number().int().min(0).max(240),
 });
-export type BookingPolicy = z.infer<typeof bookingPolicy>;
-export const DEFAULT_BOOKING_POLICY: BookingPolicy = { lateCancelHours: 24, noShowGraceMinutes: 30, checkInEarlyMinutes: 15 };
+export type BookingSettings = z.infer<typeof bookingSettings>;
+export const DEFAULT_BOOKING_SETTINGS: BookingSettings = { lateCancelHours: 24, noShowGraceMinutes: 30, checkInEarlyMinutes: 15 };
+/** The answer of GET and PUT /api/bookings/policy (the path and the key keep the contract's first name). */
+export const bookingSettingsAnswer = z.object({ policy: bookingSettings });
+
+/** The secret address of a person's calendar feed (GET /api/calendar/me, POST /api/calendar/me/rotate). */
+export const calendarFeedDto = z.object({ url: z.string() });

@@ -25,6 +25,14 @@ export const WEEKDAYS = ["mon", "tue", "wed", "thu", "fri", "sat", "sun"] as con
 export const bookableHours = z.partialRecord(z.enum(WEEKDAYS), z.array(z.object({ from: hhmm, to: hhmm })));
 export type BookableHours = z.infer<typeof bookableHours>;
 
+export const INSTRUMENT_ACTIONS = ["reportFault", "recordCleaned", "edit", "takeOutOfService", "returnToService", "closeFault"] as const;
+export const instrumentAbilities = z.object(Object.fromEntries(INSTRUMENT_ACTIONS.map((a) => [a, z.boolean()])) as Record<(typeof INSTRUMENT_ACTIONS)[number], z.ZodBoolean>);
+export type InstrumentAbilities = z.infer<typeof instrumentAbilities>;
+
+/** A fault someone reported on an instrument. */
+export const faultDto = z.object({ id: z.number(), note: z.string(), reportedAt: z.string(), reportedBy: z.string().nullable() });
+export type FaultDto = z.infer<typeof faultDto>;
+
 export const instrumentDto = z.object({
   id: z.number(),
   name: z.string(),
@@ -43,8 +51,14 @@ export const instrumentDto = z.object({
   maxLengthMinutes: z.number(),
   bookableHours,
   afterHoursAllowed: z.boolean(),
+  /** What the caller may do to it, decided by the server's instrument policy. */
+  abilities: instrumentAbilities,
 });
 export type InstrumentDto = z.infer<typeof instrumentDto>;
+
+/** GET /api/instruments/:id: the instrument with the fault reports nobody has closed yet. */
+export const instrumentDetailDto = instrumentDto.extend({ openFaults: z.array(faultDto) });
+export type InstrumentDetailDto = z.infer<typeof instrumentDetailDto>;
 
 export const instrumentListQuery = pageQuery.extend({
   kind: instrumentKind.optional(),
@@ -98,12 +112,15 @@ export const instrumentPatch = z
 export type InstrumentPatch = z.input<typeof instrumentPatch>;
 export type InstrumentPatchParsed = z.output<typeof instrumentPatch>;
 
-export const INSTRUMENT_ACTIONS = ["reportFault", "recordCleaned", "edit", "takeOutOfService", "returnToService", "closeFault"] as const;
-export const instrumentAbilities = z.object(Object.fromEntries(INSTRUMENT_ACTIONS.map((a) => [a, z.boolean()])) as Record<(typeof INSTRUMENT_ACTIONS)[number], z.ZodBoolean>);
-export type InstrumentAbilities = z.infer<typeof instrumentAbilities>;
 
-/** A fault someone reported on an instrument. */
-export const faultDto = z.object({ id: z.number(), note: z.string(), reportedAt: z.string(), reportedBy: z.string().nullable() });
-export type FaultDto = z.infer<typeof faultDto>;
+/** A fault report anyone signed in may send (POST /api/instruments/:id/faults). */
+export const reportFaultInput = z.object({ note: z.string().trim().min(3, "Describe the fault in a few words").max(1000) });
+export type ReportFaultInput = z.infer<typeof reportFaultInput>;
 
 export const closeFaultInput = z.object({ resolution: z.string().trim().min(3, "Say what was done").max(1000) });
+export type CloseFaultInput = z.infer<typeof closeFaultInput>;
+export const faultParams = z.object({ id: id(), faultId: id() });
+
+/** A fault report as stored, open or closed with what was done. */
+export const faultReportDto = faultDto.extend({ closedAt: z.string().nullable(), closedBy: z.string().nullable(), resolution: z.string() });
+export type FaultReportDto = z.infer<typeof faultReportDto>;

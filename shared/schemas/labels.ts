@@ -11,6 +11,7 @@ import { isLabelTokenShape, MAX_LABELS_PER_REQUEST } from "../domain/labels";
 import { id, wholeNumber } from "./common";
 import { containerAbilities } from "./stock";
 import { faultDto, instrumentAbilities } from "./instruments";
+import { bookingAbilities } from "./bookings";
 
 export const labelTokenParam = z.object({
   labelToken: z.string().refine(isLabelTokenShape, "A label code is 22 to 64 letters, digits, '-' or '_'."),
@@ -106,6 +107,8 @@ export const scanBookingDto = z.object({
   who: z.string().nullable(),
   checkedInAt: z.string().nullable(),
   checkedOutAt: z.string().nullable(),
+  /** What the scanner may do to it (check in, check out…), from the Schedule's booking policy. */
+  abilities: bookingAbilities,
 });
 export type ScanBookingDto = z.infer<typeof scanBookingDto>;
 
@@ -170,8 +173,8 @@ export type DisposeInput = z.infer<typeof disposeInput>;
 export const cleanedInput = z.object({ note: note("cleaning", false) });
 export type CleanedInput = z.infer<typeof cleanedInput>;
 
-export const reportFaultInput = z.object({ note: note("fault", true) });
-export type ReportFaultInput = z.infer<typeof reportFaultInput>;
+/** One fault report form for the Scan page and the instrument page. */
+export { reportFaultInput, type ReportFaultInput } from "./instruments";
 
 /** Client route of each record type (kept here so server answers and client links agree). */
 export function recordPath(type: LabelledTypeName, id: number): string {

@@ -1,4 +1,11 @@
 import { z } from "zod";
+import { id } from "./common";
+
+const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Give a month as YYYY-MM");
+
+/** GET /api/reports/utilisation(.csv)?from=YYYY-MM&to=YYYY-MM&instrumentId= */
+export const utilisationQuery = z.object({ from: month, to: month, instrumentId: id().optional() });
+export type UtilisationQuery = z.infer<typeof utilisationQuery>;
 
 /** One instrument's month in the utilisation report (GET /api/reports/utilisation). */
 export const utilisationRow = z.object({
@@ -13,5 +20,5 @@ export const utilisationRow = z.object({
 });
 export type UtilisationRow = z.infer<typeof utilisationRow>;
 
-export const utilisationReport = z.object({ items: z.array(utilisationRow), tz: z.string() });
+export const utilisationReport = z.object({ items: z.array(utilisationRow), total: z.number().int(), tz: z.string() });
 export type UtilisationReport = z.infer<typeof utilisationReport>;

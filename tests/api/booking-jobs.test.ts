@@ -4,7 +4,7 @@ import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
 import { makeAccount, makeInstrument, train } from "../support/schedule-factories";
-import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "../../server/jobs/booking-jobs";
+import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "../../server/modules/schedule";
 import type { User } from "../../server/entities";
 
 let t: TestApp;

@@ -7,7 +7,6 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Validator } from "@seriousme/openapi-schema-validator";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
-import { LEGACY_MATRIX } from "../support/role-matrix";
 
 let t: TestApp;
 let doc: { openapi: string; paths: Record<string, Record<string, { "x-access": unknown; responses: Record<string, unknown> }>> };
@@ -36,7 +35,7 @@ describe("GET /api/openapi.json", () => {
   });
 
   it("lists every route the app mounts, each saying who may call it", () => {
-    const described = mountedOutsideLegacy().map(asOpenApi);
+    const described = t.routes.map(asOpenApi);
     for (const { method, path } of described) {
       expect(doc.paths[path]?.[method], `${method.toUpperCase()} ${path}`).toBeDefined();
       expect(doc.paths[path][method]["x-access"]).toBeDefined();
@@ -50,7 +49,3 @@ describe("GET /api/openapi.json", () => {
     expect(Object.keys(login.responses)).toEqual(expect.arrayContaining(["200", "400", "401", "403", "404", "409", "422"]));
   });
 });
-
-function mountedOutsideLegacy(): string[] {
-  return t.routes.filter((r) => !(r in LEGACY_MATRIX));
-}

@@ -2,14 +2,14 @@
  * Every API route × every role: allowed (anything but 401/403), or 401 for nobody signed in and
  * 403 for a role that may not. Who may is read from the routes' own declarations (the route
  * tables the app is built from); the contract's published "who" column is checked against those
- * declarations, and routes not yet declared in a table keep a hand-kept row.
+ * declarations.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ROLES, type Role } from "@shared/schemas/auth";
 import { startTestApp, type TestApp } from "../support/test-app";
 import { ApiClient } from "../support/http-client";
 import { makeUser, TEST_PASSWORD } from "../support/factories";
-import { CONTRACT_ACCESS, LEGACY_MATRIX, PUBLIC, SIGNED_IN, examplePath, type Who } from "../support/role-matrix";
+import { CONTRACT_ACCESS, PUBLIC, SIGNED_IN, examplePath, type Who } from "../support/role-matrix";
 import { routeKey, type Access } from "../../server/http/route-table";
 
 let t: TestApp;
@@ -23,7 +23,7 @@ const declared = new Map(probe.tables.flatMap((table) => table.routes.map((r) =>
 const mounted = [...probe.routes];
 await probe.close();
 
-const matrix: Record<string, Who> = { ...LEGACY_MATRIX, ...Object.fromEntries(declared) };
+const matrix: Record<string, Who> = Object.fromEntries(declared);
 
 beforeAll(async () => {
   t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
@@ -40,12 +40,8 @@ afterAll(async () => {
 });
 
 describe("the role matrix", () => {
-  it("covers every mounted route, and no route the app lacks", () => {
+  it("covers every mounted route: each is declared in a route table", () => {
     expect([...mounted].sort()).toEqual(Object.keys(matrix).sort());
-  });
-
-  it("keeps no hand-kept row for a route that declares its own access", () => {
-    expect(Object.keys(LEGACY_MATRIX).filter((k) => declared.has(k))).toEqual([]);
   });
 
   it("declares what the published contract says of who may call its routes", () => {

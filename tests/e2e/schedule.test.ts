@@ -228,6 +228,46 @@ describe("the manager's Schedule screens", () => {
   });
 });
 
+describe("fault reports on the instrument page", () => {
+  it("lets the external customer report a fault without service controls, and the manager close it", async () => {
+    const managerApi = new ApiClient(server.url);
+    await managerApi.login(MANAGER, "phasebook-demo");
+    const made = await managerApi.post("/api/instruments", { name: `Fault-test cell ${Date.now()}`, kind: "interface_cell" });
+    expect(made.status).toBe(201);
+    const id = made.body.instrument.id as number;
+
+    // Anyone signed in reports; only the manager's page offers closing and the service controls.
+    const buyer = await newPage();
+    await signIn(buyer, server.url, "buyer@tidewater.example");
+    await buyer.goto(`${server.url}/instruments/${id}`);
+    const form = buyer.locator('[data-testid="report-fault-form"]');
+    await form.waitFor();
+    expect(await buyer.locator('[data-testid="service-status-controls"]').count()).toBe(0);
+    expect(await buyer.locator('[data-testid="retire-instrument"]').count()).toBe(0);
+    await form.locator("textarea").fill("Luggin capillary tip is chipped");
+    await form.getByRole("button", { name: "Report the fault" }).click();
+    await expect.poll(() => buyer.getByText("Reported. The manager has been told.").count()).toBeGreaterThan(0);
+    await expect.poll(() => buyer.locator('[data-testid="instrument-faults"]').getByText("Luggin capillary tip is chipped").count()).toBe(1);
+    expect(await buyer.getByRole("button", { name: "Close…" }).count()).toBe(0);
+    expect((await managerApi.get(`/api/instruments/${id}`)).body.instrument.status).toBe("in_service");
+    await buyer.context().close();
+
+    const page = await newPage();
+    await signIn(page, server.url, MANAGER);
+    await page.goto(`${server.url}/instruments/${id}`);
+    await page.locator('[data-testid="service-status-controls"]').waitFor();
+    await page.getByRole("button", { name: "Close…" }).click();
+    const close = page.locator('form[data-testid^="close-fault-form-"]');
+    await close.locator("textarea").fill("Replaced the capillary");
+    await close.getByRole("button", { name: "Close the report" }).click();
+    await expect.poll(() => page.getByText("No open fault reports.").count()).toBe(1);
+    await page.click('[data-testid="take-out-of-service"]');
+    await expect.poll(async () => (await managerApi.get(`/api/instruments/${id}`)).body.instrument.status).toBe("under_maintenance");
+    await page.locator('[data-testid="return-to-service"]').waitFor();
+    await page.context().close();
+  });
+});
+
 describe("the manager's training screens", () => {
   it("counts open training requests on the start page and revokes training through a dialog that asks why", async () => {
     const managerApi = new ApiClient(server.url);

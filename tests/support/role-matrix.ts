@@ -46,35 +46,6 @@ export const CONTRACT_ACCESS: Record<string, Who> = {
   "POST /api/webhooks/stripe": PUBLIC,
 };
 
-/** Routes still served by hand-written routers (no declaration to read yet). */
-export const LEGACY_MATRIX: Record<string, Who> = {
-  "GET /api/instruments": SIGNED_IN,
-  "GET /api/instruments/:id": SIGNED_IN,
-  "POST /api/instruments": ["manager"],
-  "PATCH /api/instruments/:id": ["manager"],
-  "GET /api/bookings": SIGNED_IN,
-  "POST /api/bookings": ["member", "manager"],
-  "GET /api/bookings/policy": SIGNED_IN,
-  "PUT /api/bookings/policy": ["manager"],
-  "GET /api/bookings/:id.ics": SIGNED_IN,
-  "GET /api/bookings/:id": SIGNED_IN,
-  "PATCH /api/bookings/:id": SIGNED_IN,
-  "POST /api/bookings/:id/approve": ["manager"],
-  "POST /api/bookings/:id/decline": ["manager"],
-  "POST /api/bookings/:id/cancel": SIGNED_IN,
-  "POST /api/bookings/:id/check-in": SIGNED_IN,
-  "POST /api/bookings/:id/check-out": SIGNED_IN,
-  "POST /api/bookings/:id/no-show": ["manager"],
-  "GET /api/setups": SIGNED_IN,
-  "POST /api/setups": ["manager"],
-  "PUT /api/setups/:id": ["manager"],
-  "DELETE /api/setups/:id": ["manager"],
-  "GET /api/calendar/me": SIGNED_IN,
-  "POST /api/calendar/me/rotate": SIGNED_IN,
-  "GET /api/calendar/:token.ics": PUBLIC,
-  "GET /api/reports/utilisation": ["manager"],
-  "GET /api/reports/utilisation.csv": ["manager"],
-};
 
 /** A concrete path for a route pattern: ids that need not exist (404 still proves the role got through). */
 export function examplePath(pattern: string): string {

@@ -7,13 +7,14 @@ import type { DataSource } from "typeorm";
 import { handlingCautions } from "@shared/domain/cautions";
 import { isLabelTokenShape } from "@shared/domain/labels";
 import { pictogramsFor, signalWordFor, type GhsPictogram } from "@shared/domain/hazards";
+import type { BookingStatus } from "@shared/schemas/bookings";
 import { recordPath, type LabelledTypeName, type ScanBookingDto, type ScanContainerRecord, type ScanInstrumentRecord, type ScanResultDto } from "@shared/schemas/labels";
 import { AuditEntry, Chemical, Container, Instrument, LabelHistory } from "../../entities";
 import { AppError, NotFound } from "../../errors";
-import { hasRole, type AuthUser } from "../../middleware/auth";
+import type { AuthUser } from "../../middleware/auth";
 import type { Deps } from "../../core/deps";
 import { allLocations, containerPolicy, locationPaths, presentChemical } from "../stockroom";
-import { instrumentPolicy, openFaults } from "../schedule";
+import { bookingPolicy, instrumentPolicy, openFaults, readBookingSettings, seesInFull } from "../schedule";
 
 /**
  * A retired token opens nothing: 404 as the contract has it for a token that leads nowhere, with
@@ -76,7 +77,7 @@ async function containerRecord(ds: DataSource, user: AuthUser, c: Container): Pr
 
 async function bookingsOf(deps: Deps, user: AuthUser, instrumentId: number): Promise<{ current: ScanBookingDto | null; next: ScanBookingDto | null }> {
   const t = deps.now().getTime();
-  const rows: { id: number; userId: number; status: string; startsAt: string; endsAt: string; startMs: number; endMs: number; checkedInAt: string | null; checkedOutAt: string | null; userName: string }[] =
+  const rows: { id: number; userId: number; status: BookingStatus; startsAt: string; endsAt: string; startMs: number; endMs: number; checkedInAt: string | null; checkedOutAt: string | null; userName: string }[] =
     await deps.ds.query(
       `SELECT b.id, b.userId, b.status, b.startsAt, b.endsAt, b.startMs, b.endMs, b.checkedInAt, b.checkedOutAt, u.name AS userName
          FROM bookings b JOIN booking_instruments bi ON bi.bookingId = b.id JOIN users u ON u.id = b.userId
@@ -84,18 +85,22 @@ async function bookingsOf(deps: Deps, user: AuthUser, instrumentId: number): Pro
         ORDER BY b.startMs LIMIT 5`,
       [instrumentId, t, ...ACTIVE_BOOKING],
     );
-  const seesNames = hasRole(user, "manager", "admin");
+  const { checkInEarlyMinutes } = readBookingSettings(deps.ds);
   const dto = (b: (typeof rows)[number]): ScanBookingDto => {
     const mine = b.userId === user.id;
+    // Who booked it, and when they checked in, as the Schedule shows it: the booking policy's rule.
+    const full = seesInFull(user, b);
     return {
-      id: mine || seesNames ? b.id : null,
+      id: full ? b.id : null,
       start: b.startsAt,
       end: b.endsAt,
       status: b.status,
       mine,
-      who: mine || seesNames ? b.userName : null,
-      checkedInAt: mine || seesNames ? b.checkedInAt : null,
-      checkedOutAt: mine || seesNames ? b.checkedOutAt : null,
+      who: full ? b.userName : null,
+      checkedInAt: full ? b.checkedInAt : null,
+      checkedOutAt: full ? b.checkedOutAt : null,
+      // The Schedule's booking policy says what the scanner may do (check in, check out…).
+      abilities: bookingPolicy.abilities(user, { booking: b, nowMs: t, checkInEarlyMinutes }),
     };
   };
   const current = rows.find((b) => b.startMs <= t && b.status !== "requested");

@@ -74,19 +74,3 @@ export async function recordCleaned(deps: Deps, actor: AuthUser, id: number, not
     await audit(em, deps.now(), actor.id, "instrument.cleaned", "instrument", id, { note });
   });
 }
-
-export interface FaultRow {
-  id: number;
-  note: string;
-  reportedAt: string;
-  reportedBy: string | null;
-}
-
-/** Open fault reports of an instrument, newest first. */
-export async function openFaults(em: EntityManager, instrumentId: number): Promise<FaultRow[]> {
-  return (await em.query(
-    `SELECT f.id, f.note, f.reportedAt, u.name AS reportedBy FROM instrument_faults f LEFT JOIN users u ON u.id = f.reportedById
-      WHERE f.instrumentId = ? AND f.closedAt IS NULL ORDER BY f.reportedAt DESC, f.id DESC`,
-    [instrumentId],
-  )) as FaultRow[];
-}

@@ -1,6 +1,7 @@
 /**
- * One instrument's page: its rules, its upcoming bookings and history, and, for managers, the
- * rules form and who is trained; members can ask for training here.
+ * One instrument's page: its rules, open fault reports (anyone may report one), its upcoming
+ * bookings and history; the status and rules controls where the server's instrument policy
+ * allows them (`abilities`), who is trained for managers; members can ask for training here.
  */
 import { useMemo, useState } from "react";
 import { Link, useParams } from "react-router-dom";
@@ -14,6 +15,8 @@ import { formatDate, formatSpan } from "@/lib/format";
 import { useInstrument } from "@/features/instruments/api/instrument";
 import { InstrumentRulesForm } from "@/features/instruments/components/instrument-rules-form";
 import { RetireInstrumentButton } from "@/features/instruments/components/retire-instrument-dialog";
+import { InstrumentFaults } from "@/features/instruments/components/instrument-faults";
+import { ServiceStatusControls } from "@/features/instruments/components/service-status-controls";
 import { useBookings } from "@/features/schedule/api/get-bookings";
 import { StatusBadge } from "@/features/schedule/components/booking-status";
 import { useRequestTraining, useTrainingRecords } from "@/features/training/api/training";
@@ -96,7 +99,7 @@ export function InstrumentRoute() {
       <PageHeader title={i.name} description={i.description} actions={
           <div className="flex items-center gap-3">
             <Link to={paths.schedule.getHref()}>Open the Schedule</Link>
-            {manager && <RetireInstrumentButton instrument={i} />}
+            {i.abilities.edit && <RetireInstrumentButton instrument={i} />}
           </div>
         }
       />
@@ -104,6 +107,12 @@ export function InstrumentRoute() {
         <Card title="Booking rules">
           <Rules i={i} />
         </Card>
+        {(i.abilities.takeOutOfService || i.abilities.returnToService) && (
+          <Card title="Service">
+            <ServiceStatusControls instrument={i} />
+          </Card>
+        )}
+        <InstrumentFaults instrument={i} zone={zone} />
         {!manager && i.trainingRequired && (
           <Card title="Your training">
             {mine && mine.state !== "none" ? (
@@ -130,7 +139,7 @@ export function InstrumentRoute() {
             {askMsg && <Alert tone={askMsg.tone} className="mt-2">{askMsg.text}</Alert>}
           </Card>
         )}
-        {manager && (
+        {i.abilities.edit && (
           <Card title="Edit status and rules">
             <InstrumentRulesForm key={JSON.stringify(i)} instrument={i} />
           </Card>

@@ -3,7 +3,7 @@ import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { Card } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
-import { BookingPolicyForm } from "@/features/schedule/components/booking-policy-form";
+import { BookingSettingsForm } from "@/features/schedule/components/booking-settings-form";
 import { SetupsEditor } from "@/features/schedule/components/setups-editor";
 import { useInstruments } from "@/features/instruments/api/get-instruments";
 import { LoadingLine } from "@/components/ui/spinner";
@@ -19,7 +19,7 @@ export function ScheduleSettingsRoute() {
       />
       <div className="flex flex-col gap-4">
         <Card title="Booking policy">
-          <BookingPolicyForm />
+          <BookingSettingsForm />
         </Card>
         <Card title="Setups" description="Named sets of instruments that are booked together, offered in the booking form and the Schedule's filter.">
           {instruments.isPending ? <LoadingLine label="Loading instruments" /> : <SetupsEditor instruments={instruments.data?.items ?? []} />}

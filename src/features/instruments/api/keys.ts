@@ -5,4 +5,5 @@ export const instrumentKeys = {
   all: ["instruments"] as const,
   lists: () => [...instrumentKeys.all, "list"] as const,
   list: (q: Partial<InstrumentListQuery>) => [...instrumentKeys.lists(), q] as const,
+  detail: (id: number) => [...instrumentKeys.all, "detail", id] as const,
 };

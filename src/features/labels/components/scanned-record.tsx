@@ -305,8 +305,9 @@ function BookingLine({ label, booking }: { label: string; booking: ScanBookingDt
       setError(actionError(e, kind === "check-in" ? "Checking in" : "Checking out"));
     }
   };
-  const canCheckIn = booking.mine && booking.id !== null && !booking.checkedInAt && booking.status === "confirmed";
-  const canCheckOut = booking.mine && booking.id !== null && Boolean(booking.checkedInAt) && !booking.checkedOutAt;
+  // What the server's booking policy lets this person do to it now.
+  const canCheckIn = booking.id !== null && booking.abilities.checkIn;
+  const canCheckOut = booking.id !== null && booking.abilities.checkOut;
   return (
     <div className="flex flex-col gap-1 text-sm">
       <p>

@@ -4,13 +4,12 @@
  * and the start page, the narrowest keys that show a booking.
  */
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { z } from "zod";
-import { bookingDto, busyBlockDto, type CreateBookingInput, type MoveBookingInput } from "@shared/schemas/bookings";
+import { madeBookingsDto, oneBookingDto, type CreateBookingInput, type MoveBookingInput } from "@shared/schemas/bookings";
 import { api, parseResponse } from "@/lib/api-client";
 import { bookingKeys } from "./keys";
 
-const one = z.object({ booking: z.union([bookingDto, busyBlockDto]) });
-const made = z.object({ booking: bookingDto, bookings: z.array(bookingDto) });
+const one = oneBookingDto;
+const made = madeBookingsDto;
 
 function useInvalidate() {
   const queryClient = useQueryClient();

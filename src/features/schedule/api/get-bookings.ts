@@ -1,11 +1,12 @@
 /** GET /api/bookings: bookings overlapping a window (others' as busy blocks), or the caller's own. */
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
-import { z } from "zod";
-import { bookingDto, busyBlockDto } from "@shared/schemas/bookings";
+import type { z } from "zod";
+import { bookingListItem } from "@shared/schemas/bookings";
+import { pageOf } from "@shared/schemas/common";
 import { api, parseResponse } from "@/lib/api-client";
 import { bookingKeys, type BookingQuery } from "./keys";
 
-const bookingPage = z.object({ items: z.array(z.union([bookingDto, busyBlockDto])), total: z.number() });
+const bookingPage = pageOf(bookingListItem);
 export type BookingPage = z.infer<typeof bookingPage>;
 
 export async function getBookings(q: BookingQuery, signal?: AbortSignal): Promise<BookingPage> {

@@ -7,7 +7,7 @@ export const bookingKeys = {
   all: ["bookings"] as const,
   lists: () => [...bookingKeys.all, "list"] as const,
   list: (q: BookingQuery) => [...bookingKeys.lists(), q] as const,
-  policy: () => [...bookingKeys.all, "policy"] as const,
+  settings: () => [...bookingKeys.all, "settings"] as const,
 };
 
 export const scheduleKeys = {

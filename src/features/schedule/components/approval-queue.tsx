@@ -1,5 +1,7 @@
 /**
- * The manager's approval queue: requests waiting for a decision, oldest start first. Approving
+ * The manager's approval queue: requests waiting for a decision, oldest start first, with the
+ * decisions the server's booking policy allows on each (a request already over can only be
+ * declined). Approving
  * re-checks the Schedule on the server (a 409 is shown in words); declining needs a reason,
  * which the member receives by e-mail. Times are on the facility's clock; the route passes the
  * zone and the instruments' names in.
@@ -81,12 +83,16 @@ export function ApprovalQueue({ names, zone }: { names: ReadonlyMap<number, stri
                     </div>
                   ) : (
                     <div className="flex justify-end gap-2">
-                      <Button variant="primary" size="sm" loading={action.isPending} onClick={() => act(b, "approve")} data-testid={`approve-${b.id}`}>
-                        Approve
-                      </Button>
-                      <Button size="sm" onClick={() => setDeclining(b.id)}>
-                        Decline…
-                      </Button>
+                      {b.abilities.approve && (
+                        <Button variant="primary" size="sm" loading={action.isPending} onClick={() => act(b, "approve")} data-testid={`approve-${b.id}`}>
+                          Approve
+                        </Button>
+                      )}
+                      {b.abilities.decline && (
+                        <Button size="sm" onClick={() => setDeclining(b.id)}>
+                          Decline…
+                        </Button>
+                      )}
                     </div>
                   )}
                 </Td>

@@ -1,6 +1,6 @@
 /**
- * My bookings: upcoming and past, with the one or two actions that fit each (check in, check
- * out, cancel), a per-booking .ics, and the personal calendar feed with its rotation. Times are on
+ * My bookings: upcoming and past, with the actions the server's booking policy allows on each
+ * (`abilities`: check in, check out, cancel), a per-booking .ics, and the personal calendar feed with its rotation. Times are on
  * the facility's clock; the route passes the zone and the instruments' names in.
  */
 import { useState } from "react";
@@ -16,17 +16,16 @@ import { TBody, THead, Table, Td, Th, Tr } from "@/components/ui/table";
 import { useBookings } from "../api/get-bookings";
 import { useBookingAction, type BookingAction } from "../api/booking-actions";
 import { useCalendarFeed, useRotateCalendarFeed } from "../api/calendar-feed";
-import { useBookingPolicy } from "../api/booking-policy";
+import { useBookingSettings } from "../api/booking-settings";
 import { useConfirm } from "@/components/ui/confirm-dialog";
 import { StatusBadge } from "./booking-status";
 
-function actionsFor(b: BookingDto, now: number): { action: BookingAction; label: string }[] {
-  const start = new Date(b.start).getTime();
-  const end = new Date(b.end).getTime();
+/** The buttons a booking offers: only what the server said this person may do to it now. */
+function actionsFor(b: BookingDto): { action: BookingAction; label: string }[] {
   const out: { action: BookingAction; label: string }[] = [];
-  if (b.status === "confirmed" && now >= start - 15 * 60_000 && now < end) out.push({ action: "check-in", label: "Check in" });
-  if (b.status === "in_progress") out.push({ action: "check-out", label: "Check out" });
-  if ((b.status === "requested" || b.status === "confirmed") && now < start) out.push({ action: "cancel", label: "Cancel" });
+  if (b.abilities.checkIn) out.push({ action: "check-in", label: "Check in" });
+  if (b.abilities.checkOut) out.push({ action: "check-out", label: "Check out" });
+  if (b.abilities.cancel) out.push({ action: "cancel", label: "Cancel" });
   return out;
 }
 
@@ -37,14 +36,14 @@ export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>
   const list = useBookings(tab === "upcoming" ? { mine: true, from: iso, limit: 200 } : { mine: true, to: iso, limit: 200 });
   const action = useBookingAction();
   const [message, setMessage] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
-  const policy = useBookingPolicy();
+  const settings = useBookingSettings();
   const [confirmation, confirm] = useConfirm();
   const items = (list.data?.items ?? []).filter((b): b is BookingDto => !b.busy);
   const sorted = tab === "upcoming" ? [...items].sort((a, b) => a.start.localeCompare(b.start)) : [...items].sort((a, b) => b.start.localeCompare(a.start));
 
   const run = async (b: BookingDto, a: BookingAction, label: string) => {
     if (a === "cancel") {
-      const lateHours = policy.data?.lateCancelHours;
+      const lateHours = settings.data?.lateCancelHours;
       const late = lateHours !== undefined && new Date(b.start).getTime() - Date.now() < lateHours * 3_600_000;
       const sure = await confirm({
         title: "Cancel this booking?",
@@ -117,7 +116,7 @@ export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>
                 </Td>
                 <Td className="text-right">
                   <div className="flex justify-end gap-2">
-                    {actionsFor(b, now).map((a) => (
+                    {actionsFor(b).map((a) => (
                       <Button key={a.action} size="sm" variant={a.action === "cancel" ? "secondary" : "primary"} onClick={() => run(b, a.action, a.label)}>
                         {a.label}
                       </Button>

@@ -1,8 +1,8 @@
 /**
  * The Schedule: FullCalendar week/day time grids and a month grid over the bookings of the
- * visible range. Selecting a free range opens the booking form; your own bookings that have not
- * started can be dragged or resized (the server re-checks everything and a refusal puts the
- * block back). Every block says its state in words. The grid runs on the facility's clock (the
+ * visible range. Selecting a free range opens the booking form; the bookings the server says you
+ * may move (your own that have not started; any, for the manager) can be dragged or resized
+ * (the server re-checks everything and a refusal puts the block back). Every block says its state in words. The grid runs on the facility's clock (the
  * luxon plugin gives FullCalendar named zones), so someone abroad sees and selects the same local
  * hours the instruments are bookable; the route passes the zone and the instruments in.
  */
@@ -28,11 +28,12 @@ import { BLOCK_COLOURS, StatusLegend } from "./booking-status";
 
 const SHOWN = "requested,confirmed,in_progress,completed,no_show";
 
-function eventFor(b: BookingListItem, names: Map<number, string>, now: number): EventInput {
+function eventFor(b: BookingListItem, names: Map<number, string>): EventInput {
   const colours = BLOCK_COLOURS[b.busy ? "busy" : b.status];
   const what = b.instrumentIds.map((id) => names.get(id) ?? `#${id}`).join(" + ");
   const state = BOOKING_STATUS_LABELS[b.status];
-  const editable = !b.busy && b.mine && (b.status === "requested" || b.status === "confirmed") && new Date(b.start).getTime() > now;
+  // Draggable only where the server's booking policy lets this person move it.
+  const editable = !b.busy && b.abilities.move;
   return {
     id: String(b.id),
     start: b.start,
@@ -68,10 +69,8 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   }, [all, kind, setup, instrumentId]);
 
   const bookings = useBookings({ from: range?.from, to: range?.to, instrumentId: instrumentId ? Number(instrumentId) : undefined, status: SHOWN }, range !== null);
-  const now = Date.now();
   const events = useMemo(
-    () => (bookings.data?.items ?? []).filter((b) => b.instrumentIds.some((id) => visibleIds.has(id))).map((b) => eventFor(b, names, now)),
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    () => (bookings.data?.items ?? []).filter((b) => b.instrumentIds.some((id) => visibleIds.has(id))).map((b) => eventFor(b, names)),
     [bookings.data, visibleIds, names],
   );
 

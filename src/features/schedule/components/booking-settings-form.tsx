@@ -1,32 +1,32 @@
 /**
- * The manager's booking policy: how late a cancellation counts as late (and may be charged), how
+ * The manager's booking settings (shown as the facility's "booking policy"): how late a cancellation counts as late (and may be charged), how
  * long after the start a booking nobody checked in to becomes a no-show, and how early check-in
  * opens. One setting for the whole facility, validated with the shared schema.
  */
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { bookingPolicy, type BookingPolicy } from "@shared/schemas/bookings";
+import { bookingSettings, type BookingSettings } from "@shared/schemas/bookings";
 import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
 import { LoadingLine } from "@/components/ui/spinner";
-import { useBookingPolicy, useSaveBookingPolicy } from "../api/booking-policy";
+import { useBookingSettings, useSaveBookingSettings } from "../api/booking-settings";
 
 const FIELDS = ["lateCancelHours", "noShowGraceMinutes", "checkInEarlyMinutes"] as const;
 
-export function BookingPolicyForm() {
-  const policy = useBookingPolicy();
-  if (policy.isPending) return <LoadingLine label="Loading the booking policy" />;
-  if (policy.isError) return <Alert tone="danger">{describeError(policy.error)}</Alert>;
-  return <PolicyFormBody initial={policy.data} />;
+export function BookingSettingsForm() {
+  const settings = useBookingSettings();
+  if (settings.isPending) return <LoadingLine label="Loading the booking policy" />;
+  if (settings.isError) return <Alert tone="danger">{describeError(settings.error)}</Alert>;
+  return <SettingsFormBody initial={settings.data} />;
 }
 
-function PolicyFormBody({ initial }: { initial: BookingPolicy }) {
-  const save = useSaveBookingPolicy();
+function SettingsFormBody({ initial }: { initial: BookingSettings }) {
+  const save = useSaveBookingSettings();
   const [msg, setMsg] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm({ resolver: zodResolver(bookingPolicy), mode: "onTouched", defaultValues: initial });
+  const { register, handleSubmit, setError, formState } = useForm({ resolver: zodResolver(bookingSettings), mode: "onTouched", defaultValues: initial });
   const errors = formState.errors;
 
   const onSubmit = handleSubmit(async (values) => {

@@ -8,7 +8,7 @@ import type { BookableHours } from "@shared/domain/booking-rules";
 import { monthRange, utilisation } from "@shared/domain/utilisation";
 import type { BookingStatus } from "@shared/domain/intervals";
 import type { UtilisationRow } from "@shared/schemas/reports";
-import { MAX_BOOKING_MS } from "./booking.service";
+import { MAX_BOOKING_MS } from "./booking.queries";
 
 export type { UtilisationRow };
 

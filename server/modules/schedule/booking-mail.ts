@@ -3,7 +3,7 @@
  * the outbox; times are written in the facility's time zone, with the zone named.
  */
 import { DateTime } from "luxon";
-import type { MailMessage } from "../core/outbox";
+import type { MailMessage } from "../../core/outbox";
 
 export interface MailBooking {
   id: number;

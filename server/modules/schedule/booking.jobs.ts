@@ -5,13 +5,13 @@
  * second run (or a restart) sends nothing twice.
  */
 import type { DataSource } from "typeorm";
-import type { Config } from "../config";
-import { serialTransaction } from "../db/serial";
-import { Booking, TrainingRecord } from "../entities";
-import { enqueueMail } from "../core/outbox";
-import { createBookingService } from "../services/booking.service";
-import { readBookingPolicy } from "../services/booking-policy";
-import { reminderMail, trainingExpiringMail } from "../services/booking-mail";
+import type { Config } from "../../config";
+import { serialTransaction } from "../../db/serial";
+import { Booking, TrainingRecord } from "../../entities";
+import { enqueueMail } from "../../core/outbox";
+import { recordNoShow } from "./booking.commands";
+import { readBookingSettings } from "./booking-settings";
+import { reminderMail, trainingExpiringMail } from "./booking-mail";
 
 type Cfg = Pick<Config, "FACILITY_TZ" | "PUBLIC_URL">;
 const HOUR_MS = 3_600_000;
@@ -37,18 +37,18 @@ export async function sendBookingReminders(ds: DataSource, now: Date, config: Cf
 
 /** Confirmed bookings nobody checked in to within the grace period become no-shows. */
 export async function markNoShows(ds: DataSource, now: Date, config: Cfg): Promise<number> {
-  const policy = await readBookingPolicy(ds.manager);
-  const cutoff = now.getTime() - policy.noShowGraceMinutes * 60_000;
+  const settings = readBookingSettings(ds);
+  const cutoff = now.getTime() - settings.noShowGraceMinutes * 60_000;
   const due: { id: number }[] = await ds.query(
     `SELECT id FROM bookings WHERE status = 'confirmed' AND checkedInAt IS NULL AND startMs <= ? ORDER BY startMs LIMIT 200`,
     [cutoff],
   );
-  const bookings = createBookingService({ ds, now: () => now, config });
+  const deps = { ds, now: () => now, config };
   let marked = 0;
   for (const { id } of due) {
-    // The service re-checks the state inside its own transaction: a check-in that just landed wins.
+    // The command re-checks the state inside its own transaction: a check-in that just landed wins.
     try {
-      await bookings.noShow(null, id);
+      await recordNoShow(deps, null, id);
       marked++;
     } catch {
       /* state changed meanwhile */
