@@ -12,6 +12,7 @@ import { runStockAlerts } from "../modules/safety";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "./booking-jobs";
 import { processDueInvoices } from "../services/invoicing.service";
 import { mailDueStatements } from "../services/billing.service";
+import { runNightlyBackup } from "../ops/nightly-backup";
 
 export interface JobDeps {
   ds: DataSource;
@@ -54,6 +55,12 @@ export const jobs: Job[] = [
     name: "mail-statements",
     everyMs: 15_000,
     run: (d) => mailDueStatements(d.ds, () => d.clock.now(), { limit: 20, tz: d.config.FACILITY_TZ, facility: d.config.FACILITY_NAME }),
+  },
+  {
+    // Production with BACKUP_DIR: one dated backup folder a night, BACKUP_KEEP days kept (ops/nightly-backup.ts).
+    name: "nightly-backup",
+    everyMs: 15 * 60_000,
+    run: (d) => (d.config.NODE_ENV === "production" ? runNightlyBackup({ ds: d.ds, now: () => d.clock.now(), config: d.config }) : Promise.resolve(null)),
   },
 ];
 
