@@ -137,8 +137,16 @@ async function main(): Promise<void> {
     await closeAll();
     process.exit(0);
   };
-  process.once("SIGINT", () => void stop());
-  process.once("SIGTERM", () => void stop());
+  // A Ctrl-C reaches both this process and the launcher that forwards it (scripts/start.mjs):
+  // the second signal must not cut the first one's clean stop short.
+  let stopping = false;
+  const onSignal = () => {
+    if (stopping) return;
+    stopping = true;
+    void stop();
+  };
+  process.on("SIGINT", onSignal);
+  process.on("SIGTERM", onSignal);
 }
 
 function startupReport(
