@@ -37,7 +37,7 @@ export const BOUNDARY_RULES = {
 };
 
 export default tseslint.config(
-  { ignores: ["dist/**", "node_modules/**", "data/**", "public/**", ".tmp/**", "coverage/**", "tests/fixtures/**"] },
+  { ignores: ["dist/**", "dist-server/**", "node_modules/**", "data/**", "public/**", ".tmp/**", "coverage/**", "tests/fixtures/**"] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

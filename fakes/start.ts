@@ -36,6 +36,18 @@ export interface Fakes {
 /** Used when no secret is configured; it only ever signs events from this local fake. */
 export const LOCAL_WEBHOOK_SECRET = "whsec_phasebook_local_fake_payments_secret";
 
+/** A fake could not listen because its port is taken; names the variable that moves it. */
+export class FakePortInUse extends Error {
+  constructor(
+    readonly port: number,
+    readonly variable: "FAKE_SMTP_PORT" | "FAKE_MAILBOX_HTTP_PORT" | "FAKE_PAYMENTS_PORT",
+  ) {
+    super(`Port ${port} (${variable}) is already in use; set ${variable} to a free port or stop the program that holds it.`);
+  }
+}
+
+const inUse = (e: unknown) => (e as NodeJS.ErrnoException | undefined)?.code === "EADDRINUSE";
+
 function portFrom(value: string | undefined, fallback: number, name: string): number {
   if (value === undefined || value === "") return fallback;
   const n = Number(value);
@@ -50,17 +62,22 @@ export async function startFakes(opts: StartFakesOptions = {}): Promise<Fakes> {
   const appPort = env.API_PORT ?? env.PORT ?? "3000";
   const webhookSecret = opts.webhookSecret ?? env.STRIPE_WEBHOOK_SECRET ?? LOCAL_WEBHOOK_SECRET;
 
-  const mailbox = await startFakeMailbox({
-    host,
-    smtpPort: opts.smtpPort ?? portFrom(env.FAKE_SMTP_PORT, 2525, "FAKE_SMTP_PORT"),
-    httpPort: opts.mailboxHttpPort ?? portFrom(env.FAKE_MAILBOX_HTTP_PORT, 2580, "FAKE_MAILBOX_HTTP_PORT"),
-    storePath: path.join(dataDir, "mailbox.json"),
-  });
+  const smtpPort = opts.smtpPort ?? portFrom(env.FAKE_SMTP_PORT, 2525, "FAKE_SMTP_PORT");
+  const mailboxHttpPort = opts.mailboxHttpPort ?? portFrom(env.FAKE_MAILBOX_HTTP_PORT, 2580, "FAKE_MAILBOX_HTTP_PORT");
+  const paymentsPort = opts.paymentsPort ?? portFrom(env.FAKE_PAYMENTS_PORT, 12111, "FAKE_PAYMENTS_PORT");
+  let mailbox: FakeMailbox;
+  try {
+    mailbox = await startFakeMailbox({ host, smtpPort, httpPort: mailboxHttpPort, storePath: path.join(dataDir, "mailbox.json") });
+  } catch (err) {
+    if (!inUse(err)) throw err;
+    const port = (err as { port?: number }).port;
+    throw port === mailboxHttpPort && port !== smtpPort ? new FakePortInUse(mailboxHttpPort, "FAKE_MAILBOX_HTTP_PORT") : new FakePortInUse(smtpPort, "FAKE_SMTP_PORT");
+  }
   let payments: FakePayments;
   try {
     payments = await startFakePayments({
       host,
-      port: opts.paymentsPort ?? portFrom(env.FAKE_PAYMENTS_PORT, 12111, "FAKE_PAYMENTS_PORT"),
+      port: paymentsPort,
       dataPath: path.join(dataDir, "payments.json"),
       webhookUrl: opts.webhookUrl ?? env.FAKE_PAYMENTS_WEBHOOK_URL ?? `http://127.0.0.1:${appPort}/api/webhooks/stripe`,
       webhookSecret,
@@ -70,7 +87,7 @@ export async function startFakes(opts: StartFakesOptions = {}): Promise<Fakes> {
     });
   } catch (err) {
     await mailbox.close();
-    throw err;
+    throw inUse(err) ? new FakePortInUse(paymentsPort, "FAKE_PAYMENTS_PORT") : err;
   }
   return {
     mailbox,
@@ -96,7 +113,10 @@ async function main(): Promise<void> {
   process.once("SIGTERM", stop);
 }
 
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+// Run on its own only as fakes/start.ts itself: bundled into the compiled server, import.meta.url
+// is the bundle's, which is also the program being run, and the fakes must not start from that.
+const self = fileURLToPath(import.meta.url);
+if (process.argv[1] && path.resolve(process.argv[1]) === self && self.endsWith(path.join("fakes", "start.ts"))) {
   main().catch((err: Error) => {
     console.error(err.message);
     process.exit(1);

@@ -1,6 +1,7 @@
 /**
- * createApp(deps): middleware, routers, the JSON 404 under /api, the single-page client for
- * every other GET, and the one error handler. main.ts is the only file that listens.
+ * createApp(deps): middleware, routers, the JSON 404 under /api, the built client (its hashed
+ * assets, and index.html for page loads only), and the one error handler. main.ts is the only
+ * file that listens.
  */
 import fs from "node:fs";
 import path from "node:path";
@@ -11,7 +12,7 @@ import { pinoHttp } from "pino-http";
 import { csrfSync } from "csrf-sync";
 import type { AppDeps, Ctx } from "./context";
 import { createPassport, createSignIn, DbSessionStore } from "./modules/people";
-import { apiNotFound, errorHandler } from "./middleware/problem";
+import { apiNotFound, errorHandler, sendProblem } from "./middleware/problem";
 import { buildMounts, listRoutes } from "./http/router";
 import { apiDescriptionTable, docsAssets } from "./http/api-description";
 import type { RouteTable } from "./http/route-table";
@@ -19,6 +20,19 @@ import { ROUTE_TABLES } from "./modules";
 
 /** Paths that a foreign service calls without a browser session, so they carry no CSRF token. */
 const CSRF_EXEMPT = [/^\/api\/webhooks\//];
+
+/**
+ * Only a page load gets the client's index.html: a GET that asks for HTML, or one with no
+ * preference (any type, as curl sends) for a path without a file extension. A script, style, image
+ * or JSON request for a path that is not there gets a 404.
+ */
+function isNavigation(req: express.Request): boolean {
+  if (req.method !== "GET" && req.method !== "HEAD") return false;
+  const accept = req.get("accept") ?? "*/*";
+  if (accept.includes("text/html")) return true;
+  const last = req.path.split("/").pop() ?? "";
+  return /^\s*\*\/\*\s*(;.*)?$/.test(accept) && !last.includes(".");
+}
 
 export interface CreatedApp {
   app: Express;
@@ -112,11 +126,18 @@ export function createApp(deps: AppDeps): CreatedApp {
 
   const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
   if (staticDir && fs.existsSync(path.join(staticDir, "index.html"))) {
+    // Vite's hashed bundles never change under their name; a missing one is a 404, never the page
+    // (a browser would otherwise run the HTML as a script after a deploy).
+    app.use("/assets", express.static(path.join(staticDir, "assets"), { index: false, immutable: true, maxAge: "1y", fallthrough: true }));
+    app.use("/assets", (req, res) => sendProblem(res, 404, "no_such_file", `There is no file ${req.originalUrl.split("?")[0]}.`));
     app.use(express.static(staticDir, { index: false, maxAge: "1h" }));
-    app.get("/{*splat}", (_req, res) => {
+    app.get("/{*splat}", (req, res, next) => {
+      if (!isNavigation(req)) return next();
+      res.setHeader("Cache-Control", "no-cache");
       res.sendFile(path.join(staticDir, "index.html"));
     });
   }
+  app.use((req, res) => sendProblem(res, 404, "not_found", `There is no page or file at ${req.originalUrl.split("?")[0]}.`));
 
   app.use(errorHandler);
   return { app, ctx, sessionStore, routes: listRoutes(mounts), tables };

@@ -136,13 +136,19 @@ export async function startFakeMailbox(opts: FakeMailboxOptions = {}): Promise<F
       sendJson(res, 500, { error: { message: (err as Error).message } });
     }
   });
-  await new Promise<void>((resolve, reject) => {
-    web.once("error", reject);
-    web.listen(opts.httpPort ?? 2580, host, () => {
-      web.off("error", reject);
-      resolve();
+  try {
+    await new Promise<void>((resolve, reject) => {
+      web.once("error", reject);
+      web.listen(opts.httpPort ?? 2580, host, () => {
+        web.off("error", reject);
+        resolve();
+      });
     });
-  });
+  } catch (err) {
+    // Leave nothing listening when only half of the mailbox could start.
+    await new Promise<void>((resolve) => smtp.close(() => resolve()));
+    throw err;
+  }
   const httpPort = (web.address() as AddressInfo).port;
   const urlHost = host === "0.0.0.0" || host === "::" ? "127.0.0.1" : host;
 

@@ -11,6 +11,7 @@ import { deliverDueMail } from "../core/outbox";
 import { runStockAlerts } from "../modules/safety";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "../modules/schedule";
 import { mailStatementsJob, sendInvoicesJob } from "../modules/recharge";
+import { runNightlyBackup } from "../ops/nightly-backup";
 
 export interface JobDeps {
   ds: DataSource;
@@ -45,6 +46,12 @@ export const jobs: Job[] = [
   // Recharge: invoices the payment service did not take yet, and statement PDFs not yet mailed.
   sendInvoicesJob,
   mailStatementsJob,
+  {
+    // Production with BACKUP_DIR: one dated backup folder a night, BACKUP_KEEP days kept (ops/nightly-backup.ts).
+    name: "nightly-backup",
+    everyMs: 15 * 60_000,
+    run: (d) => (d.config.NODE_ENV === "production" ? runNightlyBackup({ ds: d.ds, now: () => d.clock.now(), config: d.config }) : Promise.resolve(null)),
+  },
 ];
 
 export function startScheduler(deps: JobDeps, list: Job[] = jobs): { stop(): void } {

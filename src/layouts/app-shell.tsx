@@ -13,6 +13,7 @@ import { Button, buttonClasses } from "@/components/ui/button";
 import { Wordmark } from "@/components/brand/wordmark";
 import { NAV_GROUP_LABELS, navItemsFor, type NavGroup } from "./nav-items";
 import { NavIcon } from "./nav-icons";
+import { PublicDemoBanner } from "./public-demo-banner";
 
 const GROUP_ORDER: NavGroup[] = ["work", "facility", "admin"];
 
@@ -31,6 +32,8 @@ export function AppShell() {
       >
         Skip to content
       </a>
+
+      <PublicDemoBanner />
 
       <header className="sticky top-0 z-30 flex h-12 items-center gap-2 border-b border-grey-200 bg-white/95 px-3 backdrop-blur md:px-4">
         <button

@@ -60,7 +60,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
     roles: AREA_ROLES.safety,
   },
   { slug: "people", label: "People", to: paths.admin.people.getHref(), icon: "people", group: "admin", roles: AREA_ROLES.admin },
-  { slug: "mailbox", label: "Mailbox", to: paths.admin.mailbox.getHref(), icon: "mailbox", group: "admin", roles: AREA_ROLES.admin },
+  { slug: "system", label: "System", to: paths.admin.mailbox.getHref(), icon: "mailbox", group: "admin", roles: AREA_ROLES.admin },
 ];
 
 export function navItemsFor(user: { roles: Role[] } | null | undefined): NavItem[] {

@@ -233,6 +233,6 @@ describe("GET /api/facility", () => {
   it("names the facility's time zone and currency from the configuration", async () => {
     const r = await new ApiClient(t.url).get("/api/facility");
     expect(r.status).toBe(200);
-    expect(r.body).toEqual({ name: "Liquid Interfaces Core", timeZone: "America/Halifax", currency: "CAD" });
+    expect(r.body).toEqual({ name: "Liquid Interfaces Core", timeZone: "America/Halifax", currency: "CAD", publicDemo: false });
   });
 });

@@ -17,12 +17,12 @@ afterAll(async () => {
 
 const EVERYONE = ["home", "schedule", "bookings", "instruments", "stockroom", "scan"];
 const CASES: { email: string; sees: string[]; hidden: string[] }[] = [
-  { email: "member@kestrelbay.example", sees: EVERYONE, hidden: ["training", "recharge", "safety", "people", "mailbox"] },
+  { email: "member@kestrelbay.example", sees: EVERYONE, hidden: ["training", "recharge", "safety", "people", "system"] },
   { email: "member2@kestrelbay.example", sees: EVERYONE, hidden: ["training", "recharge", "safety", "people"] },
   { email: "lead@kestrelbay.example", sees: [...EVERYONE, "recharge"], hidden: ["training", "safety", "people"] },
-  { email: "manager@kestrelbay.example", sees: [...EVERYONE, "training", "recharge", "safety"], hidden: ["people", "mailbox"] },
+  { email: "manager@kestrelbay.example", sees: [...EVERYONE, "training", "recharge", "safety"], hidden: ["people", "system"] },
   { email: "safety@kestrelbay.example", sees: [...EVERYONE, "safety"], hidden: ["training", "recharge", "people"] },
-  { email: "admin@kestrelbay.example", sees: ["home", "people", "mailbox"], hidden: ["training", "recharge"] },
+  { email: "admin@kestrelbay.example", sees: ["home", "people", "system"], hidden: ["training", "recharge"] },
   { email: "buyer@tidewater.example", sees: EVERYONE, hidden: ["training", "recharge", "safety", "people"] },
 ];
 

@@ -35,10 +35,12 @@ export interface TestApp {
 
 export const TEST_NOW = "2026-12-02T15:00:00.000Z";
 
-export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>; env?: Record<string, string> } = {}): Promise<TestApp> {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-test-"));
+export async function startTestApp(
+  opts: { now?: string; deps?: Partial<AppDeps>; env?: Record<string, string>; /** An existing database to open (kept on close) instead of a new one. */ databasePath?: string } = {},
+): Promise<TestApp> {
+  const dir = opts.databasePath ? path.dirname(path.resolve(opts.databasePath)) : fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-test-"));
   const config = loadConfig({
-    DATABASE_PATH: path.join(dir, "test.sqlite"),
+    DATABASE_PATH: opts.databasePath ?? path.join(dir, "test.sqlite"),
     NODE_ENV: "test",
     PUBLIC_URL: "http://phasebook.test",
     ...opts.env,
@@ -80,7 +82,7 @@ export async function startTestApp(opts: { now?: string; deps?: Partial<AppDeps>
     async close() {
       await new Promise((r) => server.close(r));
       await ds.destroy();
-      fs.rmSync(dir, { recursive: true, force: true });
+      if (!opts.databasePath) fs.rmSync(dir, { recursive: true, force: true });
     },
   };
 }

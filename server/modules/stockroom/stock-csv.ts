@@ -2,8 +2,8 @@
  * CSV import and export of the stock tables. An import is all-or-nothing: every row is checked
  * with the same rules as the forms (CAS check digit, formula, units, known chemical and
  * location), every bad row is reported with its line number and reason, and only a file with
- * no bad row is written, in one transaction. Exports guard against spreadsheet formula
- * injection (OWASP "CSV Injection"): a cell that starts with = + - @ or a tab is prefixed with '.
+ * no bad row is written, in one transaction. Exports are written by the shared CSV writer
+ * (core/csv.ts), which applies OWASP's CSV-injection rule to every text cell.
  */
 import Papa from "papaparse";
 import { parseCas } from "@shared/domain/cas";
@@ -13,6 +13,7 @@ import { Chemical, Container, Location } from "../../entities";
 import { RuleBroken, type FieldError } from "../../errors";
 import { serialTransaction } from "../../db/serial";
 import { audit } from "../../core/audit";
+import { toCsv, type CsvColumn } from "../../core/csv";
 import { newToken } from "../../core/tokens";
 import type { Deps } from "../../core/deps";
 import { checkChemicalInput, insertChemical } from "./chemical.commands";
@@ -207,57 +208,54 @@ export async function importContainers({ ds, now }: Deps, actorId: number, text:
   return { imported: ids.length, ids };
 }
 
-function guard(v: unknown): unknown {
-  if (typeof v === "string" && /^[=+\-@\t\r]/.test(v)) return `'${v}`;
-  return v;
-}
+/** Every column of the chemicals export; text goes through the shared writer's formula guard. */
+const CHEMICAL_COLUMNS: CsvColumn<ChemicalDto>[] = [
+  { header: "id", kind: "number", value: (c) => c.id },
+  { header: "name", value: (c) => c.name },
+  { header: "casNumber", value: (c) => c.casNumber },
+  { header: "formula", value: (c) => c.formula },
+  { header: "molarMass", kind: "number", value: (c) => c.molarMass },
+  { header: "synonyms", value: (c) => c.synonyms.join("; ") },
+  { header: "hazardStatements", value: (c) => c.hazardStatements.join(" ") },
+  { header: "signalWord", value: (c) => c.signalWord },
+  { header: "flashPointC", kind: "number", value: (c) => c.flashPointC },
+  { header: "boilingPointC", kind: "number", value: (c) => c.boilingPointC },
+  { header: "densityGPerMl", kind: "number", value: (c) => c.densityGPerMl },
+  { header: "ghsFlammableCategory", kind: "number", value: (c) => c.ghsFlammableCategory },
+  { header: "nfpaClass", value: (c) => c.nfpaClass },
+  { header: "carcinogen", value: (c) => c.carcinogen },
+  { header: "acuteToxic", value: (c) => c.acuteToxic },
+  { header: "storageGroup", value: (c) => c.storageGroup },
+  { header: "reorderPoint", kind: "number", value: (c) => c.reorderPoint },
+  { header: "reorderUnit", value: (c) => c.reorderUnit },
+  { header: "unitCostCents", kind: "number", value: (c) => c.unitCostCents },
+  { header: "costUnit", value: (c) => c.costUnit },
+  { header: "onHold", value: (c) => c.onHoldReason },
+];
+
+/** Every column of the containers export. */
+const CONTAINER_COLUMNS: CsvColumn<ContainerDto>[] = [
+  { header: "id", kind: "number", value: (c) => c.id },
+  { header: "chemicalName", value: (c) => c.chemicalName },
+  { header: "casNumber", value: (c) => c.casNumber },
+  { header: "kind", value: (c) => c.kind },
+  { header: "quantity", kind: "number", value: (c) => c.quantity },
+  { header: "unit", value: (c) => c.unit },
+  { header: "status", value: (c) => CONTAINER_STATUS_LABELS[c.status] },
+  { header: "location", value: (c) => c.locationName },
+  { header: "expiresAt", value: (c) => c.expiresAt },
+  { header: "retestAt", value: (c) => c.retestAt },
+  { header: "openedAt", value: (c) => c.openedAt },
+  { header: "supplier", value: (c) => c.supplier },
+  { header: "lot", value: (c) => c.lot },
+  { header: "priceCents", kind: "number", value: (c) => c.priceCents },
+  { header: "holdReason", value: (c) => c.holdReason },
+];
 
 export function chemicalsCsv(items: ChemicalDto[]): string {
-  return Papa.unparse(
-    items.map((c) => ({
-      id: c.id,
-      name: guard(c.name),
-      casNumber: c.casNumber,
-      formula: guard(c.formula ?? ""),
-      molarMass: c.molarMass ?? "",
-      synonyms: guard(c.synonyms.join("; ")),
-      hazardStatements: c.hazardStatements.join(" "),
-      signalWord: c.signalWord ?? "",
-      flashPointC: c.flashPointC ?? "",
-      boilingPointC: c.boilingPointC ?? "",
-      densityGPerMl: c.densityGPerMl ?? "",
-      ghsFlammableCategory: c.ghsFlammableCategory ?? "",
-      nfpaClass: c.nfpaClass ?? "",
-      carcinogen: c.carcinogen ? "yes" : "no",
-      acuteToxic: c.acuteToxic ? "yes" : "no",
-      storageGroup: guard(c.storageGroup),
-      reorderPoint: c.reorderPoint ?? "",
-      reorderUnit: c.reorderUnit ?? "",
-      unitCostCents: c.unitCostCents ?? "",
-      costUnit: c.costUnit ?? "",
-      onHold: guard(c.onHoldReason ?? ""),
-    })),
-  );
+  return toCsv(items, CHEMICAL_COLUMNS);
 }
 
 export function containersCsv(items: ContainerDto[]): string {
-  return Papa.unparse(
-    items.map((c) => ({
-      id: c.id,
-      chemicalName: guard(c.chemicalName),
-      casNumber: c.casNumber,
-      kind: c.kind,
-      quantity: c.quantity,
-      unit: c.unit,
-      status: CONTAINER_STATUS_LABELS[c.status],
-      location: guard(c.locationName ?? ""),
-      expiresAt: c.expiresAt ?? "",
-      retestAt: c.retestAt ?? "",
-      openedAt: c.openedAt ?? "",
-      supplier: guard(c.supplier),
-      lot: guard(c.lot),
-      priceCents: c.priceCents ?? "",
-      holdReason: guard(c.holdReason ?? ""),
-    })),
-  );
+  return toCsv(items, CONTAINER_COLUMNS);
 }

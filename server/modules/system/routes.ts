@@ -2,16 +2,16 @@
 import { facilityDto } from "@shared/schemas/facility";
 import { dashboardDto } from "@shared/schemas/dashboard";
 import { pageOf } from "@shared/schemas/common";
-import { auditEntryDto, auditQuery, healthDto, mailboxPageDto } from "@shared/schemas/system";
+import { auditEntryDto, auditQuery, healthDto, mailboxPageDto, systemStatusDto } from "@shared/schemas/system";
 import { route, type RouteTable } from "../../http/route-table";
 import { hasRole } from "../../middleware/auth";
 import { NotFound } from "../../errors";
 import { dashboardFor } from "./dashboard.queries";
-import { auditPage, databaseAnswers } from "./system.queries";
+import { auditPage, databaseAnswers, systemStatus } from "./system.queries";
 
 export const systemTable: RouteTable = {
   module: "system",
-  description: "Health, the facility's settings, each role's start page, the audit log and, in development, the local mailbox.",
+  description: "Health, the facility's settings, each role's start page, the audit log, the administrator's status of mail, payments and backups and, in development, the local mailbox.",
   routes: [
     route({
       method: "get",
@@ -31,7 +31,12 @@ export const systemTable: RouteTable = {
       summary: "The facility's name, time zone and currency (the client shows local times in the facility's zone)",
       access: "public",
       output: facilityDto,
-      handler: ({ ctx }) => ({ name: ctx.config.FACILITY_NAME, timeZone: ctx.config.FACILITY_TZ, currency: ctx.config.CURRENCY }),
+      handler: ({ ctx }) => ({
+        name: ctx.config.FACILITY_NAME,
+        timeZone: ctx.config.FACILITY_TZ,
+        currency: ctx.config.CURRENCY,
+        publicDemo: ctx.config.publicDemo,
+      }),
     }),
     route({
       method: "get",
@@ -49,6 +54,14 @@ export const systemTable: RouteTable = {
       query: auditQuery,
       output: pageOf(auditEntryDto),
       handler: ({ ctx, query }) => auditPage(ctx.ds, query),
+    }),
+    route({
+      method: "get",
+      path: "/system/status",
+      summary: "Whether mail, payments and the nightly backup work: outbox counts, invoices waiting, the last backup",
+      access: ["admin"],
+      output: systemStatusDto,
+      handler: ({ ctx }) => systemStatus(ctx),
     }),
     route({
       method: "get",

@@ -1,7 +1,10 @@
-/** Reads of the system area: a database probe and pages of the audit log. */
+/** Reads of the system area: a database probe, pages of the audit log and the administrator's status page. */
 import type { DataSource } from "typeorm";
 import { AuditEntry } from "../../entities";
 import { prepared } from "../../db/prepared";
+import type { Ctx } from "../../context";
+import type { SystemStatusDto } from "@shared/schemas/system";
+import { readBackupStatus } from "../../ops/nightly-backup";
 
 /** True when the database answers a trivial query. */
 export function databaseAnswers(ds: DataSource): boolean {
@@ -21,4 +24,35 @@ export async function auditPage(ds: DataSource, q: { limit: number; offset: numb
     take: q.limit,
   });
   return { items: items.map((a) => ({ ...a, detail: JSON.parse(a.detail) as unknown })), total };
+}
+
+/** Mail, payments and backups as the administrator's status page shows them. */
+export async function systemStatus(ctx: Ctx): Promise<SystemStatusDto> {
+  const { config } = ctx;
+  const production = config.NODE_ENV === "production";
+  const mail = prepared(
+    ctx.ds,
+    `SELECT SUM(status = 'pending') AS pending, SUM(status = 'failed') AS failed, MIN(CASE WHEN status = 'pending' THEN createdAt END) AS oldest FROM outbound_mail`,
+  ).get() as { pending: number | null; failed: number | null; oldest: string | null };
+  const invoices = prepared(
+    ctx.ds,
+    `SELECT COUNT(*) AS n FROM statements s JOIN billing_runs r ON r.id = s.runId WHERE r.status = 'final' AND s.invoiceStatus = 'queued'`,
+  ).get() as { n: number };
+  const last = await readBackupStatus(ctx.ds);
+  return {
+    mode: production ? (config.publicDemo ? "public_demo" : "production") : "development",
+    mail: {
+      via: config.SMTP_URL ? "smtp" : ctx.mailboxUrl ? "fake" : "none",
+      pending: mail.pending ?? 0,
+      failed: mail.failed ?? 0,
+      oldestPendingAt: mail.oldest,
+    },
+    payments: { via: config.STRIPE_SECRET_KEY ? "service" : ctx.payments ? "test" : "none", invoicesWaiting: invoices.n },
+    backup: {
+      scheduled: production && Boolean(config.BACKUP_DIR),
+      dir: config.BACKUP_DIR ?? null,
+      keepDays: config.BACKUP_KEEP,
+      last: last ? { at: last.at, ok: last.ok, folder: last.folder, bytes: last.bytes, error: last.error } : null,
+    },
+  };
 }

@@ -1,15 +1,18 @@
-/** Administration › Mailbox: the development mailbox, for following the mail Phasebook sends. */
+/**
+ * Administration › System: the status of mail, card payments and the nightly backup and, in
+ * development, the local fake mailbox for following the mail Phasebook sends. (The path stays
+ * /admin/mailbox, where the development mailbox has always been.)
+ */
 import { PageHeader } from "@/components/ui/page-header";
-import { Alert } from "@/components/ui/alert";
 import { MailboxView } from "@/features/admin/components/mailbox-view";
+import { SystemStatusView } from "@/features/admin/components/system-status";
 
 export function MailboxRoute() {
   return (
     <>
-      <PageHeader title="Mailbox" description="Mail Phasebook has sent, newest first. Refreshes every few seconds." />
-      <Alert tone="warning" className="mb-4">
-        This is the local fake mailbox used in development: the messages below went to no real inbox.
-      </Alert>
+      <PageHeader title="System" description="Whether mail goes out, card invoices reach the payment service, and the nightly backup works." />
+      <SystemStatusView />
+      <h2 className="mb-2 mt-6 text-base font-semibold text-grey-900">Development mailbox</h2>
       <MailboxView />
     </>
   );

@@ -10,4 +10,5 @@ export const adminKeys = {
   departments: () => [...adminKeys.all, "departments"] as const,
   groups: () => [...adminKeys.all, "groups"] as const,
   mailbox: () => [...adminKeys.all, "mailbox"] as const,
+  systemStatus: () => [...adminKeys.all, "system-status"] as const,
 };

@@ -88,41 +88,52 @@ export function MailboxView() {
   }
 
   const items = mailbox.data.items;
+  const notice = (
+    <Alert tone="warning" className="mb-4">
+      This is the local fake mailbox used in development: the messages below went to no real inbox.
+    </Alert>
+  );
   if (items.length === 0) {
     return (
-      <EmptyState title="No mail yet">
-        Messages appear here a few seconds after Phasebook sends them, for example when someone asks for a password reset link.
-      </EmptyState>
+      <>
+        {notice}
+        <EmptyState title="No mail yet">
+          Messages appear here a few seconds after Phasebook sends them, for example when someone asks for a password reset link.
+        </EmptyState>
+      </>
     );
   }
   const selected = items.find((m) => m.id === selectedId) ?? null;
 
   return (
-    <div className="grid gap-4 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
-      <ul className="flex max-h-[70vh] flex-col self-start divide-y divide-grey-100 overflow-y-auto rounded-lg border border-grey-200 bg-white" aria-label="Received mail, newest first">
-        {items.map((m) => (
-          <li key={m.id}>
-            <button
-              type="button"
-              onClick={() => setSelectedId(m.id)}
-              aria-current={m.id === selectedId ? "true" : undefined}
-              className={cn(
-                "flex w-full flex-col gap-0.5 px-3 py-2 text-left hover:bg-grey-50",
-                m.id === selectedId && "bg-aqueous-50 hover:bg-aqueous-50",
-              )}
-            >
-              <span className="flex items-baseline justify-between gap-2">
-                <span className="truncate font-medium text-grey-900">{m.subject || "(no subject)"}</span>
-                <span className="shrink-0 text-xs text-grey-500">{formatDateTime(m.date)}</span>
-              </span>
-              <span className="truncate text-xs text-grey-600">to {m.to.join(", ")}</span>
-            </button>
-          </li>
-        ))}
-      </ul>
-      <div className="min-w-0 rounded-lg border border-grey-200 bg-white p-4">
-        {selected ? <Reader key={selected.id} message={selected} /> : <p className="text-grey-600">Choose a message to read it.</p>}
+    <>
+      {notice}
+      <div className="grid gap-4 lg:grid-cols-[minmax(16rem,22rem)_1fr]">
+        <ul className="flex max-h-[70vh] flex-col self-start divide-y divide-grey-100 overflow-y-auto rounded-lg border border-grey-200 bg-white" aria-label="Received mail, newest first">
+          {items.map((m) => (
+            <li key={m.id}>
+              <button
+                type="button"
+                onClick={() => setSelectedId(m.id)}
+                aria-current={m.id === selectedId ? "true" : undefined}
+                className={cn(
+                  "flex w-full flex-col gap-0.5 px-3 py-2 text-left hover:bg-grey-50",
+                  m.id === selectedId && "bg-aqueous-50 hover:bg-aqueous-50",
+                )}
+              >
+                <span className="flex items-baseline justify-between gap-2">
+                  <span className="truncate font-medium text-grey-900">{m.subject || "(no subject)"}</span>
+                  <span className="shrink-0 text-xs text-grey-500">{formatDateTime(m.date)}</span>
+                </span>
+                <span className="truncate text-xs text-grey-600">to {m.to.join(", ")}</span>
+              </button>
+            </li>
+          ))}
+        </ul>
+        <div className="min-w-0 rounded-lg border border-grey-200 bg-white p-4">
+          {selected ? <Reader key={selected.id} message={selected} /> : <p className="text-grey-600">Choose a message to read it.</p>}
+        </div>
       </div>
-    </div>
+    </>
   );
 }

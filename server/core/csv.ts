@@ -1,0 +1,58 @@
+/**
+ * The one CSV writer of every export (stock, and the journal, utilisation and people exports as
+ * their areas move to it). papaparse does the format (RFC 4180 quoting, CRLF); this adds OWASP's
+ * CSV-injection rule: a text cell that starts with `=`, `+`, `-`, `@`, a tab or a carriage
+ * return is prefixed with `'` and quoted, so a spreadsheet shows it as text instead of running
+ * it as a formula (`=HYPERLINK(…)` in a chemical's name stays a name).
+ *
+ * Numbers are not text: a JS number is written as the number it is (a negative quantity or
+ * amount stays a number a spreadsheet can add up), and a `money` column writes integer cents
+ * as a decimal amount with two places (`-1234` → `-12.34`). Only values the code computed can be
+ * numbers, so no person's text escapes the rule through them.
+ */
+import Papa from "papaparse";
+
+export type CsvCell = string | number | boolean | Date | null | undefined;
+
+export interface CsvColumn<T> {
+  header: string;
+  value: (row: T) => CsvCell;
+  /** text (default): guarded; number: a JS number as is; money: integer cents as a decimal amount. */
+  kind?: "text" | "number" | "money";
+}
+
+/** OWASP "CSV Injection": the first characters a spreadsheet takes as the start of a formula. */
+const FORMULA_START = /^[=+\-@\t\r]/;
+
+/** A text cell as OWASP asks: prefixed with ' when a spreadsheet would read it as a formula. */
+export function guardCell(text: string): string {
+  return FORMULA_START.test(text) ? `'${text}` : text;
+}
+
+function cell(v: CsvCell, kind: CsvColumn<unknown>["kind"], header: string): string | number {
+  if (v === null || v === undefined) return "";
+  if (kind === "money") {
+    if (typeof v !== "number" || !Number.isInteger(v)) throw new TypeError(`CSV column ${header} holds money as integer cents, not ${JSON.stringify(v)}`);
+    const sign = v < 0 ? "-" : "";
+    const abs = Math.abs(v);
+    return `${sign}${Math.floor(abs / 100)}.${String(abs % 100).padStart(2, "0")}`;
+  }
+  if (typeof v === "number") return Number.isFinite(v) ? v : "";
+  if (kind === "number") throw new TypeError(`CSV column ${header} holds numbers, not ${JSON.stringify(v)}`);
+  if (typeof v === "boolean") return v ? "yes" : "no";
+  if (v instanceof Date) return v.toISOString();
+  return guardCell(v);
+}
+
+/** Rows to CSV text: a header line of the columns' headers, then one line per row. */
+export function toCsv<T>(rows: readonly T[], columns: readonly CsvColumn<T>[]): string {
+  const data = rows.map((row) => columns.map((c) => cell(c.value(row), c.kind, c.header)));
+  return Papa.unparse(
+    { fields: columns.map((c) => guardCell(c.header)), data },
+    {
+      // A guarded cell is also quoted, as OWASP recommends; papaparse quotes the rest as needed.
+      quotes: (value: unknown) => typeof value === "string" && value.startsWith("'"),
+      newline: "\r\n",
+    },
+  );
+}
