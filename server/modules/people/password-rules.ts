@@ -15,7 +15,7 @@ import { RuleBroken } from "../../errors";
 
 let common: Set<string> | null = null;
 
-/** The common-password list, unpacked once on first use (a few milliseconds). */
+/** The common-password list as a set, built once on first use (the package unpacks its list when loaded, in milliseconds). */
 function commonPasswords(): Set<string> {
   common ??= new Set(dictionary["passwords-common"].map((p) => p.toLowerCase()));
   return common;
