@@ -9,11 +9,11 @@ import express, { type Express } from "express";
 import session from "express-session";
 import helmet from "helmet";
 import { pinoHttp } from "pino-http";
-import { csrfSync } from "csrf-sync";
 import type { AppDeps, Ctx } from "./context";
-import { createPassport, createSignIn, DbSessionStore } from "./modules/people";
+import { createPassport, createSignIn, DbSessionStore, SESSION_COOKIE } from "./modules/people";
 import { apiNotFound, errorHandler, sendProblem } from "./middleware/problem";
 import { buildMounts, listRoutes } from "./http/router";
+import { createCsrf } from "./http/csrf";
 import { apiDescriptionTable, docsAssets } from "./http/api-description";
 import type { RouteTable } from "./http/route-table";
 import { ROUTE_TABLES } from "./modules";
@@ -45,19 +45,19 @@ export interface CreatedApp {
 }
 
 export function createApp(deps: AppDeps): CreatedApp {
-  const passport = createPassport(deps.ds);
-  const csrf = csrfSync({
-    getTokenFromRequest: (req) => req.get("x-csrf-token"),
-    skipCsrfProtection: (req) => CSRF_EXEMPT.some((re) => re.test(req.originalUrl)),
-    errorConfig: { statusCode: 403, code: "csrf_invalid", message: "CSRF token missing or stale" },
+  const secureCookies = deps.config.PUBLIC_URL.startsWith("https://");
+  const passport = createPassport(deps);
+  const csrf = createCsrf({
+    sessionSecret: deps.config.SESSION_SECRET,
+    secureCookies,
+    skip: (req) => CSRF_EXEMPT.some((re) => re.test(req.originalUrl)),
   });
   const ctx: Ctx = {
     ...deps,
     now: () => deps.clock.now(),
-    signIn: createSignIn(deps, passport, (req) => csrf.generateToken(req)),
+    signIn: createSignIn(deps, passport, csrf),
   };
   const app = express();
-  const secureCookies = deps.config.PUBLIC_URL.startsWith("https://");
 
   app.disable("x-powered-by");
   app.set("trust proxy", "loopback");
@@ -98,11 +98,12 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use("/api/webhooks", express.raw({ type: "*/*", limit: "1mb" }));
   app.use("/api", express.json({ limit: "200kb" }));
 
-  // Session expiry follows the wall clock, not the app clock that tests fix.
+  // Session expiry follows the wall clock, not the app clock that tests fix. A session is written
+  // only when someone signs in (saveUninitialized: false; the CSRF token lives in its own cookie).
   const sessionStore = new DbSessionStore(deps.ds);
   app.use(
     session({
-      name: "phasebook.sid",
+      name: SESSION_COOKIE,
       secret: deps.config.SESSION_SECRET,
       store: sessionStore,
       resave: false,
@@ -113,7 +114,7 @@ export function createApp(deps: AppDeps): CreatedApp {
   );
   app.use(passport.initialize());
   app.use(passport.session());
-  app.use("/api", csrf.csrfSynchronisedProtection);
+  app.use("/api", csrf.protect);
 
   const tables: RouteTable[] = [
     ...ROUTE_TABLES,

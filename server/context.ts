@@ -4,7 +4,7 @@ import type Stripe from "stripe";
 import type { Config } from "./config";
 import type { Clock } from "./clock";
 import type { Mailer } from "./integrations/mailer";
-import type { SignIn } from "./modules/people";
+import type { RateLimits, SignIn } from "./modules/people";
 
 export interface AppDeps {
   ds: DataSource;
@@ -14,8 +14,8 @@ export interface AppDeps {
   payments?: Stripe;
   /** HTTP address of the local fake mailbox, shown to admins in development. */
   mailboxUrl?: string;
-  /** Sign-in attempts allowed per address and e-mail in the window (tests lower the window). */
-  loginRateLimit?: { windowMs: number; limit: number };
+  /** The sign-in, reset and password-change rate limits (modules/people/sign-in.ts); tests lower or lift them. */
+  rateLimits?: Partial<RateLimits>;
   /** bcrypt cost; tests may lower it for speed, never below 10. */
   bcryptCost?: number;
   /** Folder of the built client; null to serve the API only. */

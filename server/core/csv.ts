@@ -19,6 +19,8 @@ export interface CsvColumn<T> {
   value: (row: T) => CsvCell;
   /** text (default): guarded; number: a JS number as is; money: integer cents as a decimal amount. */
   kind?: "text" | "number" | "money";
+  /** number columns: always this many decimal places (hours as 40.00), still a number to a spreadsheet. */
+  decimals?: number;
 }
 
 /** OWASP "CSV Injection": the first characters a spreadsheet takes as the start of a formula. */
@@ -29,7 +31,7 @@ export function guardCell(text: string): string {
   return FORMULA_START.test(text) ? `'${text}` : text;
 }
 
-function cell(v: CsvCell, kind: CsvColumn<unknown>["kind"], header: string): string | number {
+function cell(v: CsvCell, { kind, decimals, header }: CsvColumn<never>): string | number {
   if (v === null || v === undefined) return "";
   if (kind === "money") {
     if (typeof v !== "number" || !Number.isInteger(v)) throw new TypeError(`CSV column ${header} holds money as integer cents, not ${JSON.stringify(v)}`);
@@ -37,7 +39,7 @@ function cell(v: CsvCell, kind: CsvColumn<unknown>["kind"], header: string): str
     const abs = Math.abs(v);
     return `${sign}${Math.floor(abs / 100)}.${String(abs % 100).padStart(2, "0")}`;
   }
-  if (typeof v === "number") return Number.isFinite(v) ? v : "";
+  if (typeof v === "number") return !Number.isFinite(v) ? "" : decimals === undefined ? v : v.toFixed(decimals);
   if (kind === "number") throw new TypeError(`CSV column ${header} holds numbers, not ${JSON.stringify(v)}`);
   if (typeof v === "boolean") return v ? "yes" : "no";
   if (v instanceof Date) return v.toISOString();
@@ -46,7 +48,7 @@ function cell(v: CsvCell, kind: CsvColumn<unknown>["kind"], header: string): str
 
 /** Rows to CSV text: a header line of the columns' headers, then one line per row. */
 export function toCsv<T>(rows: readonly T[], columns: readonly CsvColumn<T>[]): string {
-  const data = rows.map((row) => columns.map((c) => cell(c.value(row), c.kind, c.header)));
+  const data = rows.map((row) => columns.map((c) => cell(c.value(row), c as CsvColumn<never>)));
   return Papa.unparse(
     { fields: columns.map((c) => guardCell(c.header)), data },
     {

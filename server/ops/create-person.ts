@@ -6,17 +6,14 @@
  * password. Depends on entities and core only, so it works while the People area moves.
  */
 import crypto from "node:crypto";
-import bcrypt from "bcryptjs";
 import { z } from "zod";
 import type { DataSource } from "typeorm";
 import { createUserInput } from "@shared/schemas/users";
 import { PasswordReset, User, UserRole } from "../entities";
 import { audit } from "../core/audit";
 import { newToken } from "../core/tokens";
+import { hashPassword } from "../core/passwords";
 import { Refusal } from "./cli";
-
-/** The cost the People area hashes passwords with; the placeholder hash costs the same to test. */
-const BCRYPT_COST = 12;
 
 export const newPersonInput = createUserInput.pick({ email: true, name: true, roles: true }).extend({
   /** How long the link works; a first administrator may need a day to get to it. */
@@ -44,7 +41,8 @@ export async function createPersonWithLink(ds: DataSource, raw: NewPersonInput, 
   const input = parsed.data;
   const roles = [...new Set(input.roles)].sort();
   // Nobody knows this password: the person signs in only after choosing one through the link.
-  const passwordHash = await bcrypt.hash(newToken(32), BCRYPT_COST);
+  // The configured cost (core/passwords.ts), as every stored hash: a wrong guess costs the same.
+  const passwordHash = await hashPassword(newToken(32));
   const token = newToken();
   const at = opts.now.toISOString();
   const expiresAt = new Date(opts.now.getTime() + input.validHours * 3600_000).toISOString();

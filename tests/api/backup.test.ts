@@ -28,7 +28,7 @@ function folder(): string {
 }
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
 });
 afterAll(async () => {
   await t.close();

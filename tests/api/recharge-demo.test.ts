@@ -15,8 +15,9 @@ let t: TestApp;
 let manager: ApiClient;
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
-  await seedDemo(t.ds, { now: t.clock.now() });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
+  // The app's cost, as the seed and the app share one in production.
+  await seedDemo(t.ds, { now: t.clock.now(), bcryptCost: t.ctx.bcryptCost });
   manager = new ApiClient(t.url);
   expect((await manager.login("manager@kestrelbay.example", "phasebook-demo")).status).toBe(200);
 });

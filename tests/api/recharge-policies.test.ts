@@ -48,7 +48,7 @@ const membersOf = async (accountId: number): Promise<{ userId: number; exception
 const auditCount = async (): Promise<number> => Number((await t.ds.query(`SELECT COUNT(*) AS n FROM audit_log`))[0].n);
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
   leadUser = await personOf(null, ["group_lead", "member"]);
   memberUser = await personOf(null);
   customerUser = await personOf(TIDEWATER);

@@ -45,7 +45,7 @@ async function signedIn(u: User): Promise<ApiClient> {
 const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
   const m = await makeUser(t.ds, { roles: ["manager", "member"] });
   const leadUser = await makeUser(t.ds, { roles: ["group_lead", "member"] });
   const otherLead = await makeUser(t.ds, { roles: ["group_lead", "member"] });

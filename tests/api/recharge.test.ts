@@ -43,7 +43,7 @@ function statementOf(run: BillingRunDto, accountId: number): StatementDto {
 }
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
   const managerUser = await makeUser(t.ds, { roles: ["manager", "member"] });
   leadUser = await makeUser(t.ds, { roles: ["group_lead", "member"] });
   memberUser = await makeUser(t.ds, { roles: ["member"] });

@@ -26,7 +26,7 @@ await probe.close();
 const matrix: Record<string, Who> = Object.fromEntries(declared);
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
   for (const role of ROLES) {
     const u = await makeUser(t.ds, { roles: [role], email: `matrix-${role}@kestrelbay.example` });
     const c = new ApiClient(t.url);

@@ -35,7 +35,7 @@ function csv(client: ApiClient, route: string, text: string) {
 }
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
   const s = await makeUser(t.ds, { roles: ["safety_officer"] });
   safetyEmail = s.email;
   safety = new ApiClient(t.url);

@@ -128,7 +128,7 @@ describe("utilisation report", () => {
     ]);
     const csv = await managerApi.get(`/api/reports/utilisation.csv?from=2026-12&to=2026-12&instrumentId=${cell.id}`);
     expect(csv.headers.get("content-type")).toMatch(/text\/csv/);
-    expect(csv.text).toBe("instrument,month,bookable_hours,booked_hours,used_hours,booked_percent,used_percent\r\nUtilisation cell,2026-12,40.00,4.00,0.00,10.0,0.0\r\n");
+    expect(csv.text).toBe("instrument,month,bookable_hours,booked_hours,used_hours,booked_percent,used_percent\r\nUtilisation cell,2026-12,40.00,4.00,0.00,10.0,0.0");
     expect((await memberApi.get("/api/reports/utilisation?from=2026-12&to=2026-12")).status).toBe(403);
   });
 });

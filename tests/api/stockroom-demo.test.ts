@@ -12,8 +12,9 @@ let t: TestApp;
 const DEMO_PASSWORD = "phasebook-demo";
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
-  await seedDemo(t.ds, { now: new Date(TEST_NOW), bcryptCost: 4 });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
+  // The app's cost, as the seed and the app share one in production.
+  await seedDemo(t.ds, { now: new Date(TEST_NOW), bcryptCost: t.ctx.bcryptCost });
 });
 afterAll(async () => {
   await t.close();

@@ -31,7 +31,7 @@ async function receive(chemicalId: number, quantity: number, unit: string, count
 }
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
   keeper = (await signedIn(["manager"])).c;
   const m = await signedIn(["member"]);
   member = m.c;

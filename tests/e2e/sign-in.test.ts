@@ -73,9 +73,42 @@ describe("signing in as each demo role", () => {
       await page.fill('input[name="email"]', "member@kestrelbay.example");
       await page.fill('input[name="password"]', "not-the-password");
       await page.click('[data-testid="sign-in-submit"]');
-      await expect.poll(() => page.getByText(/not right/i).count()).toBeGreaterThan(0);
+      // The server compares at the configured bcrypt cost (about half a second, longer on a busy machine).
+      await expect.poll(() => page.getByText(/not right/i).count(), { timeout: 10_000 }).toBeGreaterThan(0);
     } finally {
       await context.close();
+    }
+  });
+});
+
+describe("choosing a new password", () => {
+  it("says next to the field why a short or a common password is refused, and changes nothing", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await context.newPage();
+    /** The words of the "New password" field: its label, and its hint or the error in the hint's place. */
+    const underNewPassword = () => page.locator('input[name="newPassword"]').evaluate((el) => el.closest("div")?.textContent ?? "");
+    try {
+      await signIn(page, server.url, "member2@kestrelbay.example");
+      await page.goto(`${server.url}/profile`);
+      await page.locator('input[name="currentPassword"]').fill("phasebook-demo");
+      for (const [typed, words] of [
+        ["aaaaaaaaaa", /at least 12 characters/i],
+        ["qwerty123456", /commonly used passwords/i],
+      ] as const) {
+        await page.locator('input[name="newPassword"]').fill(typed);
+        await page.locator('input[name="repeatPassword"]').fill(typed);
+        await page.getByRole("button", { name: "Change password" }).click();
+        await expect.poll(underNewPassword, { timeout: 10_000, message: typed }).toMatch(words);
+      }
+    } finally {
+      await context.close();
+    }
+    // The refusals changed nothing: the demo password still signs in.
+    const again = await browser.newContext();
+    try {
+      await signIn(await again.newPage(), server.url, "member2@kestrelbay.example");
+    } finally {
+      await again.close();
     }
   });
 });

@@ -68,6 +68,12 @@ describe("toCsv", () => {
     expect(lines[3]).toBe("even,1200.00,3,");
   });
 
+  it("writes a number column with fixed decimals as a figure, negative ones unprefixed, empty for null", () => {
+    type Row = { hours: number | null };
+    const csv = toCsv<Row>([{ hours: 40 }, { hours: -2.5 }, { hours: 1 / 3 }, { hours: null }], [{ header: "hours", kind: "number", decimals: 2, value: (r) => r.hours }]);
+    expect(csv).toBe("hours\r\n40.00\r\n-2.50\r\n0.33\r\n");
+  });
+
   it("refuses a money cell that is not whole cents, rather than writing text into a money column", () => {
     expect(() => toCsv([{ name: "x", amountCents: 12.5, quantity: 0 }], columns)).toThrow(/integer cents/);
     expect(() => toCsv([{ name: "x", amountCents: "-12" as unknown as number, quantity: 0 }], columns)).toThrow(/integer cents/);

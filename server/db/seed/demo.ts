@@ -26,7 +26,7 @@ import {
   UserRole,
 } from "../../entities";
 import { audit } from "../../core/audit";
-import { hashPassword } from "../../core/passwords";
+import { BCRYPT_COST, hashPassword } from "../../core/passwords";
 import { newToken } from "../../core/tokens";
 import { DEMO_ACCOUNTS } from "./demo-accounts";
 import { seedDemoBookings } from "./demo-bookings";
@@ -42,11 +42,12 @@ import { seedDemoRates } from "./demo-rates";
 
 export const DEMO_SEEDED_KEY = "demo_seeded";
 
-/** bcrypt cost for the demo password; 10 keeps seeding quick and is still a real hash. */
-const DEMO_BCRYPT_COST = 10;
-
 export interface SeedDemoOptions {
   now: Date;
+  /**
+   * bcrypt cost of the demo password's hash: the app's configured cost (BCRYPT_COST unless a
+   * test lowers both), so a wrong password for a demo account costs what an unknown e-mail does.
+   */
   bcryptCost?: number;
   /** The facility's time zone, for the demo timetable's local hours. */
   tz?: string;
@@ -77,7 +78,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
   if (await ds.getRepository(Setting).findOne({ where: { key: DEMO_SEEDED_KEY } })) return { seeded: false };
   checkDemoData();
   // One hash for every demo person: bcrypt is slow on purpose, and they share the password.
-  const passwordHash = await hashPassword(DEMO_PASSWORD, opts.bcryptCost ?? DEMO_BCRYPT_COST);
+  const passwordHash = await hashPassword(DEMO_PASSWORD, opts.bcryptCost ?? BCRYPT_COST);
   const { now } = opts;
   const nowIso = now.toISOString();
 

@@ -1,27 +1,31 @@
 /**
  * Session routes of the HTTP contract (csrf, login, logout, me) and the password change and
- * reset. Sign-in goes through passport and the app's rate limits (ctx.signIn); `me` answers the
- * person the session already carries, adding no work to the signed-in path.
+ * reset. Sign-in goes through passport and the app's rate limits (ctx.signIn, sign-in.ts); `me`
+ * answers the person the session already carries, adding no work to the signed-in path. The
+ * rules these follow (OWASP, NIST SP 800-63B) are named in sign-in.ts, password.commands.ts,
+ * password-rules.ts and server/http/csrf.ts.
  */
 import { changePasswordInput, csrfTokenDto, loginInput, resetConfirmInput, resetRequestedDto, resetRequestInput, sessionDto } from "@shared/schemas/auth";
 import { route } from "../../http/route-table";
 import { Unauthenticated } from "../../errors";
-import { changePassword, confirmReset, requestReset } from "./password.commands";
+import { changePassword, checkNewPasswordOf, confirmReset, requestReset } from "./password.commands";
 
 export const sessionRoutes = [
   route({
     method: "get",
     path: "/auth/csrf",
-    summary: "The session's CSRF token, to send back in the x-csrf-token header of every change",
+    summary: "The CSRF token, to send back in the x-csrf-token header of every change (with the cookie this sets)",
+    description: "A signed double-submit cookie: the answer's token and the httpOnly cookie set with it belong together. Stores nothing on the server; the same token keeps working across sign-in, and sign-out drops it.",
     access: "public",
     output: csrfTokenDto,
-    handler: ({ ctx, req }) => ({ token: ctx.signIn.csrfToken(req) }),
+    handler: ({ ctx, req, res }) => ({ token: ctx.signIn.csrfToken(req, res) }),
   }),
   route({
     method: "post",
     path: "/auth/login",
     summary: "Sign in with e-mail and password (a session cookie)",
-    description: "401 for an unknown e-mail, a wrong password and a deactivated account alike; 429 after ten attempts for one address and e-mail in fifteen minutes.",
+    description:
+      "401 for an unknown e-mail, a wrong password and a deactivated account alike, after the same bcrypt work. 429 `too_many_attempts` after ten attempts for one e-mail (trimmed, any letter case) from one address, twenty failed ones for one e-mail from any address, or a hundred failed ones from one address, each in fifteen minutes.",
     access: "public",
     body: loginInput,
     output: sessionDto,
@@ -39,7 +43,7 @@ export const sessionRoutes = [
     summary: "Sign out",
     access: "signed_in",
     status: 204,
-    handler: ({ ctx, req }) => ctx.signIn.logOut(req),
+    handler: ({ ctx, req, res }) => ctx.signIn.logOut(req, res),
   }),
   route({
     method: "get",
@@ -52,17 +56,25 @@ export const sessionRoutes = [
   route({
     method: "post",
     path: "/auth/password",
-    summary: "Change one's own password; one's other sessions end",
+    summary: "Change one's own password; one's other sessions and reset links end",
+    description:
+      "The new password must have 12 characters or more and not be a common one (422 `password_too_common`, `password_repetitive` or `password_guessable` on `newPassword`); a wrong current password is 422 `current_password_wrong`. 429 `too_many_attempts` after five tries in fifteen minutes. This session stays signed in, on a new session id.",
     access: "signed_in",
     body: changePasswordInput,
     status: 204,
-    handler: ({ ctx, actor, body, req }) => changePassword(ctx, actor, body, req.sessionID),
+    handler: async ({ ctx, actor, body, req, res }) => {
+      // The new password's own rules first: a refused choice is not a guess at the current one.
+      checkNewPasswordOf(ctx, actor.email, body.newPassword);
+      await ctx.signIn.limit("passwordChange", req, res);
+      await changePassword(ctx, actor, body, req.sessionID);
+      await ctx.signIn.logIn(req, actor);
+    },
   }),
   route({
     method: "post",
     path: "/auth/password-reset/request",
     summary: "Mail a single-use link to choose a new password",
-    description: "Always 202, so the answer never tells whether the address has an account; 429 after five requests an hour.",
+    description: "Always 202, so the answer never tells whether the address has an account; 429 after five requests for one e-mail from one address, or ten from any, in an hour.",
     access: "public",
     body: resetRequestInput,
     status: 202,
@@ -76,7 +88,8 @@ export const sessionRoutes = [
   route({
     method: "post",
     path: "/auth/password-reset/confirm",
-    summary: "Choose a new password with the mailed link's token; every session of the person ends",
+    summary: "Choose a new password with the mailed link's token; every session and every other reset link of the person ends",
+    description: "422 `reset_link_invalid` for a used, expired or unknown link; the new password's rules as for a change.",
     access: "public",
     body: resetConfirmInput,
     status: 204,

@@ -4,8 +4,9 @@
  */
 export { peopleTable } from "./routes";
 export { createPassport } from "./passport";
-export { createSignIn, type SignIn } from "./sign-in";
+export { createSignIn, DEFAULT_RATE_LIMITS, SESSION_COOKIE, type RateLimits, type SignIn } from "./sign-in";
 export { DbSessionStore } from "./session-store";
-export { hashPassword } from "./password.commands";
+export { hashPassword, checkCredentials } from "./password.commands";
+export { isCommonPassword, passwordRefusal } from "./password-rules";
 export { userPolicy, type PersonFacts } from "./user.policy";
 export { trainingPolicy, trainingRequestPolicy, trainingAskPolicy, visibleTrainee, type TrainingRecordFacts, type TrainingRequestFacts } from "./training.policy";

@@ -2,17 +2,19 @@
 import { Passport } from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
 import type { DataSource } from "typeorm";
-import { verifyCredentials } from "./password.commands";
+import { checkCredentials } from "./password.commands";
 import { signedIn } from "./user.queries";
 
 export type PassportInstance = InstanceType<typeof Passport>;
 
-export function createPassport(ds: DataSource): PassportInstance {
+/** `bcryptCost` is the app's configured cost: the stand-in hash of unknown e-mails and rehashing use it. */
+export function createPassport(deps: { ds: DataSource; bcryptCost?: number }): PassportInstance {
+  const { ds } = deps;
   const passport = new Passport();
   passport.use(
     new LocalStrategy({ usernameField: "email", passwordField: "password", session: true }, (email, password, done) => {
-      verifyCredentials(ds, email, password)
-        .then((u) => done(null, (u && signedIn(ds, u.id)) || false))
+      checkCredentials(deps, email, password)
+        .then(({ user }) => done(null, (user && signedIn(ds, user.id)) || false))
         .catch(done);
     }),
   );

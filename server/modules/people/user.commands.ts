@@ -14,7 +14,7 @@ import { audit } from "../../core/audit";
 import { newToken } from "../../core/tokens";
 import type { AuthUser } from "../../middleware/auth";
 import type { PeopleDeps } from "./people.deps";
-import { hashPassword, issueReset } from "./password.commands";
+import { checkNewPasswordOf, hashPassword, issueReset } from "./password.commands";
 import { endSessionsOf } from "./session-store";
 import { findUser } from "./user.queries";
 import { userPolicy, type PersonFacts, type UserAction } from "./user.policy";
@@ -34,6 +34,7 @@ function authorizeField(actor: AuthUser, action: UserAction, person: PersonFacts
 }
 
 export async function createUser(deps: PeopleDeps, actor: AuthUser | null, input: CreateUserInput): Promise<User> {
+  if (input.password !== undefined) checkNewPasswordOf(deps, input.email, input.password, "password");
   const passwordHash = await hashPassword(input.password ?? newToken(), deps.bcryptCost);
   const id = await serialTransaction(deps.ds, async (em) => {
     const exists = await em.findOne(User, { where: { email: input.email } });

@@ -72,3 +72,28 @@ export async function knownOrganisations(ds: DataSource): Promise<string[]> {
   );
   return rows.map((r) => r.organisation);
 }
+
+/** One row of the people export: the account, its roles and where the person belongs, by name. */
+export interface PersonExportRow {
+  name: string;
+  email: string;
+  roles: string | null;
+  department: string | null;
+  researchGroup: string | null;
+  organisation: string | null;
+  active: number;
+  createdAt: string;
+}
+
+/** Everyone with an account, by name, for the administrator's export (an access review). */
+export function peopleForExport(ds: DataSource): Promise<PersonExportRow[]> {
+  return ds.query(
+    `SELECT u.name, u.email,
+            (SELECT group_concat(role, '; ') FROM (SELECT r.role FROM user_roles r WHERE r.userId = u.id ORDER BY r.role)) AS roles,
+            d.name AS department, g.name AS researchGroup, u.organisation, u.active, u.createdAt
+       FROM users u
+       LEFT JOIN departments d ON d.id = u.departmentId
+       LEFT JOIN research_groups g ON g.id = u.groupId
+      ORDER BY u.name COLLATE NOCASE, u.id`,
+  );
+}

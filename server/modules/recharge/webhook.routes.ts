@@ -7,29 +7,30 @@
 import Stripe from "stripe";
 import { webhookReceipt } from "@shared/schemas/recharge";
 import { route } from "../../http/route-table";
-import { BadRequest } from "../../errors";
-import { handlePaymentEvent } from "./payment-events.commands";
+import { AppError } from "../../errors";
+import { handlePaymentEvent, HANDLED_EVENT_TYPES, readPaymentEvent } from "./payment-events.commands";
 
 export const webhookRoutes = [
   route({
     method: "post",
     path: "/webhooks/stripe",
     summary: "An event from the payment service, signed (Stripe-Signature header)",
-    description: "The raw JSON body is verified against the webhook secret before anything is read; 400 for a missing or bad signature. An event id already handled answers `duplicate: true` and changes nothing.",
+    description: `The raw JSON body is verified against the webhook secret before anything is read; 400 for a missing or bad signature. A signed event without an id or a type is 400 \`event_id_missing\` / \`event_type_missing\`; one of a type other than ${HANDLED_EVENT_TYPES.join(", ")} is recorded once, changes nothing and is 400 \`event_type_unknown\`. An event id already handled answers \`duplicate: true\` and changes nothing.`,
     access: "public",
     consumes: "application/json",
     output: webhookReceipt,
     handler: async ({ ctx, req }) => {
       const secret = ctx.config.STRIPE_WEBHOOK_SECRET;
       const signature = req.get("stripe-signature");
-      if (!secret) throw new BadRequest("Payment events are not accepted: no webhook secret is configured.");
-      if (!signature || !Buffer.isBuffer(req.body)) throw new BadRequest("The event carries no valid signature.");
-      let event: Stripe.Event;
+      if (!secret) throw new AppError(400, "webhook_secret_missing", "Payment events are not accepted: no webhook secret is configured.");
+      if (!signature || !Buffer.isBuffer(req.body)) throw new AppError(400, "signature_missing", "The event carries no signature.");
+      let verified: unknown;
       try {
-        event = Stripe.webhooks.constructEvent(req.body, signature, secret);
+        verified = Stripe.webhooks.constructEvent(req.body, signature, secret);
       } catch {
-        throw new BadRequest("The event's signature does not verify.");
+        throw new AppError(400, "signature_invalid", "The event's signature does not verify.");
       }
+      const event = await readPaymentEvent(ctx, verified);
       const { duplicate } = await handlePaymentEvent(ctx, event);
       return { received: true, duplicate };
     },

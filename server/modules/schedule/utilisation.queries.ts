@@ -1,6 +1,7 @@
 /**
  * Utilisation per instrument per local month, computed by the pure utilisation() of
- * shared/domain over the instrument's bookable hours and its bookings, and written as CSV.
+ * shared/domain over the instrument's bookable hours and its bookings, and written as CSV by
+ * the one CSV writer (server/core/csv.ts).
  */
 import type { DataSource } from "typeorm";
 import { DateTime } from "luxon";
@@ -8,6 +9,7 @@ import type { BookableHours } from "@shared/domain/booking-rules";
 import { monthRange, utilisation } from "@shared/domain/utilisation";
 import type { BookingStatus } from "@shared/domain/intervals";
 import type { UtilisationRow } from "@shared/schemas/reports";
+import { toCsv, type CsvColumn } from "../../core/csv";
 import { MAX_BOOKING_MS } from "./booking.queries";
 
 export type { UtilisationRow };
@@ -53,27 +55,18 @@ export async function utilisationReport(ds: DataSource, tz: string, from: string
   return rows;
 }
 
-function csvCell(v: string | number | null): string {
-  if (v === null) return "";
-  const s = String(v);
-  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
+/** The CSV's columns: hours to two decimals, percentages to one, both numbers to a spreadsheet. */
+const UTILISATION_COLUMNS: CsvColumn<UtilisationRow>[] = [
+  { header: "instrument", value: (r) => r.instrumentName },
+  { header: "month", value: (r) => r.period },
+  { header: "bookable_hours", kind: "number", decimals: 2, value: (r) => r.bookableHours },
+  { header: "booked_hours", kind: "number", decimals: 2, value: (r) => r.bookedHours },
+  { header: "used_hours", kind: "number", decimals: 2, value: (r) => r.usedHours },
+  { header: "booked_percent", kind: "number", decimals: 1, value: (r) => r.bookedPct },
+  { header: "used_percent", kind: "number", decimals: 1, value: (r) => r.usedPct },
+];
 
-/** RFC 4180 CSV with CRLF line ends; hours to two decimals, percentages to one. */
+/** RFC 4180 CSV with CRLF line ends, through the one CSV writer (an instrument's name cannot start a formula). */
 export function utilisationCsv(rows: UtilisationRow[]): string {
-  const head = ["instrument", "month", "bookable_hours", "booked_hours", "used_hours", "booked_percent", "used_percent"];
-  const lines = rows.map((r) =>
-    [
-      r.instrumentName,
-      r.period,
-      r.bookableHours.toFixed(2),
-      r.bookedHours.toFixed(2),
-      r.usedHours.toFixed(2),
-      r.bookedPct === null ? null : r.bookedPct.toFixed(1),
-      r.usedPct === null ? null : r.usedPct.toFixed(1),
-    ]
-      .map(csvCell)
-      .join(","),
-  );
-  return [head.join(","), ...lines].join("\r\n") + "\r\n";
+  return toCsv(rows, UTILISATION_COLUMNS);
 }

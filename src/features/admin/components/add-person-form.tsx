@@ -74,7 +74,7 @@ function AddPersonFormBody({ onAdded, onCancel }: AddPersonFormProps) {
         label="First password (optional)"
         type="password"
         autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters. Leave empty and the person sets one through “Forgot your password?” on the sign-in page.`}
+        hint={`At least ${PASSWORD_MIN} characters, not a common password. Leave empty and the person sets one through “Forgot your password?” on the sign-in page.`}
         error={errors.password?.message}
         {...register("password", { setValueAs: (v: string) => (v === "" ? undefined : v) })}
       />

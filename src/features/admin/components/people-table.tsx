@@ -157,6 +157,9 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
               ? `Showing ${users.data.items.length} of ${users.data.total}; narrow the filter to see the rest.`
               : `${users.data.total} ${users.data.total === 1 ? "person" : "people"}`)}
         </p>
+        <a href="/api/users/export.csv" className="ml-auto flex h-8 items-center text-sm" download data-testid="people-csv">
+          Export CSV
+        </a>
       </div>
 
       {notice && (

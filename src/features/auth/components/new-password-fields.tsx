@@ -19,7 +19,7 @@ export function NewPasswordFields({ newPassword, repeatPassword, errors, autoFoc
         autoComplete="new-password"
         autoFocus={autoFocus}
         required
-        hint={`At least ${PASSWORD_MIN} characters. A short sentence is easy to remember and hard to guess.`}
+        hint={`At least ${PASSWORD_MIN} characters, and not a common password or one made of your e-mail address. A short sentence is easy to remember and hard to guess.`}
         error={errors.newPassword}
         {...newPassword}
       />
