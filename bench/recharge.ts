@@ -145,14 +145,15 @@ export function seedRechargeMonth(ds: DataSource, opts: Required<Pick<RechargeBe
     }
 
     const usage = db.prepare(
-      `INSERT INTO container_usages (containerId, userId, bookingId, accountId, amount, unit, amountInContainerUnit, costCents, at) VALUES (?, ?, ?, ?, ?, 'mL', ?, ?, ?)`,
+      // As a usage is logged: the cost kept unrounded (amount in the cost unit, price of one unit) besides its rounded figure.
+      `INSERT INTO container_usages (containerId, userId, bookingId, accountId, amount, unit, amountInContainerUnit, costCents, costQuantity, costUnit, unitCostCents, at) VALUES (?, ?, ?, ?, ?, 'mL', ?, ?, ?, 'mL', '37', ?)`,
     );
     for (let i = 0; i < opts.usages; i++) {
       const k = Math.floor(rnd() * bookingIds.length);
       const withBooking = rnd() < 0.7;
       const amount = Math.round((0.5 + rnd() * 20) * 100) / 100;
       const at = month.set({ day: 1 + Math.floor(rnd() * days), hour: 8 + Math.floor(rnd() * 10), minute: Math.floor(rnd() * 60) });
-      usage.run(pick(containers), pick(users), withBooking ? bookingIds[k] : null, withBooking ? null : pick(accounts), amount, amount, Math.round(amount * 37), at.toUTC().toISO());
+      usage.run(pick(containers), pick(users), withBooking ? bookingIds[k] : null, withBooking ? null : pick(accounts), amount, amount, Math.round(amount * 37), String(amount), at.toUTC().toISO());
     }
   })();
 }
@@ -164,7 +165,7 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   const seedMs = performance.now() - t0;
   const now = () => DateTime.fromFormat(opts.period, "yyyy-MM", { zone: opts.tz }).plus({ months: 1, days: 2 }).toJSDate();
   // Statement PDFs go to the outbox after the run's commit (mail-statements job); timed apart.
-  const deps: RechargeDeps = { ds, now, config: { FACILITY_TZ: opts.tz, CURRENCY: "CAD", FACILITY_NAME: "Liquid Interfaces Core" } };
+  const deps: RechargeDeps = { ds, now, config: { FACILITY_TZ: opts.tz, CURRENCY: "CAD", FACILITY_NAME: "Liquid Interfaces Core", RECOVERY_ACCOUNT: "4510-LIC-RECOVERY" } };
 
   global.gc?.();
   let peakRss = process.memoryUsage().rss;

@@ -49,6 +49,11 @@ const schema = z.object({
   START_FAKES: bool.optional(),
   /** Facility currency (ISO 4217). */
   CURRENCY: z.string().length(3).default("CAD"),
+  /**
+   * The facility's cost-recovery (income) account in the institution's ledger: every finance
+   * journal credits it with what the internal accounts are debited. Default: the demo's invented code.
+   */
+  RECOVERY_ACCOUNT: z.string().trim().min(1, "give the recovery account's code").max(60).default("4510-LIC-RECOVERY"),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   /** Log level for pino. */
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),

@@ -87,7 +87,13 @@ async function main(): Promise<void> {
   };
   let seeded = false;
   try {
-    if (config.DEMO_SEED) seeded = (await seedDemo(ds, { now: systemClock.now(), tz: config.FACILITY_TZ })).seeded;
+    if (config.DEMO_SEED) seeded = (await seedDemo(ds, {
+        now: systemClock.now(),
+        tz: config.FACILITY_TZ,
+        currency: config.CURRENCY,
+        facilityName: config.FACILITY_NAME,
+        recoveryAccount: config.RECOVERY_ACCOUNT,
+      })).seeded;
     if (production && !config.DEMO_SEED) {
       const demo = await accountsWithDemoPassword(ds, DEMO_PASSWORD);
       if (demo.length) throw new Refusal(demoPasswordRefusal(demo));

@@ -46,15 +46,24 @@ function cell(v: CsvCell, { kind, decimals, header }: CsvColumn<never>): string 
   return guardCell(v);
 }
 
-/** Rows to CSV text: a header line of the columns' headers, then one line per row. */
-export function toCsv<T>(rows: readonly T[], columns: readonly CsvColumn<T>[]): string {
+const UNPARSE = {
+  // A guarded cell is also quoted, as OWASP recommends; papaparse quotes the rest as needed.
+  quotes: (value: unknown) => typeof value === "string" && value.startsWith("'"),
+  newline: "\r\n",
+};
+
+export interface CsvOptions {
+  /**
+   * Lines of one text cell each, written before the header (guarded like any text cell): a
+   * warning a reader must see first, such as the VOID line of a voided run's journal.
+   */
+  preamble?: readonly string[];
+}
+
+/** Rows to CSV text: any preamble lines, a header line of the columns' headers, then one line per row. */
+export function toCsv<T>(rows: readonly T[], columns: readonly CsvColumn<T>[], options: CsvOptions = {}): string {
   const data = rows.map((row) => columns.map((c) => cell(c.value(row), c as CsvColumn<never>)));
-  return Papa.unparse(
-    { fields: columns.map((c) => guardCell(c.header)), data },
-    {
-      // A guarded cell is also quoted, as OWASP recommends; papaparse quotes the rest as needed.
-      quotes: (value: unknown) => typeof value === "string" && value.startsWith("'"),
-      newline: "\r\n",
-    },
-  );
+  const table = Papa.unparse({ fields: columns.map((c) => guardCell(c.header)), data }, UNPARSE);
+  if (!options.preamble?.length) return table;
+  return `${Papa.unparse(options.preamble.map((line) => [guardCell(line)]), UNPARSE)}\r\n${table}`;
 }

@@ -26,22 +26,32 @@ export function pdfTable(doc: PDFKit.PDFDocument, columns: readonly PdfColumn[],
   const size = opts.fontSize ?? 8.5;
   const bottom = opts.bottom ?? doc.page.height - doc.page.margins.bottom;
   const left = doc.page.margins.left;
-  const heightOf = (cells: readonly string[], bold: boolean) => {
+  // A cell that fits on one line is one line high and drawn as one run of text; only longer
+  // ones go through pdfkit's line wrapper, which costs far more (a statement has thousands of
+  // short cells). Widths are measured in the row's font.
+  const measure = (cells: readonly string[], bold: boolean) => {
     doc.font(bold ? "Helvetica-Bold" : "Helvetica").fontSize(size);
-    return Math.max(...cells.map((c, i) => doc.heightOfString(c || " ", { width: columns[i].width - 2 * PAD }))) + 2 * PAD;
+    const line = doc.currentLineHeight(true);
+    const widths = cells.map((c) => (c.includes("\n") ? Infinity : doc.widthOfString(c)));
+    const fits = widths.map((w, i) => w < columns[i].width - 2 * PAD);
+    const height = Math.max(...cells.map((c, i) => (fits[i] ? line : doc.heightOfString(c || " ", { width: columns[i].width - 2 * PAD })))) + 2 * PAD;
+    return { height, widths, fits };
   };
   const drawRow = (cells: readonly string[], bold: boolean, shade: boolean) => {
-    const h = heightOf(cells, bold);
-    if (doc.y + h > bottom) {
+    const m = measure(cells, bold);
+    if (doc.y + m.height > bottom) {
       doc.addPage();
       drawHeader();
     }
+    const h = m.height;
     const top = doc.y;
     if (shade) doc.save().rect(left, top, columns.reduce((w, c) => w + c.width, 0), h).fill("#eef1f4").restore();
     let x = left;
     doc.font(bold ? "Helvetica-Bold" : "Helvetica").fontSize(size).fillColor("black");
     cells.forEach((cell, i) => {
-      doc.text(cell, x + PAD, top + PAD, { width: columns[i].width - 2 * PAD, align: columns[i].align ?? "left" });
+      const inner = columns[i].width - 2 * PAD;
+      if (!m.fits[i]) doc.text(cell, x + PAD, top + PAD, { width: inner, align: columns[i].align ?? "left" });
+      else if (cell !== "") doc.text(cell, columns[i].align === "right" ? x + PAD + inner - m.widths[i] : x + PAD, top + PAD, { lineBreak: false });
       x += columns[i].width;
     });
     doc.moveTo(left, top + h).lineTo(x, top + h).lineWidth(0.4).strokeColor("#9aa5b1").stroke();

@@ -19,4 +19,10 @@ export class BillingRun {
   @Column("text", { nullable: true }) voidedAt: string | null;
   @Column("integer", { nullable: true }) voidedById: number | null;
   @Column("text", { nullable: true }) voidReason: string | null;
+  /**
+   * The facility's recovery account the run's journal credits (RECOVERY_ACCOUNT when it was
+   * finalised); set together with its journal_lines. Null for runs finalised before journals
+   * were stored: their journal is built from the statements when downloaded.
+   */
+  @Column("text", { nullable: true }) recoveryAccount: string | null;
 }

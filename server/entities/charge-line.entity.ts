@@ -23,11 +23,19 @@ export class ChargeLine {
   @Index() @Column("integer", { nullable: true }) userId: number | null;
   @Column("integer", { nullable: true }) rateId: number | null;
   @Column("text") description: string;
-  /** Minutes for instrument time, the amount used for consumables, 1 otherwise. */
-  @Column("real") quantity: number;
+  /**
+   * Exact decimal text ("1.5", "31.4225"), or a reduced fraction ("1/6") where no decimal is
+   * exact: hours for instrument time, the amount in the chemical's cost unit for consumables,
+   * 1 for single amounts (adjustments, corrections, cap credits).
+   */
+  @Column("text") quantity: string;
+  /** h, mL, g, each… */
   @Column("text") unit: string;
-  /** Hourly rate for time, unit cost for consumables, the amount otherwise. */
-  @Column("integer") unitPriceCents: number;
+  /**
+   * The price of ONE unit in cents, mark-up included, as exact decimal text (may hold fractions
+   * of a cent): quantity × unitPriceCents rounds (once, half away from zero) to amountCents.
+   */
+  @Column("text") unitPriceCents: string;
   @Column("integer") amountCents: number;
   /** When the charged thing happened (session start, usage time, entry time). */
   @Column("text") at: string;

@@ -4,6 +4,7 @@ import { AuditEntry } from "./audit-entry.entity";
 import { BillingAdjustment } from "./billing-adjustment.entity";
 import { BillingRun } from "./billing-run.entity";
 import { ChargeLine } from "./charge-line.entity";
+import { JournalLine } from "./journal-line.entity";
 import { ProcessedEvent } from "./processed-event.entity";
 import { Rate } from "./rate.entity";
 import { Statement } from "./statement.entity";
@@ -39,7 +40,7 @@ export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   Setup, SetupInstrument, TrainingRequest,
-  BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
+  BillingAdjustment, BillingRun, ChargeLine, JournalLine, ProcessedEvent, Rate, Statement,
 };
 // Stockroom and safety review.
 export { ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert };
@@ -49,5 +50,5 @@ export const entities = [
   OutboundMail, PasswordReset, ResearchGroup, SessionRow, Setting, TrainingRecord, User, UserRole,
   ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert,
   Setup, SetupInstrument, TrainingRequest,
-  BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
+  BillingAdjustment, BillingRun, ChargeLine, JournalLine, ProcessedEvent, Rate, Statement,
 ];

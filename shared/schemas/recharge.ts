@@ -27,6 +27,12 @@ export const period = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Give the mont
 export { pageOf };
 /** Whole cents in an answer. */
 const amount = z.number().int();
+/**
+ * An exact figure as text: a decimal ("1.5", "13.2", "-250") or, where no decimal is exact, a
+ * reduced fraction ("1/6" h for ten minutes). Charge lines carry quantities and unit prices so,
+ * because a JSON number could not hold them exactly.
+ */
+export const exactFigure = z.string().regex(/^-?\d+(\.\d+)?$|^-?\d+\/\d+$/, "An exact decimal such as 1.25, or a fraction such as 1/6");
 
 // ---- rates ------------------------------------------------------------------------------------
 
@@ -236,10 +242,13 @@ export const chargeLineDto = z.object({
   instrumentId: z.number().int().nullable(),
   usageId: z.number().int().nullable(),
   userId: z.number().int().nullable(),
-  quantity: z.number(),
+  /** Exact: hours for instrument time, the amount in the cost unit for consumables, 1 for single amounts. */
+  quantity: exactFigure,
+  /** h, mL, g, each… */
   unit: z.string(),
-  unitPriceCents: amount,
-  /** Integer cents. */
+  /** The price of one unit in cents, mark-up included (may hold fractions of a cent); quantity × unit price rounds to `amount`. */
+  unitPriceCents: exactFigure,
+  /** Integer cents: quantity × unit price rounded once, half away from zero. */
   amount,
   at: z.string(),
 });
@@ -277,8 +286,10 @@ export type StatementDto = z.infer<typeof statementDto>;
 export const billingRunAbilities = z.object({
   /** Void it (a final run none of whose invoices has been paid). */
   void: z.boolean(),
-  /** Export its finance journal. */
+  /** Export its finance journal (a voided run's is marked VOID). */
   journal: z.boolean(),
+  /** Export the reversing journal (a voided run only). */
+  reversal: z.boolean(),
 });
 export type BillingRunAbilities = z.infer<typeof billingRunAbilities>;
 
@@ -413,8 +424,9 @@ export const myChargeDto = z.object({
   accountName: z.string(),
   kind: z.enum(CHARGE_KINDS),
   description: z.string(),
-  quantity: z.number(),
+  quantity: exactFigure,
   unit: z.string(),
+  unitPriceCents: exactFigure,
   amount,
   at: z.string(),
   bookingId: z.number().int().nullable(),

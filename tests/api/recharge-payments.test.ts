@@ -89,8 +89,8 @@ describe("external invoices", () => {
     expect(flat).toContain("Status: invoice open");
     expect(flat).toContain(`Pay online: ${row.invoiceUrl}`);
     expect(pdf.links).toContain(row.invoiceUrl);
-    // 90 booked minutes × 12000/60 = 18000 cents = $180.00, the only line and the total.
-    expect(pdf.text.split("\n").filter((r) => r === "$180.00")).toHaveLength(2);
+    // 90 booked minutes × 12000/60 = 18000 cents = $180.00: the only line, its instrument's subtotal, and the total.
+    expect(pdf.text.split("\n").filter((r) => r === "$180.00")).toHaveLength(3);
   });
 
   it("marks the statement paid when the signed invoice.paid event arrives, and a replay changes nothing", async () => {

@@ -224,7 +224,7 @@ describe("statements and billing runs", () => {
 
   it("sends the run with its abilities, and answers a second run of the month 409 period_final naming the run", async () => {
     const run = billingRunResponse.parse((await manager.get(`/api/billing/runs/${runId}`)).body).run;
-    expect(run.abilities).toEqual({ void: true, journal: true });
+    expect(run.abilities).toEqual({ void: true, journal: true, reversal: false });
     expect(run.statements.find((s) => s.id === statements.external)!.abilities).toEqual({ download: true, pay: true });
     const again = await manager.post("/api/billing/runs", { period: "2026-11" });
     expect(again.status).toBe(409);
@@ -250,7 +250,7 @@ describe("statements and billing runs", () => {
     const v = await manager.post(`/api/billing/runs/${runId}/void`, { reason: "Wrong rates loaded" });
     expect(v.status, v.text).toBe(200);
     const voided = billingRunResponse.parse(v.body).run;
-    expect(voided.abilities).toEqual({ void: false, journal: true });
+    expect(voided.abilities).toEqual({ void: false, journal: true, reversal: true });
     const again = await manager.post(`/api/billing/runs/${runId}/void`, { reason: "Once more" });
     expect(again.status).toBe(409);
     expect(again.body.code).toBe("already_void");

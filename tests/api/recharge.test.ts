@@ -16,7 +16,19 @@ import type { Account, Instrument, User } from "../../server/entities";
 import type { BillingRunDto, StatementDto } from "@shared/schemas/recharge";
 import { jobs, type JobDeps } from "../../server/jobs/scheduler";
 import { ROUNDING_RULE } from "../../server/modules/recharge/statement-pdf";
+import { lineReconciles } from "@shared/domain/charges";
 import { readPdf } from "../support/pdf-text";
+import Papa from "papaparse";
+
+/** The facility's recovery account in this suite (RECOVERY_ACCOUNT), so the journal is seen to use the setting. */
+const RECOVERY = "4700-CORE-RECOVERY";
+
+/** A journal file's rows read back with papaparse. */
+function journal(text: string): { header: string[]; rows: Record<string, string>[] } {
+  const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true });
+  return { header: parsed.meta.fields ?? [], rows: parsed.data };
+}
+const cents = (text: string) => (text === "" ? 0 : Math.round(Number(text) * 100));
 
 let t: TestApp;
 let manager: ApiClient;
@@ -43,7 +55,7 @@ function statementOf(run: BillingRunDto, accountId: number): StatementDto {
 }
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } }, env: { RECOVERY_ACCOUNT: RECOVERY } });
   const managerUser = await makeUser(t.ds, { roles: ["manager", "member"] });
   leadUser = await makeUser(t.ds, { roles: ["group_lead", "member"] });
   memberUser = await makeUser(t.ds, { roles: ["member"] });
@@ -176,19 +188,40 @@ describe("a monthly billing run, worked by hand", () => {
     expect(rows.some((m) => m.to === "accounts@customer.example")).toBe(true);
   });
 
-  it("writes a journal whose amounts add up to the internal statements' total", async () => {
+  it("gives every line its quantity, unit and the price of one unit, which multiply to its amount", async () => {
+    const lines = run.statements.flatMap((st) => st.lines);
+    for (const l of lines) expect(lineReconciles({ quantity: l.quantity, unit: l.unit, unitPriceCents: l.unitPriceCents, amountCents: l.amount }), l.description).toBe(true);
+    const s = statementOf(run, internal.id);
+    // Instrument time in hours at the hourly rate: 75 min = 1.25 h × 4000 = 5000; 240 min = 4 h × 4000 = 16000.
+    expect(s.lines.filter((l) => l.kind === "instrument").map((l) => [l.quantity, l.unit, l.unitPriceCents, l.amount])).toEqual([
+      ["4", "h", "4000", 16000],
+      ["1.25", "h", "4000", 5000],
+      ["0.5", "h", "4000", 2000],
+      ["1", "h", "4000", 4000],
+      ["0.75", "h", "4000", 3000],
+      ["1", "h", "6000", 6000],
+      ["1", "h", "9000", 9000],
+    ]);
+    // A usage logged with only its rounded cost (before usages kept it exactly): 1 each at 1234 × 1.1 = 1357.4 ¢ → 1357.
+    expect(s.lines.find((l) => l.kind === "consumable")).toMatchObject({ quantity: "1", unit: "each", unitPriceCents: "1357.4", amount: 1357 });
+  });
+
+  it("writes a double-entry journal: the internal account debited, the recovery account credited, debits = credits = the internal total", async () => {
     const j = await manager.get(`/api/billing/runs/${run.id}/journal.csv`);
     expect(j.status).toBe(200);
     expect(j.headers.get("content-type")).toContain("text/csv");
-    const [header, ...rows] = j.text.trim().split("\r\n");
-    expect(header).toBe("period,cost_centre,department,amount,currency,description");
-    expect(rows).toHaveLength(1);
-    const cells = rows[0].split(",");
-    expect(cells.slice(0, 2)).toEqual(["2026-11", "CHEM-0001"]);
-    const journalCents = rows.map((r) => Math.round(Number(r.split(",")[3]) * 100)).reduce((a, b) => a + b, 0);
+    expect(j.headers.get("content-disposition")).toContain("journal-2026-11.csv");
+    const { header, rows } = journal(j.text);
+    expect(header).toEqual(["period", "account", "department", "debit", "credit", "currency", "description"]);
+    // One internal statement (463.57) → its debit and the recovery account's credit; the external one is invoiced, not journalled.
+    expect(rows.map((r) => [r.period, r.account, r.debit, r.credit, r.currency])).toEqual([
+      ["2026-11", "CHEM-0001", "463.57", "", "CAD"],
+      ["2026-11", RECOVERY, "", "463.57", "CAD"],
+    ]);
     const internalTotal = run.statements.filter((s) => s.accountKind === "internal").reduce((a, s) => a + s.total, 0);
-    expect(journalCents).toBe(internalTotal);
-    expect(cells[3]).toBe("463.57");
+    expect(rows.reduce((a, r) => a + cents(r.debit), 0)).toBe(internalTotal);
+    expect(rows.reduce((a, r) => a + cents(r.credit), 0)).toBe(internalTotal);
+    expect(rows[0].description).toBe("Liquid Interfaces Core recharge 2026-11: Account 0 (8 lines)");
   });
 
   it("answers 409 for a second run of the same month", async () => {
@@ -222,6 +255,7 @@ describe("a monthly billing run, worked by hand", () => {
     const v = await manager.post(`/api/billing/runs/${run.id}/void`, { reason: "Wrong policy loaded" });
     expect(v.status).toBe(200);
     expect(v.body.run.status).toBe("voided");
+    expect(v.body.run.abilities).toMatchObject({ journal: true, reversal: true });
     const again = await manager.post("/api/billing/runs", { period: "2026-11" });
     expect(again.status).toBe(201);
     expect(statementOf(again.body.run, internal.id).total).toBe(46357);
@@ -249,7 +283,7 @@ describe("a monthly billing run, worked by hand", () => {
     expect((await member.get(`/api/billing/statements/${st.id}/statement.pdf`)).status).toBe(404);
   });
 
-  it("prints the facility, account, month, every line, the total, the currency and the rounding rule on the statement PDF", async () => {
+  it("prints the statement PDF as columns: date, description (whole), quantity, unit, unit price and amount, with subtotals, the total, the currency and the rounding rule", async () => {
     const st = statementOf(run, internal.id);
     const res = await fetch(`${t.url}/api/billing/statements/${st.id}/statement.pdf`, { headers: { cookie: lead.cookieHeader } });
     expect(res.status).toBe(200);
@@ -259,16 +293,29 @@ describe("a monthly billing run, worked by hand", () => {
     expect(flat).toContain(`Account: CHEM-0001 — ${internal.name}`);
     expect(flat).toContain("Currency: CAD. Dates in America/Halifax.");
     expect(flat).toContain("Settled by internal journal transfer.");
-    expect(flat).toContain(ROUNDING_RULE);
-    // Every line's amount in statement order, then the total: 46357 cents = $463.57.
+    expect(flat).toContain(`Amounts in CAD. ${ROUNDING_RULE}`);
     const rows = pdf.text.split("\n");
-    const amounts = rows.filter((r) => /^-?\$[\d,]+\.\d\d$/.test(r));
-    expect(amounts).toEqual(["$160.00", "$50.00", "$20.00", "$40.00", "$30.00", "$13.57", "$60.00", "$90.00", "$463.57"]);
-    expect(rows[rows.indexOf("$463.57") - 1]).toBe("Total (sum of the lines above)");
+    const run6 = (cells: string[]) => rows.findIndex((_r, i) => cells.every((c, k) => rows[i + k] === c));
+    expect(run6(["Date", "Description", "Quantity", "Unit", "Unit price (CAD)", "Amount (CAD)"])).toBeGreaterThan(0);
+    // Wrapped, never cut off: every line's whole description (and the person) is on the page.
+    const squeezed = pdf.text.replace(/\s+/g, "");
+    for (const l of st.lines) expect(squeezed, l.description).toContain(l.description.replace(/\s+/g, ""));
+    expect(flat).not.toContain("…");
+    // The figures of each line as columns (quantity, unit, unit price, amount), worked above.
+    expect(run6(["1.25", "h", "$40.00", "$50.00"])).toBeGreaterThan(0);
+    expect(run6(["0.75", "h", "$40.00", "$30.00"])).toBeGreaterThan(0);
+    // The consumable: 1 each at 1234 ¢ × 1.1 = 1357.4 ¢ = $13.574, amount $13.57.
+    expect(run6(["1", "each", "$13.574", "$13.57"])).toBeGreaterThan(0);
+    // Subtotals: PS-1 160 + 50 + 20 + 40 + 30 = $300.00; PS-2 60 + 90 = $150.00; consumables $13.57;
+    // the total 300 + 150 + 13.57 = $463.57.
+    expect(run6(["Subtotal, PS-1", "$300.00"])).toBeGreaterThan(0);
+    expect(run6(["Subtotal, PS-2", "$150.00"])).toBeGreaterThan(0);
+    expect(run6(["Subtotal, Consumables", "$13.57"])).toBeGreaterThan(0);
+    expect(run6(["Total (sum of the subtotals)", "$463.57"])).toBeGreaterThan(0);
     // The first half of the rate-change session began at 23:00 on 14 November, Halifax time
     // (03:00Z on the 15th): the statement dates it by the facility's calendar.
-    expect(rows[rows.indexOf("$60.00") - 2]).toBe("2026-11-14");
-    expect(rows[rows.indexOf("$60.00") - 1]).toContain("PS-2");
+    const first = rows.findIndex((r) => r.startsWith("PS-2, booking"));
+    expect(rows[first - 1]).toBe("2026-11-14");
   });
 
   it("puts a manager's credit on the next open month's statement with its reason", async () => {

@@ -19,8 +19,8 @@ async function as(email: string): Promise<ApiClient> {
 }
 
 beforeAll(async () => {
-  t = await startTestApp({ deps: { loginRateLimit: { windowMs: 60_000, limit: 1000 } } });
-  await seedDemo(t.ds, { now: new Date(TEST_NOW), bcryptCost: 4 });
+  t = await startTestApp({ deps: { rateLimits: { login: { windowMs: 60_000, limit: 1000 } } } });
+  await seedDemo(t.ds, { now: new Date(TEST_NOW), bcryptCost: t.ctx.bcryptCost });
   for (const [k, email] of Object.entries({
     buyer: "buyer@tidewater.example",
     member: "member@kestrelbay.example",

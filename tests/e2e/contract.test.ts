@@ -5,6 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DateTime } from "luxon";
+import Papa from "papaparse";
 import { startServer, DEMO_PASSWORD, type RunningServer } from "../support/e2e";
 import { ApiClient } from "../support/http-client";
 
@@ -179,10 +180,12 @@ describe("recharge", () => {
     const internalTotal = statements.filter((s) => internal.has(s.accountId)).reduce((a, s) => a + s.total, 0);
     const csv = await as.manager.get(`/api/billing/runs/${run.body.run.id}/journal.csv`);
     expect(csv.status).toBe(200);
-    const [header, ...rows] = csv.text.trim().split(/\r?\n/);
-    const amountAt = header.split(",").findIndex((h) => /amount/i.test(h));
-    const sumCents = rows.reduce((a, row) => a + Math.round(Number(row.split(",")[amountAt].replace(/"/g, "")) * 100), 0);
-    expect(sumCents).toBe(internalTotal);
+    // Double entry (issue 11): each internal account debited, the recovery account credited; the debits add up to the internal total, and so do the credits.
+    const parsed = Papa.parse<Record<string, string>>(csv.text, { header: true, skipEmptyLines: true });
+    expect(parsed.meta.fields).toEqual(expect.arrayContaining(["account", "debit", "credit", "currency", "description"]));
+    const sum = (column: string) => parsed.data.reduce((a, row) => a + Math.round(Number(row[column] || "0") * 100), 0);
+    expect(sum("debit")).toBe(internalTotal);
+    expect(sum("credit")).toBe(internalTotal);
   });
 
   it("refuses a payment webhook with a bad signature", async () => {

@@ -1,11 +1,15 @@
 /**
- * The manager bills last month in the browser: finalises the run, downloads the finance journal
- * (whose amounts add up to the internal statements), sees Tidewater's invoice open, pays it on
- * the fake payment service's hosted page, and sees the statement turn to paid. On the accounts
+ * The manager opens Recharge on the demo's billed month (the month before last: statements with
+ * their lines' quantity, unit and unit price, one invoice paid), then bills last month in the
+ * browser: finalises the run, downloads the double-entry finance journal (debits and credits
+ * each add up to the internal statements), sees Tidewater's invoice open, pays it on the fake
+ * payment service's hosted page, and sees the statement turn to paid. A voided run offers its
+ * reversing journal. On the accounts
  * tab, a group lead cannot put the external customer on an internal grant; the manager can, by
  * saying why, and the member list shows the exception.
  */
 import fs from "node:fs";
+import Papa from "papaparse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DateTime } from "luxon";
 import type { Browser, Page } from "playwright-core";
@@ -31,6 +35,15 @@ describe("a month of recharge billing in the browser", () => {
     try {
       await signIn(page, server.url, "manager@kestrelbay.example");
       await page.click('[data-testid="nav-recharge"]');
+      // The demo's billed month is open on arrival: Northcape's invoice paid, each statement's lines with their figures.
+      const billed = DateTime.now().setZone("America/Halifax").minus({ months: 2 }).toFormat("yyyy-MM");
+      await expect.poll(() => page.locator(`[data-testid="run-${billed}"]`).count(), { timeout: 15_000 }).toBe(1);
+      await expect.poll(() => page.locator('[data-testid="invoice-status-EXT-0002-NCU"]').textContent(), { timeout: 15_000 }).toBe("paid");
+      await page.getByRole("button", { name: /^Show the \d+ lines of CHEM-4410-SIG$/ }).click();
+      const lines = page.getByRole("table", { name: `Lines of CHEM-4410-SIG, ${billed}` });
+      for (const column of ["Quantity", "Unit", "Unit price", "Amount"]) expect(await lines.getByRole("columnheader", { name: column, exact: true }).count()).toBe(1);
+      expect(await lines.getByRole("cell", { name: "h", exact: true }).count()).toBeGreaterThan(0);
+
       await page.fill('[data-testid="run-period"]', period);
       await page.click('[data-testid="finalise-button"]');
 
@@ -38,14 +51,17 @@ describe("a month of recharge billing in the browser", () => {
       await expect.poll(() => status.textContent(), { timeout: 20_000 }).toBe("open");
 
       const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-testid="journal-link"]')]);
-      const csv = fs.readFileSync((await download.path())!, "utf8").trim().split("\r\n");
-      expect(csv[0]).toBe("period,cost_centre,department,amount,currency,description");
-      expect(csv.length).toBeGreaterThan(1);
-      expect(csv.slice(1).every((row) => row.startsWith(`${period},`))).toBe(true);
-      const journalCents = csv.slice(1).reduce((a, row) => a + Math.round(Number(row.split(",")[3]) * 100), 0);
+      expect(download.suggestedFilename()).toBe(`journal-${period}.csv`);
+      const csv = Papa.parse<Record<string, string>>(fs.readFileSync((await download.path())!, "utf8"), { header: true, skipEmptyLines: true });
+      expect(csv.meta.fields).toEqual(["period", "account", "department", "debit", "credit", "currency", "description"]);
+      expect(csv.data.length).toBeGreaterThan(1);
+      expect(csv.data.every((row) => row.period === period)).toBe(true);
+      const sum = (column: string) => csv.data.reduce((a, row) => a + Math.round(Number(row[column] || "0") * 100), 0);
       const runs = await page.evaluate(async () => (await (await fetch("/api/billing/runs")).json()) as { items: { id: number }[] });
       const run = await page.evaluate(async (id) => (await (await fetch(`/api/billing/runs/${id}`)).json()) as { run: { statements: { accountKind: string; total: number }[] } }, runs.items[0].id);
-      expect(journalCents).toBe(run.run.statements.filter((s) => s.accountKind === "internal").reduce((a, s) => a + s.total, 0));
+      const internalTotal = run.run.statements.filter((s) => s.accountKind === "internal").reduce((a, s) => a + s.total, 0);
+      expect(sum("debit")).toBe(internalTotal);
+      expect(sum("credit")).toBe(internalTotal);
 
       const href = await page.locator('[data-testid="invoice-link-EXT-0001-TMR"]').getAttribute("href");
       expect(href?.startsWith(`${server.paymentsUrl}/invoices/`)).toBe(true);
@@ -94,6 +110,36 @@ describe("a month of recharge billing in the browser", () => {
       await expect.poll(() => page.getByRole("table", { name: "My charges" }).getByRole("row", { name: new RegExp(period) }).count(), { timeout: 15_000 }).toBeGreaterThan(0);
     });
   });
+  it("offers a voided run's reversing journal for download, with debit and credit swapped", async () => {
+    // A month of no demo use, billed and voided through the API; the page offers its reversal from the run's abilities.
+    const period = DateTime.now().setZone("America/Halifax").minus({ months: 4 }).toFormat("yyyy-MM");
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+    const page = await context.newPage();
+    try {
+      await signIn(page, server.url, "manager@kestrelbay.example");
+      const voided = await page.evaluate(async (p) => {
+        const token = ((await (await fetch("/api/auth/csrf")).json()) as { token: string }).token;
+        const post = (url: string, body: object) => fetch(url, { method: "POST", headers: { "content-type": "application/json", "x-csrf-token": token }, body: JSON.stringify(body) });
+        const run = ((await (await post("/api/billing/runs", { period: p })).json()) as { run: { id: number } }).run;
+        await post(`/api/billing/runs/${run.id}/void`, { reason: "Billed by mistake in a test" });
+        return run.id;
+      }, period);
+      await page.click('[data-testid="nav-recharge"]');
+      await page.locator(`[data-testid="run-${period}"]`).getByRole("button", { name: "Open" }).click();
+      await expect.poll(() => page.locator('[data-testid="reversal-link"]').count(), { timeout: 15_000 }).toBe(1);
+      expect(await page.locator('[data-testid="journal-link"]').textContent()).toBe("Journal, void (CSV)");
+      const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-testid="reversal-link"]')]);
+      expect(download.suggestedFilename()).toBe(`journal-${period}-reversal.csv`);
+      const csv = Papa.parse<Record<string, string>>(fs.readFileSync((await download.path())!, "utf8"), { header: true, skipEmptyLines: true });
+      expect(csv.meta.fields).toEqual(["period", "account", "department", "debit", "credit", "currency", "description"]);
+      const sum = (column: string) => csv.data.reduce((a, row) => a + Math.round(Number(row[column] || "0") * 100), 0);
+      expect(sum("debit")).toBe(sum("credit"));
+      expect(voided).toBeGreaterThan(0);
+    } finally {
+      await context.close();
+    }
+  });
+
   it("refuses the group lead an external customer on an internal grant, and lets the manager add them as a stated exception", async () => {
     const addBuyer = async (page: Page) => {
       await page.getByRole("row", { name: /CHEM-4410-SIG/ }).getByRole("button", { name: "Manage" }).click();

@@ -7,7 +7,7 @@ import net from "node:net";
 import { spawn, type ChildProcess } from "node:child_process";
 
 /** Variables Phasebook reads; the child gets none of them from the test runner's environment. */
-const PHASEBOOK_VARS = /^(PORT|HOST|DATABASE_PATH|SESSION_SECRET|PUBLIC_URL|FACILITY_|SMTP_URL|MAIL_FROM|STRIPE_|DEMO_SEED|START_FAKES|CURRENCY|NODE_ENV|LOG_LEVEL|BACKUP_|FAKE_|API_PORT)/;
+const PHASEBOOK_VARS = /^(PORT|HOST|DATABASE_PATH|SESSION_SECRET|PUBLIC_URL|FACILITY_|SMTP_URL|MAIL_FROM|STRIPE_|DEMO_SEED|START_FAKES|CURRENCY|RECOVERY_ACCOUNT|NODE_ENV|LOG_LEVEL|BACKUP_|FAKE_|API_PORT)/;
 
 export function childEnv(env: Record<string, string>): NodeJS.ProcessEnv {
   const base = Object.fromEntries(Object.entries(process.env).filter(([k]) => !PHASEBOOK_VARS.test(k)));

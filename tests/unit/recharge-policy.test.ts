@@ -203,22 +203,23 @@ const NOT_MANAGERS: [string, AuthUser][] = [
   ["the administrator", ADMIN],
 ];
 
-// who, run, void, journal
-const runTable: [string, AuthUser, BillingRunFacts, string, string][] = [
-  ["the manager, a final run", MANAGER, run({}), "ok", "ok"],
-  ["the manager, a final run with a paid invoice", MANAGER, run({ paidInvoices: 1 }), "409 invoice_paid", "ok"],
-  ["the manager, a voided run", MANAGER, run({ status: "voided" }), "409 already_void", "ok"],
-  ...NOT_MANAGERS.flatMap(([label, who]): [string, AuthUser, BillingRunFacts, string, string][] => [
-    [`${label}, a final run`, who, run({}), RUN_MGR, RUN_MGR],
-    [`${label}, a voided run`, who, run({ status: "voided" }), RUN_MGR, RUN_MGR],
+// who, run, void, journal, reversal
+const runTable: [string, AuthUser, BillingRunFacts, string, string, string][] = [
+  ["the manager, a final run", MANAGER, run({}), "ok", "ok", "409 run_not_void"],
+  ["the manager, a final run with a paid invoice", MANAGER, run({ paidInvoices: 1 }), "409 invoice_paid", "ok", "409 run_not_void"],
+  ["the manager, a voided run", MANAGER, run({ status: "voided" }), "409 already_void", "ok", "ok"],
+  ...NOT_MANAGERS.flatMap(([label, who]): [string, AuthUser, BillingRunFacts, string, string, string][] => [
+    [`${label}, a final run`, who, run({}), RUN_MGR, RUN_MGR, RUN_MGR],
+    [`${label}, a voided run`, who, run({ status: "voided" }), RUN_MGR, RUN_MGR, RUN_MGR],
   ]),
 ];
 
 describe("the billing-run policy", () => {
-  it.each(runTable)("%s: void → %s, journal → %s", (_label, actor, facts, voiding, journal) => {
+  it.each(runTable)("%s: void → %s, journal → %s, reversal → %s", (_label, actor, facts, voiding, journal, reversal) => {
     expect(said(billingRunPolicy.check(actor, "void", facts))).toBe(voiding);
     expect(said(billingRunPolicy.check(actor, "journal", facts))).toBe(journal);
-    expect(billingRunPolicy.abilities(actor, facts)).toEqual({ void: voiding === "ok", journal: journal === "ok" });
+    expect(said(billingRunPolicy.check(actor, "reversal", facts))).toBe(reversal);
+    expect(billingRunPolicy.abilities(actor, facts)).toEqual({ void: voiding === "ok", journal: journal === "ok", reversal: reversal === "ok" });
   });
 
   const periodTable: [string, AuthUser, number | null, string][] = [

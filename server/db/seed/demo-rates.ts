@@ -44,8 +44,11 @@ export const DEMO_BILLING_POLICY: BillingPolicyDto = {
   consumableMarkupPercent: 8,
 };
 
-/** Last month's sessions: [account code, person e-mail, day of month, local start hour, hours, instrument kinds, status]. */
-const HISTORY: readonly [string, string, number, number, number, InstrumentKind[], "completed" | "no_show"][] = [
+/** A past session: [account code, person e-mail, day of month, local start hour, hours, instrument kinds, status]. */
+export type DemoSession = readonly [string, string, number, number, number, InstrumentKind[], "completed" | "no_show"];
+
+/** Last month's sessions. */
+const HISTORY: readonly DemoSession[] = [
   ["EXT-0001-TMR", "buyer@tidewater.example", 4, 9, 3, ["potentiostat", "interface_cell"], "completed"],
   ["EXT-0001-TMR", "buyer@tidewater.example", 11, 13, 2, ["potentiostat", "interface_cell"], "completed"],
   ["EXT-0001-TMR", "buyer@tidewater.example", 18, 10, 1.5, ["potentiostat"], "completed"],
@@ -80,11 +83,14 @@ export async function seedDemoRates(em: EntityManager, opts: { now: Date; tz?: s
     }
   }
   await em.save(Setting, { key: BILLING_SETTINGS_KEY, value: JSON.stringify(DEMO_BILLING_POLICY) });
-  await seedBillingHistory(em, local, nowIso);
+  await seedSessions(em, local.minus({ months: 1 }).startOf("month"), HISTORY, () => nowIso);
 }
 
-async function seedBillingHistory(em: EntityManager, local: DateTime, nowIso: string): Promise<void> {
-  const month = local.minus({ months: 1 }).startOf("month");
+/**
+ * Sessions in one past month, for the accounts with nothing billed in it yet, on instruments of
+ * the kind free an hour either side; `updatedAt` says when each booking was last changed.
+ */
+export async function seedSessions(em: EntityManager, month: DateTime, sessions: readonly DemoSession[], updatedAt: (end: DateTime) => string): Promise<void> {
   const from = month.toMillis();
   const to = month.plus({ months: 1 }).toMillis();
   const instruments = await em.find(Instrument, { where: { status: "in_service" }, order: { id: "ASC" } });
@@ -106,7 +112,7 @@ async function seedBillingHistory(em: EntityManager, local: DateTime, nowIso: st
       (r: { accountId: number }) => r.accountId,
     ),
   );
-  for (const [code, email, day, hour, hours, kinds, status] of HISTORY) {
+  for (const [code, email, day, hour, hours, kinds, status] of sessions) {
     const account = await em.findOne(Account, { where: { code } });
     const user = await em.findOne(User, { where: { email } });
     if (!account || !user || billedAccounts.has(account.id)) continue;
@@ -136,7 +142,7 @@ async function seedBillingHistory(em: EntityManager, local: DateTime, nowIso: st
       checkedInAt: checkedIn,
       checkedOutAt: checkedOut,
       createdAt: start.minus({ days: 7 }).toUTC().toISO()!,
-      updatedAt: nowIso,
+      updatedAt: updatedAt(end),
     });
     const bookingId = res.identifiers[0].id as number;
     await em.insert(BookingInstrument, picked.map((i) => ({ bookingId, instrumentId: i.id })));

@@ -1,11 +1,11 @@
 /**
  * The demo stock's history, so container pages have something to show: a receipt movement for
  * every container, a few usages of 1,2-dichloroethane and lithium chloride by the demo PhD
- * student (with their cost at the chemical's unit cost), and the lineage of the prepared 10 mM
+ * student (with their cost at the chemical's unit cost, kept unrounded), and the lineage of the prepared 10 mM
  * lithium chloride solution (its solute came from the opened LiCl bottle; water is not stocked).
  */
 import type { EntityManager } from "typeorm";
-import { usageCostCents } from "@shared/domain/stock";
+import { lineAmountCents, usageCost } from "@shared/domain/charges";
 import { Chemical, ContainerMovement, ContainerUsage, SolutionComponent } from "../../entities";
 import type { DemoContainer } from "./demo-containers";
 import { isoAfter } from "./demo-time";
@@ -37,6 +37,8 @@ export async function seedStockHistory(
 
   const use = async (index: number, amount: number, unit: string, days: number, note: string) => {
     const chem = await chemicalOf(index);
+    // The cost kept unrounded, as logging a usage keeps it; costCents is that figure rounded, for display.
+    const cost = usageCost(amount, unit, chem);
     await em.insert(ContainerUsage, {
       containerId: ids[index],
       userId: opts.memberId,
@@ -45,7 +47,10 @@ export async function seedStockHistory(
       amount,
       unit,
       amountInContainerUnit: amount,
-      costCents: usageCostCents(amount, unit, chem),
+      costCents: cost === null ? null : lineAmountCents(cost.quantity, cost.unitCostCents),
+      costQuantity: cost?.quantity ?? null,
+      costUnit: cost?.unit ?? null,
+      unitCostCents: cost?.unitCostCents ?? null,
       note,
       at: isoAfter(now, days),
     });

@@ -39,6 +39,7 @@ import { limitVolumeToLitres } from "@shared/domain/storage";
 import { DEMO_DEPARTMENTS, DEMO_GROUPS, DEMO_PASSWORD, DEMO_PEOPLE, type DepartmentCode, type GroupKey, type PersonKey } from "./demo-people";
 import { dateAfter, isoAfter } from "./demo-time";
 import { seedDemoRates } from "./demo-rates";
+import { seedBilledMonth } from "./demo-billing-history";
 
 export const DEMO_SEEDED_KEY = "demo_seeded";
 
@@ -51,6 +52,10 @@ export interface SeedDemoOptions {
   bcryptCost?: number;
   /** The facility's time zone, for the demo timetable's local hours. */
   tz?: string;
+  /** CURRENCY, FACILITY_NAME and RECOVERY_ACCOUNT, for the demo's billed month and its journal. */
+  currency?: string;
+  facilityName?: string;
+  recoveryAccount?: string;
 }
 
 /** Refuses to seed data that would fail Phasebook's own input checks. */
@@ -293,6 +298,21 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
     });
     await seedDemoBookings(em, { now, tz: opts.tz ?? "America/Halifax", people, instruments, accounts, managerId });
     await seedDemoRates(em, { now });
+    const emailToId = new Map(DEMO_PEOPLE.map((p) => [p.email, lookup(people, p.key)]));
+    await seedBilledMonth(em, {
+      now,
+      tz: opts.tz ?? "America/Halifax",
+      currency: opts.currency ?? "CAD",
+      facilityName: opts.facilityName ?? "Liquid Interfaces Core",
+      recoveryAccount: opts.recoveryAccount ?? "4510-LIC-RECOVERY",
+      managerId,
+      containerOf: (chemical) => {
+        const i = DEMO_CONTAINERS.findIndex((c) => c.chemical === chemical && c.kind === "bottle" && c.status === "in_use");
+        return i < 0 ? undefined : containerIds[i];
+      },
+      personId: (email) => emailToId.get(email),
+      accountId: (code) => accounts.get(code),
+    });
 
     await em.insert(Setting, { key: DEMO_SEEDED_KEY, value: JSON.stringify({ at: nowIso }) });
     await audit(em, now, null, "demo.seeded", "setting", null, { key: DEMO_SEEDED_KEY });

@@ -3,7 +3,8 @@
  * its statements and lines as they are priced (statement-lines.commands.ts), in one transaction:
  * a month with charges that have no rate is refused whole. Invoices for external accounts are
  * queued and sent after the commit (invoice.commands.ts); statement PDFs are mailed by the
- * mail-statements job. Voiding a run unlocks its month. Money is integer cents throughout.
+ * mail-statements job. The finance journal is written with the run (journal.commands.ts). Voiding
+ * a run unlocks its month; its journal then has a reversal. Money is integer cents throughout.
  */
 import type { EntityManager } from "typeorm";
 import { BillingRun, Statement } from "../../entities";
@@ -16,6 +17,7 @@ import { billingPeriodPolicy, billingRunPolicy } from "./billing-run.policy";
 import { assertMonthEnded, findRun, finalRunOf, runFacts } from "./billing-run.queries";
 import { streamMonth, type MonthSummary } from "./month-stream";
 import { createRunWriter, type RunWriter } from "./statement-lines.commands";
+import { writeRunJournal } from "./journal.commands";
 import { processDueInvoices } from "./invoice.commands";
 import { invoicingDeps, type RechargeDeps } from "./recharge-deps";
 
@@ -71,6 +73,8 @@ export async function finaliseRun(deps: RechargeDeps, actor: AuthUser, period: s
     const month = await streamMonth(em, { period, tz: deps.config.FACILITY_TZ, ownRunId: run.id }, (lines) => writer.write(lines));
     refuseMissingRates(month);
     await closeStatements(em, run.id, month, writer, nowIso);
+    // Checked to balance against the internal statements before it is stored; a journal that does not rolls the run back.
+    await writeRunJournal(em, deps, run, month);
     await audit(em, deps.now(), actor.id, "billing.run_finalised", "billing_run", run.id, { period, totalCents: month.totalCents, statements: month.accounts.length });
     return run.id;
   });

@@ -5,7 +5,10 @@
  * - finalise a month: the manager, once: a month with a final run answers 409 until that run is voided.
  * - void a run: the manager; a voided run cannot be voided again, and a run one of whose
  *   invoices has been paid is not voided (a credit in a later month corrects it instead) — both 409.
- * - the finance journal: the manager, for any run (a voided run's rows are marked VOID RUN).
+ * - the finance journal: the manager, for any run (a voided run's file is marked VOID in its
+ *   name, on its first line and on every row).
+ * - the reversing journal: the manager, for a voided run only (409 for a final run: there is
+ *   nothing to reverse while it stands).
  */
 import { definePolicy, deny, type Denial } from "../../core/policy";
 import { hasRole, type AuthUser } from "../../middleware/auth";
@@ -29,7 +32,7 @@ const managerOnly =
   (a: AuthUser): Denial | null =>
     hasRole(a, "manager") ? null : deny(403, "manager_only", `Only the facility manager ${what}.`);
 
-export const billingRunPolicy = definePolicy<"void" | "journal", AuthUser, BillingRunFacts>({
+export const billingRunPolicy = definePolicy<"void" | "journal" | "reversal", AuthUser, BillingRunFacts>({
   void: (a, r) => {
     const who = managerOnly("voids billing runs")(a);
     if (who) return who;
@@ -38,6 +41,9 @@ export const billingRunPolicy = definePolicy<"void" | "journal", AuthUser, Billi
     return null;
   },
   journal: managerOnly("exports the finance journal"),
+  reversal: (a, r) =>
+    managerOnly("exports the finance journal")(a) ??
+    (r.status === "voided" ? null : deny(409, "run_not_void", `Billing run #${r.id} (${r.period}) stands; a reversing journal is written for a voided run only.`)),
 });
 
 export const billingPeriodPolicy = definePolicy<"finalise", AuthUser, BillingPeriodFacts>({

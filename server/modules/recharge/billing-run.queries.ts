@@ -1,10 +1,9 @@
 /**
  * Reads of monthly billing: the preview (the month computed, nothing stored), the runs, one run
- * with its statements, and the finance journal. Each run carries what the billing-run policy
+ * with its statements (the finance journal is journal.queries.ts). Each run carries what the billing-run policy
  * lets the caller do with it; each statement what the statement policy does.
  */
 import type { EntityManager } from "typeorm";
-import { centsToDecimalString } from "@shared/domain/money";
 import { monthRange } from "@shared/domain/utilisation";
 import type { BillingPreviewDto, BillingRunDto, BillingRunSummaryDto } from "@shared/schemas/recharge";
 import { Account, BillingRun, ChargeLine, Statement } from "../../entities";
@@ -85,36 +84,4 @@ export async function getRun(deps: RechargeDeps, actor: AuthUser, id: number): P
     return presentStatement(st, account, byStatement.get(st.id) ?? [], abilities);
   });
   return presentRun(run, presented, billingRunPolicy.abilities(actor, await runFacts(em, run)));
-}
-
-const csvCell = (v: string) => (/[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
-
-/** Internal statements as journal rows for the finance office; the rows add up to their total. */
-export async function journalCsv(deps: RechargeDeps, actor: AuthUser, id: number): Promise<{ csv: string; period: string }> {
-  const em = deps.ds.manager;
-  const run = await findRun(em, id);
-  billingRunPolicy.authorize(actor, "journal", await runFacts(em, run));
-  const rows: { code: string; name: string; totalCents: number; lines: number; department: string | null }[] = await em.query(
-    `SELECT a.code, a.name, s.totalCents, (SELECT COUNT(*) FROM charge_lines cl WHERE cl.statementId = s.id) AS lines, d.code AS department
-     FROM statements s JOIN accounts a ON a.id = s.accountId LEFT JOIN departments d ON d.id = a.departmentId
-     WHERE s.runId = ? AND a.kind = 'internal' AND s.totalCents <> 0 ORDER BY a.code`,
-    [id],
-  );
-  const facility = deps.config.FACILITY_NAME;
-  const out = [["period", "cost_centre", "department", "amount", "currency", "description"].join(",")];
-  for (const r of rows) {
-    out.push(
-      [
-        run.period,
-        r.code,
-        r.department ?? "",
-        centsToDecimalString(Number(r.totalCents)),
-        run.currency,
-        `${facility} recharge ${run.period}: ${r.name} (${r.lines} line${Number(r.lines) === 1 ? "" : "s"})${run.status === "voided" ? " [VOID RUN]" : ""}`,
-      ]
-        .map((v) => csvCell(String(v)))
-        .join(","),
-    );
-  }
-  return { csv: out.join("\r\n") + "\r\n", period: run.period };
 }

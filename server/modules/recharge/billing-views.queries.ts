@@ -34,9 +34,13 @@ export async function revenue(deps: RechargeDeps, q: ReportQuery): Promise<Reven
      ${from} WHERE 1 = 1 ${w.sql} GROUP BY r.period ORDER BY r.period`,
     w.params,
   );
-  const byInstrument: { instrumentId: number | null; name: string | null; total: number; minutes: number }[] = await ds.query(
+  // Instrument lines hold exact hours as text, a decimal or a fraction such as "1/6"; summed as numbers for the view.
+  const hours = `CASE WHEN instr(cl.quantity, '/') > 0
+      THEN CAST(substr(cl.quantity, 1, instr(cl.quantity, '/') - 1) AS REAL) / CAST(substr(cl.quantity, instr(cl.quantity, '/') + 1) AS REAL)
+      ELSE CAST(cl.quantity AS REAL) END`;
+  const byInstrument: { instrumentId: number | null; name: string | null; total: number; hours: number }[] = await ds.query(
     `SELECT cl.instrumentId AS instrumentId, i.name AS name, SUM(cl.amountCents) AS total,
-       SUM(CASE WHEN cl.kind = 'instrument' THEN cl.quantity ELSE 0 END) AS minutes
+       SUM(CASE WHEN cl.kind = 'instrument' AND cl.unit = 'h' THEN ${hours} ELSE 0 END) AS hours
      ${from} LEFT JOIN instruments i ON i.id = cl.instrumentId WHERE 1 = 1 ${w.sql} GROUP BY cl.instrumentId ORDER BY total DESC`,
     w.params,
   );
@@ -56,7 +60,7 @@ export async function revenue(deps: RechargeDeps, q: ReportQuery): Promise<Reven
       instrumentId: r.instrumentId,
       name: r.instrumentId == null ? "Consumables, adjustments and credits" : (r.name ?? `Instrument #${r.instrumentId}`),
       total: n(r.total),
-      hours: Math.round((n(r.minutes) / 60) * 100) / 100,
+      hours: Math.round(n(r.hours) * 100) / 100,
     })),
     byDepartment: byDepartment.map((r) => ({
       departmentId: r.departmentId,
@@ -106,7 +110,7 @@ export async function myCharges(deps: RechargeDeps, user: AuthUser, q: ReportQue
   const total = Number((await ds.query(`SELECT COUNT(*) AS n ${base}`, [user.id, ...w.params]))[0].n);
   const sum = Number((await ds.query(`SELECT COALESCE(SUM(cl.amountCents), 0) AS s ${base}`, [user.id, ...w.params]))[0].s);
   const rows: Record<string, unknown>[] = await ds.query(
-    `SELECT cl.id, r.period, a.code AS accountCode, a.name AS accountName, cl.kind, cl.description, cl.quantity, cl.unit, cl.amountCents, cl.at, cl.bookingId
+    `SELECT cl.id, r.period, a.code AS accountCode, a.name AS accountName, cl.kind, cl.description, cl.quantity, cl.unit, cl.unitPriceCents, cl.amountCents, cl.at, cl.bookingId
      ${base} ORDER BY cl.at DESC, cl.id DESC LIMIT ? OFFSET ?`,
     [user.id, ...w.params, q.limit, q.offset],
   );
@@ -121,8 +125,9 @@ export async function myCharges(deps: RechargeDeps, user: AuthUser, q: ReportQue
       accountName: String(r.accountName),
       kind: r.kind as MyChargesDto["items"][number]["kind"],
       description: String(r.description),
-      quantity: Number(r.quantity),
+      quantity: String(r.quantity),
       unit: String(r.unit),
+      unitPriceCents: String(r.unitPriceCents),
       amount: Number(r.amountCents),
       at: String(r.at),
       bookingId: r.bookingId == null ? null : Number(r.bookingId),

@@ -25,7 +25,8 @@ import {
 import { route, WRITTEN } from "../../http/route-table";
 import { billingSettings } from "./rate.queries";
 import { saveBillingSettings } from "./rate.commands";
-import { getRun, journalCsv, listRuns, previewMonth } from "./billing-run.queries";
+import { getRun, listRuns, previewMonth } from "./billing-run.queries";
+import { journalCsv } from "./journal.queries";
 import { finaliseRun, retryInvoices, voidRun } from "./billing-run.commands";
 import { listStatements, statementPdf } from "./statement.queries";
 import { myCharges, outstanding, revenue, spend } from "./billing-views.queries";
@@ -114,14 +115,32 @@ export const billingRoutes = [
   route({
     method: "get",
     path: "/billing/runs/:id/journal.csv",
-    summary: "The finance journal: internal accounts' lines, adding up to the internal statements' total",
+    summary: "The finance journal: per internal statement a debit to its account and a credit to the recovery account; debits = credits = the internal statements' total",
+    description:
+      "Columns `period, account, department, debit, credit, currency, description`; amounts in the currency's units with two decimals. " +
+      "A voided run's journal is named `journal-YYYY-MM-VOID.csv` and starts with a VOID line before the header.",
     access: MANAGER,
     policy: "billingRun.journal",
     params: idParam,
     produces: "text/csv",
     handler: async ({ ctx, actor, params, res }) => {
-      const { csv, period } = await journalCsv(ctx, actor, params.id);
-      res.type("text/csv; charset=utf-8").attachment(`journal-${period}.csv`).send(csv);
+      const { csv, filename } = await journalCsv(ctx, actor, params.id, "journal");
+      res.type("text/csv; charset=utf-8").attachment(filename).send(csv);
+      return WRITTEN;
+    },
+  }),
+  route({
+    method: "get",
+    path: "/billing/runs/:id/reversal.csv",
+    summary: "A voided run's reversing journal: its journal's lines with debit and credit swapped",
+    description: "Same columns as journal.csv. 409 `run_not_void` for a run that stands.",
+    access: MANAGER,
+    policy: "billingRun.reversal",
+    params: idParam,
+    produces: "text/csv",
+    handler: async ({ ctx, actor, params, res }) => {
+      const { csv, filename } = await journalCsv(ctx, actor, params.id, "reversal");
+      res.type("text/csv; charset=utf-8").attachment(filename).send(csv);
       return WRITTEN;
     },
   }),

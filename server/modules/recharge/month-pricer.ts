@@ -15,6 +15,7 @@ import {
   rateFor,
 } from "@shared/domain/billing";
 import type { BookableHours } from "@shared/domain/booking-rules";
+import { timeChargeLine } from "@shared/domain/charges";
 import type { BillingPolicyDto } from "@shared/schemas/recharge";
 import type { ChargeKind } from "../../entities/charge-line.entity";
 import type { Rate } from "../../entities";
@@ -30,9 +31,12 @@ export interface ComputedLine {
   userId: number | null;
   rateId: number | null;
   description: string;
-  quantity: number;
+  /** Exact text (charges.ts): hours, the amount in a cost unit, or 1. */
+  quantity: string;
+  /** h, mL, g, each… */
   unit: string;
-  unitPriceCents: number;
+  /** Price of one unit in cents, mark-up included, exact text; quantity × unit price rounds to amountCents. */
+  unitPriceCents: string;
   amountCents: number;
   at: string;
 }
@@ -180,21 +184,25 @@ export class MonthPricer {
     const afterHours = factor != null && factor > 1 && inst.bookableHours ? { tz: this.tz, bookableHours: inst.bookableHours, factor } : undefined;
     const { time, lines } = priceBooking({ ...q, rates, booking, policy: pricingRules(this.settings, opening.row), afterHours });
     const when = this.clock.dateTime(b.startsAt);
-    return lines.map((l) => ({
-      bookingId: b.id,
-      instrumentId: b.instrumentId,
-      usageId: null,
-      adjustmentId: null,
-      userId: b.userId,
-      rateId: l.rateId == null ? null : Number(l.rateId),
-      description:
-        `${inst.name}, booking #${b.id} on ${when}: ${l.minutes} min ${BASIS_NOTE[time.basis] ?? ""}` +
-        `${time.minimumApplied ? " (minimum charge)" : ""}${l.afterHours ? " after hours" : ""}`,
-      quantity: l.minutes,
-      unit: "min",
-      unitPriceCents: l.hourlyRateCents,
-      amountCents: l.amountCents,
-      at: l.start.toISOString(),
-    }));
+    return lines.map((l) => {
+      // Hours at the hourly rate (after any after-hours factor), rounded once: the same amount as priceSession's.
+      const figures = timeChargeLine(l.minutes, l.hourlyRateCents);
+      return {
+        bookingId: b.id,
+        instrumentId: b.instrumentId,
+        usageId: null,
+        adjustmentId: null,
+        userId: b.userId,
+        rateId: l.rateId == null ? null : Number(l.rateId),
+        description:
+          `${inst.name}, booking #${b.id} on ${when}: ${l.minutes} min ${BASIS_NOTE[time.basis] ?? ""}` +
+          `${time.minimumApplied ? " (minimum charge)" : ""}${l.afterHours ? " after hours" : ""}`,
+        quantity: figures.quantity,
+        unit: figures.unit,
+        unitPriceCents: figures.unitPriceCents,
+        amountCents: figures.amountCents,
+        at: l.start.toISOString(),
+      };
+    });
   }
 }

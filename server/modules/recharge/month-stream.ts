@@ -5,7 +5,8 @@
  *
  * What a run for month P bills:
  * - every billable booking that starts in P (local facility time) on each of its instruments;
- * - every container usage logged in P, at unit cost × (1 + mark-up);
+ * - every container usage logged in P: its quantity in the chemical's cost unit at the unit cost
+ *   × (1 + mark-up), kept unrounded with the usage and rounded once, at the line (charges.ts);
  * - every adjustment for P or an earlier month not yet on a final statement;
  * - for bookings and usages of an earlier month that is already final (locked): anything
  *   added or changed since, as a correction line, so a final statement is never altered;
@@ -15,7 +16,8 @@
  * and hands the priced lines to a sink a page at a time, so a month never sits in memory whole.
  */
 import type { EntityManager } from "typeorm";
-import { NoRateError, applyMonthlyCap, consumableCharge, statementTotal } from "@shared/domain/billing";
+import { NoRateError, applyMonthlyCap, statementTotal } from "@shared/domain/billing";
+import { consumableChargeLine, eachChargeLine, type UsageCost } from "@shared/domain/charges";
 import { sumCents } from "@shared/domain/money";
 import { monthRange } from "@shared/domain/utilisation";
 import type { ChargeKind } from "../../entities/charge-line.entity";
@@ -252,25 +254,33 @@ async function correctChangedBookings(m: Month, ledger: MonthLedger): Promise<vo
       userId: b.userId,
       rateId: null,
       description: `Correction for booking #${b.id} of ${m.clock.period(b.startsAt)} (${m.instruments.get(b.instrumentId)?.name ?? ""}): billed ${was} cents, now ${now} cents`,
-      quantity: 1,
-      unit: "each",
-      unitPriceCents: now - was,
-      amountCents: now - was,
+      ...eachChargeLine(now - was),
       at: b.startsAt,
     });
   }
   await ledger.flush();
 }
 
-/** One usage at cost plus mark-up; a late-logged one (of a locked month) as a correction. */
+/**
+ * What a usage cost, as kept with it at the time of use (unrounded); a usage logged before
+ * usages kept their cost exactly has only its rounded cost in cents, which becomes 1 each.
+ */
+function usageCostOf(u: UsageRow): Pick<UsageCost, "quantity" | "unit" | "unitCostCents"> | null {
+  if (u.costQuantity != null && u.costUnit != null && u.unitCostCents != null) return { quantity: u.costQuantity, unit: u.costUnit, unitCostCents: u.unitCostCents };
+  return u.costCents == null ? null : { quantity: "1", unit: "each", unitCostCents: String(u.costCents) };
+}
+
+/** One usage at cost plus mark-up, rounded once; a late-logged one (of a locked month) as a correction. */
 function chargeUsage(m: Month, ledger: MonthLedger, u: UsageRow, late: boolean): void {
   const account = u.accountId == null ? undefined : m.accounts.get(u.accountId);
-  if (!account || u.costCents == null) {
+  const cost = usageCostOf(u);
+  if (!account || !cost) {
     ledger.unpricedUsages++;
     return;
   }
   const markup = m.settings.consumableMarkupPercent;
-  const c = consumableCharge({ quantityUsed: 1, unitCostCents: u.costCents, markupPercent: markup });
+  const figures = consumableChargeLine(cost, markup);
+  const costText = cost.unit === "each" ? `${cost.unitCostCents} ¢` : `${cost.unitCostCents} ¢/${cost.unit}`;
   ledger.push(account.id, late ? "correction" : "consumable", {
     bookingId: null,
     instrumentId: null,
@@ -278,12 +288,10 @@ function chargeUsage(m: Month, ledger: MonthLedger, u: UsageRow, late: boolean):
     adjustmentId: null,
     userId: u.userId,
     rateId: null,
-    description: `${late ? `Late-logged (${m.clock.period(u.at)}): ` : ""}${u.chemicalName}, ${round6(u.amount)} ${u.unit}` +
-      (c.markupCents !== 0 ? ` (cost ${u.costCents} cents + ${markup}% mark-up)` : " at cost"),
-    quantity: u.amount,
-    unit: u.unit,
-    unitPriceCents: c.costCents,
-    amountCents: c.amountCents,
+    description:
+      `${late ? `Late-logged (${m.clock.period(u.at)}): ` : ""}${u.chemicalName}, ${round6(u.amount)} ${u.unit} used; ` +
+      `cost ${costText}${markup !== 0 ? ` + ${markup}% mark-up` : " (at cost)"}`,
+    ...figures,
     at: u.at,
   });
 }
@@ -321,10 +329,7 @@ async function creditCaps(m: Month, ledger: MonthLedger): Promise<void> {
       userId: cap.userId,
       rateId: null,
       description: `Monthly cap of ${cap.monthlyCapCents} cents for this member reached`,
-      quantity: 1,
-      unit: "each",
-      unitPriceCents: credit.amountCents,
-      amountCents: credit.amountCents,
+      ...eachChargeLine(credit.amountCents),
       at: new Date(m.endMs - 1).toISOString(),
     });
   }
@@ -341,10 +346,7 @@ async function addAdjustments(m: Month, ledger: MonthLedger): Promise<void> {
       userId: null,
       rateId: null,
       description: `${a.amountCents < 0 ? "Credit" : "Adjustment"}: ${a.reason}`,
-      quantity: 1,
-      unit: "each",
-      unitPriceCents: a.amountCents,
-      amountCents: a.amountCents,
+      ...eachChargeLine(a.amountCents),
       at: a.createdAt,
     });
   }

@@ -79,12 +79,17 @@ export interface UsageRow {
   accountId: number | null;
   amount: number;
   unit: string;
+  /** Rounded cost at the time of use; only used for usages logged before the exact figures below were kept. */
   costCents: number | null;
+  /** The cost kept unrounded at the time of use (container_usages; decimal text). */
+  costQuantity: string | null;
+  costUnit: string | null;
+  unitCostCents: string | null;
   at: string;
   chemicalName: string;
 }
 
-const USAGE_SQL = `SELECT u.id, u.userId, COALESCE(u.accountId, b.accountId) AS accountId, u.amount, u.unit, u.costCents, u.at, ch.name AS chemicalName
+const USAGE_SQL = `SELECT u.id, u.userId, COALESCE(u.accountId, b.accountId) AS accountId, u.amount, u.unit, u.costCents, u.costQuantity, u.costUnit, u.unitCostCents, u.at, ch.name AS chemicalName
     FROM container_usages u LEFT JOIN bookings b ON b.id = u.bookingId
     JOIN containers c ON c.id = u.containerId JOIN chemicals ch ON ch.id = c.chemicalId`;
 

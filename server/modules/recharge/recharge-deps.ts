@@ -13,7 +13,7 @@ import type { InvoicingDeps } from "./invoice.commands";
 export const DEFAULT_FACILITY_NAME = "Liquid Interfaces Core";
 
 export interface RechargeDeps extends Deps {
-  config: Pick<Config, "FACILITY_TZ" | "CURRENCY" | "FACILITY_NAME">;
+  config: Pick<Config, "FACILITY_TZ" | "CURRENCY" | "FACILITY_NAME" | "RECOVERY_ACCOUNT">;
   payments?: Stripe;
 }
 

@@ -1,23 +1,43 @@
 /**
- * A statement as a PDF (pdfkit): the facility, the account, the month, one row per line with its
- * amount, and the total, which is the sum of the rows; the currency and the rounding rule; for
- * an external account the invoice's number, status and payment link. Mailed to the account's
- * owner by the mail-statements job and downloadable from the billing run.
+ * A statement as a PDF (pdfkit) a finance office can check with a calculator: the facility, the
+ * account, the month, then one table — each line's date, description (wrapped, never cut off),
+ * quantity, unit, unit price and amount — grouped per instrument, consumables, and adjustments
+ * and credits, each group with its subtotal, then the total (the sum of the subtotals), the
+ * currency and the rounding rule. For an external account, the invoice's number, status and
+ * payment link. Mailed to the account's owner by the mail-statements job and downloadable from
+ * the billing run.
  */
 import PDFDocument from "pdfkit";
 import { DateTime } from "luxon";
-import { formatMoney } from "@shared/domain/money";
+import { CHARGE_ROUNDING_NOTE } from "@shared/domain/charges";
+import { formatQuantity, formatUnitPrice } from "@shared/domain/charge-format";
+import { formatMoney, sumCents } from "@shared/domain/money";
+import { pdfTable, type PdfColumn } from "../../core/pdf-table";
 
-/** The rounding rule of shared/domain/money.ts and billing.ts, in words, printed on every statement. */
-export const ROUNDING_RULE =
-  "Amounts are in whole cents. Each line is rounded to the cent, half away from zero; billed minutes are rounded up to the rate's increment; the total is the sum of the rounded lines.";
+/** The rounding rule printed on every statement: charges.ts's, and how billed minutes are reached. */
+export const ROUNDING_RULE = `${CHARGE_ROUNDING_NOTE} Billed minutes are rounded up to the rate's increment before they are priced.`;
+
+export interface StatementPdfLine {
+  at: string;
+  description: string;
+  /** Exact text (a decimal or "n/d"). */
+  quantity: string;
+  unit: string;
+  /** Price of one unit in cents, exact text. */
+  unitPriceCents: string;
+  amountCents: number;
+  person?: string | null;
+  /** The group the line's subtotal belongs to: an instrument's name, consumables, or adjustments and credits. */
+  group: string;
+}
 
 export interface StatementPdfInput {
   facility: string;
   period: string;
   currency: string;
   account: { code: string; name: string; kind: string; organisation: string | null };
-  lines: { at: string; description: string; amountCents: number; person?: string | null }[];
+  /** In group order, each group's lines by date. */
+  lines: StatementPdfLine[];
   totalCents: number;
   status?: string;
   invoiceNumber?: string | null;
@@ -26,6 +46,26 @@ export interface StatementPdfInput {
   /** Dates print in the facility's time zone (a session at 23:00 local belongs to that day). */
   tz?: string;
 }
+
+/** Group names after the instruments, which sort by name before them. */
+export const CONSUMABLES_GROUP = "Consumables";
+export const OTHER_GROUP = "Adjustments and credits";
+
+/** The subtotal groups in print order: instruments by name, then consumables, then adjustments and credits. */
+export function groupOrder(a: string, b: string): number {
+  const rank = (g: string) => (g === CONSUMABLES_GROUP ? 1 : g === OTHER_GROUP ? 2 : 0);
+  return rank(a) - rank(b) || a.localeCompare(b);
+}
+
+// A4 less 48 pt margins: 499 pt of columns.
+const COLUMNS = (currency: string): PdfColumn[] => [
+  { header: "Date", width: 56 },
+  { header: "Description", width: 199 },
+  { header: "Quantity", width: 52, align: "right" },
+  { header: "Unit", width: 30 },
+  { header: `Unit price (${currency})`, width: 80, align: "right" },
+  { header: `Amount (${currency})`, width: 82, align: "right" },
+];
 
 export function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
   const doc = new PDFDocument({ size: "A4", margin: 48, info: { Title: `Statement ${input.period} ${input.account.code}`, Author: "Phasebook" } });
@@ -46,33 +86,40 @@ export function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
   if (input.account.kind !== "internal" && input.paymentUrl) {
     doc.text("Pay online: ", { continued: true }).fillColor("#1d4f73").text(input.paymentUrl, { link: input.paymentUrl, underline: true }).fillColor("black");
   }
-  doc.moveDown(0.3).fontSize(8).text(ROUNDING_RULE);
   doc.moveDown(0.8);
 
-  const left = doc.page.margins.left;
-  const right = doc.page.width - doc.page.margins.right;
-  const amountWidth = 90;
-  const dateWidth = 70;
-  const descWidth = right - left - amountWidth - dateWidth - 12;
-  // One line per row (long descriptions are cut with an ellipsis): measuring wrapped text for
-  // thousands of rows costs more than the rest of the month's billing together.
-  const rowHeight = 12;
-  // Helvetica's widest common letters are about 0.6 em (5.1 pt at 8.5 pt), so this many always fit.
-  const maxChars = Math.floor(descWidth / 5.1);
-  const row = (date: string, desc: string, amount: string, bold = false) => {
-    doc.font(bold ? "Helvetica-Bold" : "Helvetica").fontSize(8.5);
-    if (doc.y + rowHeight > doc.page.height - doc.page.margins.bottom) doc.addPage();
-    const y = doc.y;
-    doc.text(date, left, y, { width: dateWidth, lineBreak: false });
-    doc.text(desc.length > maxChars ? `${desc.slice(0, maxChars - 1)}…` : desc, left + dateWidth + 6, y, { lineBreak: false });
-    doc.text(amount, right - amountWidth, y, { width: amountWidth, align: "right", lineBreak: false });
-    doc.x = left;
-    doc.y = y + rowHeight;
-  };
-  row("Date", "Description", `Amount (${input.currency})`, true);
-  for (const l of input.lines) row(localDate(l.at), l.person ? `${l.description} — ${l.person}` : l.description, money(l.amountCents));
-  doc.moveDown(0.5);
-  row("", "Total (sum of the lines above)", money(input.totalCents), true);
+  const rows: string[][] = [];
+  const bold = new Set<number>();
+  const subtotals: number[] = [];
+  let i = 0;
+  while (i < input.lines.length) {
+    const group = input.lines[i].group;
+    bold.add(rows.length);
+    rows.push(["", group, "", "", "", ""]);
+    const amounts: number[] = [];
+    for (; i < input.lines.length && input.lines[i].group === group; i++) {
+      const l = input.lines[i];
+      amounts.push(l.amountCents);
+      rows.push([
+        localDate(l.at),
+        l.person ? `${l.description} — ${l.person}` : l.description,
+        formatQuantity(l.quantity),
+        l.unit,
+        formatUnitPrice(l.unitPriceCents, input.currency),
+        money(l.amountCents),
+      ]);
+    }
+    const subtotal = sumCents(amounts);
+    subtotals.push(subtotal);
+    bold.add(rows.length);
+    rows.push(["", `Subtotal, ${group}`, "", "", "", money(subtotal)]);
+  }
+  if (rows.length === 0) rows.push(["", "No charges this month.", "", "", "", ""]);
+  bold.add(rows.length);
+  rows.push(["", `Total (${subtotals.length > 1 ? "sum of the subtotals" : "sum of the lines above"})`, "", "", "", money(input.totalCents)]);
+  pdfTable(doc, COLUMNS(input.currency), rows, { boldRows: bold });
+
+  doc.font("Helvetica").fontSize(8).fillColor("black").text(`Amounts in ${input.currency}. ${ROUNDING_RULE}`, doc.page.margins.left);
   doc.end();
   return done;
 }

@@ -9,7 +9,7 @@ import { Account, ChargeLine, Statement } from "../../entities";
 import { NotFound } from "../../errors";
 import { hasRole, type AuthUser } from "../../middleware/auth";
 import { statementPolicy, type StatementFacts } from "./statement.policy";
-import { renderStatementPdf } from "./statement-pdf";
+import { CONSUMABLES_GROUP, OTHER_GROUP, groupOrder, renderStatementPdf } from "./statement-pdf";
 import type { RechargeDeps } from "./recharge-deps";
 
 /** The statement as the policy sees it. */
@@ -78,15 +78,17 @@ export async function listStatements(deps: RechargeDeps, actor: AuthUser, q: { l
   };
 }
 
-/** Names of the people on a statement's lines, read 500 ids at a time. */
-async function personNames(em: EntityManager, ids: number[]): Promise<Map<number, string>> {
+/** Names by id from one table (users or instruments), read 500 ids at a time. */
+async function namesOf(em: EntityManager, table: "users" | "instruments", ids: number[]): Promise<Map<number, string>> {
   const names = new Map<number, string>();
   for (let i = 0; i < ids.length; i += 500) {
-    const rows: { id: number; name: string }[] = await em.query(`SELECT id, name FROM users WHERE id IN (${ids.slice(i, i + 500).map(() => "?").join(",")})`, ids.slice(i, i + 500));
+    const rows: { id: number; name: string }[] = await em.query(`SELECT id, name FROM ${table} WHERE id IN (${ids.slice(i, i + 500).map(() => "?").join(",")})`, ids.slice(i, i + 500));
     for (const r of rows) names.set(r.id, r.name);
   }
   return names;
 }
+
+const distinctIds = (values: (number | null)[]) => [...new Set(values.filter((x): x is number => x != null))];
 
 const INVOICE_WORDS: Record<InvoiceStatusName, string> = {
   none: "nothing to pay",
@@ -97,21 +99,34 @@ const INVOICE_WORDS: Record<InvoiceStatusName, string> = {
   void: "void",
 };
 
-/** A statement's PDF: its lines with the person on each, its total and how it is settled. */
-export async function pdfFor(
-  em: EntityManager,
-  st: Statement,
-  account: Account,
-  lines: { at: string; description: string; amountCents: number; userId: number | null }[],
-  opts: { tz?: string; facility: string },
-): Promise<Buffer> {
-  const names = await personNames(em, [...new Set(lines.map((l) => l.userId).filter((x): x is number => x != null))]);
+type PdfLineRow = Pick<ChargeLine, "at" | "description" | "quantity" | "unit" | "unitPriceCents" | "amountCents" | "userId" | "instrumentId" | "usageId">;
+
+/**
+ * A statement's PDF: its lines with the person on each, grouped for their subtotals (per
+ * instrument, consumables, adjustments and credits), its total and how it is settled.
+ */
+export async function pdfFor(em: EntityManager, st: Statement, account: Account, lines: PdfLineRow[], opts: { tz?: string; facility: string }): Promise<Buffer> {
+  const people = await namesOf(em, "users", distinctIds(lines.map((l) => l.userId)));
+  const instruments = await namesOf(em, "instruments", distinctIds(lines.map((l) => (l.usageId == null ? l.instrumentId : null))));
+  const groupOf = (l: PdfLineRow) =>
+    l.usageId != null ? CONSUMABLES_GROUP : l.instrumentId != null ? (instruments.get(l.instrumentId) ?? `Instrument #${l.instrumentId}`) : OTHER_GROUP;
+  // Lines come by date; a stable sort by group keeps each group's lines in date order.
+  const grouped = lines.map((l) => ({ ...l, group: groupOf(l) })).sort((a, b) => groupOrder(a.group, b.group));
   return renderStatementPdf({
     facility: opts.facility,
     period: st.period,
     currency: st.currency,
     account: { code: account.code, name: account.name, kind: account.kind, organisation: account.organisation },
-    lines: lines.map((l) => ({ ...l, person: l.userId == null ? null : (names.get(l.userId) ?? null) })),
+    lines: grouped.map((l) => ({
+      at: l.at,
+      description: l.description,
+      quantity: l.quantity,
+      unit: l.unit,
+      unitPriceCents: l.unitPriceCents,
+      amountCents: l.amountCents,
+      person: l.userId == null ? null : (people.get(l.userId) ?? null),
+      group: l.group,
+    })),
     totalCents: st.totalCents,
     status: account.kind === "external" ? INVOICE_WORDS[st.invoiceStatus] : "settled by journal",
     invoiceNumber: st.invoiceNumber,

@@ -1,8 +1,9 @@
 /**
  * Monthly billing for the manager: preview a month, finalise it, and for each run its statements
- * (PDF), the finance journal (CSV), invoice status, and voiding with a reason.
+ * (their lines, the PDF), the finance journal (CSV; for a voided run its reversal too), invoice
+ * status, and voiding with a reason. The newest run is open when the page opens.
  */
-import { useState } from "react";
+import { Fragment, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Badge, type BadgeTone } from "@/components/ui/badge";
 import { Button, buttonClasses } from "@/components/ui/button";
@@ -11,6 +12,7 @@ import { Input } from "@/components/ui/input";
 import { Table, TBody, Td, Th, THead, TableMessage, Tr } from "@/components/ui/table";
 import { isApiError } from "@/lib/api-client";
 import { useFinaliseRun, usePreview, useRetryInvoices, useRun, useRuns, useVoidRun } from "../api/billing-runs";
+import { ChargeLines } from "./charge-lines";
 import { lastMonth, money } from "./money";
 
 const INVOICE_TONE: Record<string, BadgeTone> = { queued: "warning", open: "aqueous", paid: "ok", payment_failed: "danger", void: "neutral", none: "neutral" };
@@ -32,7 +34,10 @@ export function BillingRuns() {
   const [period, setPeriod] = useState(lastMonth());
   const [previewFor, setPreviewFor] = useState<string | null>(null);
   const [selected, setSelected] = useState<number | null>(null);
+  const [previewOpen, setPreviewOpen] = useState<number | null>(null);
   const runs = useRuns();
+  // Until the manager picks one, the newest run is shown, so the page opens on a real month.
+  const shown = selected ?? runs.data?.items[0]?.id ?? null;
   const preview = usePreview(previewFor);
   const finalise = useFinaliseRun();
   const retry = useRetryInvoices();
@@ -101,15 +106,35 @@ export function BillingRuns() {
               <TBody>
                 {preview.data.preview.statements.length === 0 && <TableMessage colSpan={5}>Nothing to bill for this month.</TableMessage>}
                 {preview.data.preview.statements.map((s) => (
-                  <Tr key={s.accountId}>
-                    <Td>
-                      <span className="font-mono text-xs">{s.accountCode}</span> {s.accountName}
-                    </Td>
-                    <Td>{s.accountKind}</Td>
-                    <Td className="text-right tabular-nums">{s.lines.length}</Td>
-                    <Td className="text-right tabular-nums">{money(s.total, s.currency)}</Td>
-                    <Td className="text-xs text-warning-800">{s.warnings.join(" ")}</Td>
-                  </Tr>
+                  <Fragment key={s.accountId}>
+                    <Tr>
+                      <Td>
+                        <span className="font-mono text-xs">{s.accountCode}</span> {s.accountName}
+                      </Td>
+                      <Td>{s.accountKind}</Td>
+                      <Td className="text-right tabular-nums">
+                        <Button
+                          type="button"
+                          size="sm"
+                          variant="ghost"
+                          aria-expanded={previewOpen === s.accountId}
+                          aria-label={`${previewOpen === s.accountId ? "Hide" : "Show"} the ${s.lines.length} lines of ${s.accountCode}`}
+                          onClick={() => setPreviewOpen(previewOpen === s.accountId ? null : s.accountId)}
+                        >
+                          {s.lines.length} {previewOpen === s.accountId ? "▴" : "▾"}
+                        </Button>
+                      </Td>
+                      <Td className="text-right tabular-nums">{money(s.total, s.currency)}</Td>
+                      <Td className="text-xs text-warning-800">{s.warnings.join(" ")}</Td>
+                    </Tr>
+                    {previewOpen === s.accountId && (
+                      <Tr>
+                        <Td colSpan={5} className="bg-grey-50">
+                          <ChargeLines lines={s.lines} currency={s.currency} caption={`Previewed lines of ${s.accountCode}`} />
+                        </Td>
+                      </Tr>
+                    )}
+                  </Fragment>
                 ))}
               </TBody>
             </Table>
@@ -140,7 +165,7 @@ export function BillingRuns() {
           <TBody>
             {runs.data?.items.length === 0 && <TableMessage colSpan={6}>No month has been billed yet.</TableMessage>}
             {runs.data?.items.map((r) => (
-              <Tr key={r.id} data-testid={`run-${r.period}`}>
+              <Tr key={r.id} data-testid={`run-${r.period}`} className={r.id === shown ? "bg-aqueous-50/60" : undefined}>
                 <Td className="font-mono">{r.period}</Td>
                 <Td>
                   <Badge tone={r.status === "final" ? "ok" : "neutral"}>{r.status}</Badge>
@@ -162,7 +187,7 @@ export function BillingRuns() {
           </TBody>
         </Table>
       </Card>
-      {selected != null && <RunDetail id={selected} />}
+      {shown != null && <RunDetail id={shown} />}
     </div>
   );
 }
@@ -171,6 +196,7 @@ function RunDetail({ id }: { id: number }) {
   const { data, error } = useRun(id);
   const voidRun = useVoidRun();
   const [reason, setReason] = useState("");
+  const [open, setOpen] = useState<number | null>(null);
   if (error) return <Alert tone="danger">{problemText(error)}</Alert>;
   if (!data) return null;
   const run = data.run;
@@ -180,13 +206,25 @@ function RunDetail({ id }: { id: number }) {
       title={`Run #${run.id} · ${run.period}`}
       description={`${run.status === "final" ? "Final" : `Void (${run.voidReason ?? ""})`} · internal statements ${money(internal, run.currency)} · total ${money(run.total, run.currency)}`}
       actions={
-        run.abilities.journal && (
-          <a className={buttonClasses("secondary", "sm")} href={`/api/billing/runs/${run.id}/journal.csv`} download data-testid="journal-link">
-            Journal (CSV)
-          </a>
-        )
+        <div className="flex flex-wrap gap-2">
+          {run.abilities.journal && (
+            <a className={buttonClasses("secondary", "sm")} href={`/api/billing/runs/${run.id}/journal.csv`} download data-testid="journal-link">
+              {run.status === "voided" ? "Journal, void (CSV)" : "Journal (CSV)"}
+            </a>
+          )}
+          {run.abilities.reversal && (
+            <a className={buttonClasses("secondary", "sm")} href={`/api/billing/runs/${run.id}/reversal.csv`} download data-testid="reversal-link">
+              Reversing journal (CSV)
+            </a>
+          )}
+        </div>
       }
     >
+      {run.status === "voided" && (
+        <Alert tone="warning" className="mb-3">
+          This run is void. If its journal was posted, post the reversing journal to undo it; its file and every row of it say VOID.
+        </Alert>
+      )}
       <Table caption={`Statements of ${run.period}`}>
         <THead>
           <Tr>
@@ -199,30 +237,50 @@ function RunDetail({ id }: { id: number }) {
         </THead>
         <TBody>
           {run.statements.map((s) => (
-            <Tr key={s.id} data-testid={`statement-${s.accountCode}`}>
-              <Td>
-                <span className="font-mono text-xs">{s.accountCode}</span> {s.accountName}
-              </Td>
-              <Td className="text-right tabular-nums">{s.lines.length}</Td>
-              <Td className="text-right tabular-nums">{money(s.total, s.currency)}</Td>
-              <Td>
-                <Badge tone={INVOICE_TONE[s.invoiceStatus ?? "none"]}>
-                  <span data-testid={`invoice-status-${s.accountCode}`}>{INVOICE_WORD[s.invoiceStatus ?? "none"]}</span>
-                </Badge>
-                {s.invoiceUrl && (
-                  <a className="ml-2 text-xs text-aqueous-800 underline" href={s.invoiceUrl} target="_blank" rel="noreferrer" data-testid={`invoice-link-${s.accountCode}`}>
-                    Invoice {s.invoiceNumber}
-                  </a>
-                )}
-              </Td>
-              <Td>
-                {s.abilities?.download && (
-                  <a className="text-xs text-aqueous-800 underline" href={`/api/billing/statements/${s.id}/statement.pdf`} download>
-                    Statement PDF
-                  </a>
-                )}
-              </Td>
-            </Tr>
+            <Fragment key={s.id}>
+              <Tr data-testid={`statement-${s.accountCode}`}>
+                <Td>
+                  <span className="font-mono text-xs">{s.accountCode}</span> {s.accountName}
+                </Td>
+                <Td className="text-right tabular-nums">
+                  <Button
+                    type="button"
+                    size="sm"
+                    variant="ghost"
+                    aria-expanded={open === s.id}
+                    aria-label={`${open === s.id ? "Hide" : "Show"} the ${s.lines.length} lines of ${s.accountCode}`}
+                    onClick={() => setOpen(open === s.id ? null : s.id!)}
+                  >
+                    {s.lines.length} {open === s.id ? "▴" : "▾"}
+                  </Button>
+                </Td>
+                <Td className="text-right tabular-nums">{money(s.total, s.currency)}</Td>
+                <Td>
+                  <Badge tone={INVOICE_TONE[s.invoiceStatus ?? "none"]}>
+                    <span data-testid={`invoice-status-${s.accountCode}`}>{INVOICE_WORD[s.invoiceStatus ?? "none"]}</span>
+                  </Badge>
+                  {s.invoiceUrl && (
+                    <a className="ml-2 text-xs text-aqueous-800 underline" href={s.invoiceUrl} target="_blank" rel="noreferrer" data-testid={`invoice-link-${s.accountCode}`}>
+                      Invoice {s.invoiceNumber}
+                    </a>
+                  )}
+                </Td>
+                <Td>
+                  {s.abilities?.download && (
+                    <a className="text-xs text-aqueous-800 underline" href={`/api/billing/statements/${s.id}/statement.pdf`} download>
+                      Statement PDF
+                    </a>
+                  )}
+                </Td>
+              </Tr>
+              {open === s.id && (
+                <Tr>
+                  <Td colSpan={5} className="bg-grey-50">
+                    <ChargeLines lines={s.lines} currency={s.currency} caption={`Lines of ${s.accountCode}, ${run.period}`} />
+                  </Td>
+                </Tr>
+              )}
+            </Fragment>
           ))}
         </TBody>
       </Table>
