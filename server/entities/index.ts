@@ -34,6 +34,10 @@ import { TrainingRecord } from "./training-record.entity";
 import { TrainingRequest } from "./training-request.entity";
 import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
+import { IonTransferSolvent } from "./ion-transfer-solvent.entity";
+import { IonTransferIon } from "./ion-transfer-ion.entity";
+import { RunPlan } from "./run-plan.entity";
+import { Reservation } from "./reservation.entity";
 
 export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
@@ -43,6 +47,8 @@ export {
 };
 // Stockroom and safety review.
 export { ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert };
+// Run plans.
+export { IonTransferSolvent, IonTransferIon, RunPlan, Reservation };
 
 export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
@@ -50,4 +56,5 @@ export const entities = [
   ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert,
   Setup, SetupInstrument, TrainingRequest,
   BillingAdjustment, BillingRun, ChargeLine, ProcessedEvent, Rate, Statement,
+  IonTransferSolvent, IonTransferIon, RunPlan, Reservation,
 ];
