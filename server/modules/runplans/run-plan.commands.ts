@@ -88,7 +88,8 @@ export async function reserveForBooking(deps: Deps, actor: AuthUser, id: number,
       if (e instanceof IonTransferError) throw ionProblem(e);
       throw e;
     }
-    const missing = computed.weighing.filter((w) => w.amount === null);
+    // Salts named from the ion table are not Stockroom chemicals: nothing to reserve for them (the plan says so).
+    const missing = computed.weighing.filter((w) => w.chemicalId !== null && w.amount === null);
     if (missing.length) {
       throw new RuleBroken(`Phasebook cannot say how much to reserve: ${missing.map((m) => m.note).join(" ")}`, undefined, "plan_incomplete");
     }

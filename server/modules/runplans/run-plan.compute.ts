@@ -209,9 +209,10 @@ export function wasteOf(conn: DataSource, plan: Pick<ComputedPlan, "halogenated"
     }
     if (!halo) return [];
     try {
-      const capacityMl = exactAmountToNumber(exactAmountInContainerUnit(c.initialQuantity, c.unit, { ...c, unit: "mL" }, { densityGPerMl: c.densityGPerMl, molarMass: c.molarMass }));
-      const filledMl = exactAmountToNumber(exactAmountInContainerUnit(c.quantity, c.unit, { ...c, unit: "mL" }, { densityGPerMl: c.densityGPerMl, molarMass: c.molarMass }));
-      return [{ id: c.id, roomMl: Math.max(0, capacityMl - filledMl) }];
+      // A waste container fills: its capacity is initialQuantity, what it holds is quantity.
+      const room = c.initialQuantity - c.quantity;
+      const roomMl = room <= 0 ? 0 : exactAmountToNumber(exactAmountInContainerUnit(room, c.unit, { ...c, unit: "mL" }, { densityGPerMl: c.densityGPerMl, molarMass: c.molarMass }));
+      return [{ id: c.id, roomMl }];
     } catch {
       return [];
     }
