@@ -18,6 +18,13 @@ export const RUN_CAUTIONS: readonly string[] = [
   PRECEDENCE_CAUTION,
 ];
 
+/** The solvent's own cautions where the table has them (they already ask for a hood, gloves and the waste stream), Phasebook's general ones otherwise. */
+function cautionsFor(computed: ComputedPlan | null): string[] {
+  const own = computed?.preview.cautions ?? [];
+  const specific = own.length > 1;
+  return [...new Set(specific ? [...own.slice(0, -1), "Wear eye protection and a lab coat; keep the filled cell and its waste in the hood until they are emptied.", PRECEDENCE_CAUTION] : RUN_CAUTIONS)];
+}
+
 export function presentRunPlan(ds: DataSource, viewer: AuthUser, row: PlanRow): RunPlanDto {
   const input = runPlanInput.parse(JSON.parse(row.input)) as RunPlanParsed;
   let computed: ComputedPlan | null = null;
@@ -65,7 +72,7 @@ export function presentRunPlan(ds: DataSource, viewer: AuthUser, row: PlanRow): 
       note: r.note,
       createdAt: r.createdAt,
     })),
-    cautions: [...new Set([...(computed?.preview.cautions ?? []), ...RUN_CAUTIONS])],
+    cautions: cautionsFor(computed),
     abilities: runPlanPolicy.abilities(viewer, factsOf(row)),
   };
 }

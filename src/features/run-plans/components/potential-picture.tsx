@@ -8,8 +8,8 @@
 import type { RunPlanPreviewDto } from "@shared/schemas/run-plans";
 import { formatCurrent, formatVolts, phaseWord, prettyIon } from "./format";
 
-const W = 720;
-const PAD = 48;
+const W = 600;
+const PAD = 52;
 const AXIS_H = 150;
 const PLOT_H = 150;
 
@@ -71,7 +71,8 @@ export function PotentialPicture({ preview, solventName }: { preview: RunPlanPre
 
   return (
     <figure className="flex flex-col gap-2" data-testid="run-plan-picture">
-      <svg viewBox={`0 0 ${W} ${height}`} className="h-auto w-full max-w-3xl" role="img" aria-labelledby="run-plan-picture-title run-plan-picture-desc">
+      <div className="overflow-x-auto">
+      <svg viewBox={`0 0 ${W} ${height}`} className="h-auto w-full min-w-[30rem] max-w-3xl" role="img" aria-labelledby="run-plan-picture-title run-plan-picture-desc">
         <title id="run-plan-picture-title">Potential window and ion transfers at water | {solventName}</title>
         <desc id="run-plan-picture-desc">{desc}</desc>
         {/* Beyond each edge: the limiting ion's phase colour. */}
@@ -80,7 +81,7 @@ export function PotentialPicture({ preview, solventName }: { preview: RunPlanPre
         {/* The window. */}
         <rect x={neg ? x(neg.edgeV) : PAD} y={30} width={Math.max(0, (pos ? x(pos.edgeV) : W - PAD) - (neg ? x(neg.edgeV) : PAD))} height={axisY - 30} className="fill-white stroke-grey-300" strokeDasharray="4 3" />
         {w.widthV !== null && neg && pos && (
-          <text x={(x(neg.edgeV) + x(pos.edgeV)) / 2} y={46} textAnchor="middle" className="fill-grey-700 text-[12px]">
+          <text x={(x(neg.edgeV) + x(pos.edgeV)) / 2} y={46} textAnchor="middle" className="fill-grey-700 text-[13px]">
             window {(w.widthV * 1000).toFixed(0)} mV
           </text>
         )}
@@ -88,7 +89,7 @@ export function PotentialPicture({ preview, solventName }: { preview: RunPlanPre
           e ? (
             <g key={e.side} data-testid={`edge-${e.side}`}>
               <line x1={x(e.edgeV)} x2={x(e.edgeV)} y1={24} y2={axisY} className={PHASE_CLASSES[e.phase].line} strokeWidth={2} />
-              <text x={x(e.edgeV) + (e.side === "negative" ? -4 : 4)} y={20} textAnchor={e.side === "negative" ? "end" : "start"} className={`${PHASE_CLASSES[e.phase].text} text-[12px] font-semibold`}>
+              <text x={x(e.edgeV) + (e.side === "negative" ? -4 : 4)} y={20} textAnchor={e.side === "negative" ? "end" : "start"} className={`${PHASE_CLASSES[e.phase].text} text-[13px] font-semibold`}>
                 {prettyIon(e.ion)} {formatVolts(e.edgeV)}
               </text>
             </g>
@@ -98,7 +99,7 @@ export function PotentialPicture({ preview, solventName }: { preview: RunPlanPre
         {preview.analytes.map((a, i) => (
           <g key={`${a.ion}-${i}`}>
             <path d={`M ${x(a.halfWavePotentialV)} ${axisY - 2} l -6 -12 h 12 z`} className={`${PHASE_CLASSES[a.phase].line} ${a.insideWindow === false ? "fill-danger-400" : "fill-grey-800"}`} />
-            <text x={x(a.halfWavePotentialV)} y={axisY - 20 - (i % 2) * 13} textAnchor="middle" className="fill-grey-900 text-[11px]">
+            <text x={x(a.halfWavePotentialV)} y={axisY - 20 - (i % 2) * 13} textAnchor="middle" className="fill-grey-900 text-[12px]">
               {prettyIon(a.ion)}
             </text>
           </g>
@@ -108,13 +109,20 @@ export function PotentialPicture({ preview, solventName }: { preview: RunPlanPre
         {ticks.map((v) => (
           <g key={v}>
             <line x1={x(v)} x2={x(v)} y1={axisY} y2={axisY + 5} className="stroke-grey-700" />
-            <text x={x(v)} y={axisY + 18} textAnchor="middle" className="fill-grey-700 text-[11px]">
+            <text x={x(v)} y={axisY + 18} textAnchor="middle" className="fill-grey-700 text-[12px]">
               {v.toFixed(step < 0.1 ? 2 : 1)}
             </text>
           </g>
         ))}
-        <text x={W / 2} y={axisY + 36} textAnchor="middle" className="fill-grey-800 text-[12px]">
-          Δ_o^w φ / V (φ water − φ organic)
+        <text x={W / 2} y={axisY + 36} textAnchor="middle" className="fill-grey-800 text-[13px]">
+          Δ
+          <tspan baselineShift="sub" fontSize="9">
+            o
+          </tspan>
+          <tspan baselineShift="super" fontSize="9">
+            w
+          </tspan>
+          φ / V (φ water − φ organic)
         </text>
         {plotted.map((a, k) => {
           const top = AXIS_H + k * PLOT_H + 10;
@@ -129,19 +137,20 @@ export function PotentialPicture({ preview, solventName }: { preview: RunPlanPre
               <rect x={PAD} y={top} width={W - 2 * PAD} height={PLOT_H - 24} className="fill-grey-50 stroke-grey-200" />
               <line x1={PAD} x2={W - PAD} y1={y(0)} y2={y(0)} className="stroke-grey-300" strokeDasharray="2 3" />
               <path d={d} fill="none" className={PHASE_CLASSES[a.phase].line} strokeWidth={1.8} />
-              <text x={PAD + 6} y={top + 14} className="fill-grey-800 text-[11px]">
+              <text x={PAD + 6} y={top + 14} className="fill-grey-800 text-[12px]">
                 {prettyIon(a.ion)} from the {phaseWord(a.phase)} phase, simulated reversible CV{a.peakCurrentA !== null ? `: peak ${formatCurrent(a.peakCurrentA)}` : ""}
               </text>
-              <text x={PAD - 6} y={y(iMax)} textAnchor="end" className="fill-grey-600 text-[10px]">
+              <text x={PAD - 6} y={y(iMax)} textAnchor="end" className="fill-grey-600 text-[11px]">
                 {formatCurrent(iMax)}
               </text>
-              <text x={PAD - 6} y={y(iMin)} textAnchor="end" className="fill-grey-600 text-[10px]">
+              <text x={PAD - 6} y={y(iMin)} textAnchor="end" className="fill-grey-600 text-[11px]">
                 {formatCurrent(iMin)}
               </text>
             </g>
           );
         })}
       </svg>
+      </div>
       <figcaption className="text-sm text-grey-700">
         <p>{desc}</p>
         <p className="mt-1 flex flex-wrap gap-3 text-xs">

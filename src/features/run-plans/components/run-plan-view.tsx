@@ -56,17 +56,20 @@ function Weighing({ plan }: { plan: RunPlanDto }) {
             <Th>What</Th>
             <Th className="text-right">c</Th>
             <Th className="text-right">Amount</Th>
-            <Th>Note</Th>
+            <Th className="hidden sm:table-cell">Note</Th>
           </tr>
         </THead>
         <TBody>
           {plan.weighing.map((w, i) => (
             <Tr key={i} data-testid="weigh-line">
               <Td>{w.phase}</Td>
-              <Td className="font-medium">{w.name}</Td>
+              <Td className="font-medium">
+                {w.name}
+                <span className="block text-xs font-normal text-grey-700 sm:hidden">{w.note}</span>
+              </Td>
               <Td className="text-right tabular-nums">{w.molPerL === null ? "—" : molar(w.molPerL)}</Td>
               <Td className="text-right font-semibold tabular-nums">{formatMass(w.amount, w.unit)}</Td>
-              <Td className="text-xs text-grey-700">{w.note}</Td>
+              <Td className="hidden text-xs text-grey-700 sm:table-cell">{w.note}</Td>
             </Tr>
           ))}
         </TBody>
