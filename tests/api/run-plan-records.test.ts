@@ -24,6 +24,7 @@ let ownerUser: User;
 let accountId: number;
 let potentiostatId: number;
 let cellId: number;
+let cellLabel: string;
 let liclId: number;
 let dceId: number;
 
@@ -48,7 +49,9 @@ beforeAll(async () => {
   await other.login(o2.email, TEST_PASSWORD);
   accountId = (await makeAccount(t.ds, [ownerUser.id, o2.id])).id;
   potentiostatId = (await makeInstrument(t.ds, { kind: "potentiostat", fourElectrode: true })).id;
-  cellId = (await makeInstrument(t.ds, { kind: "interface_cell", interfaceAreaCm2: 1.53, aqueousFillMl: 5, organicFillMl: 4 })).id;
+  const cell = await makeInstrument(t.ds, { kind: "interface_cell", interfaceAreaCm2: 1.53, aqueousFillMl: 5, organicFillMl: 4 });
+  cellId = cell.id;
+  cellLabel = cell.labelToken;
   for (const u of [ownerUser, o2]) for (const i of [potentiostatId, cellId]) await train(t.ds, u.id, i);
   const licl = await keeper.post("/api/chemicals", { name: "Lithium chloride", casNumber: "7447-41-8", formula: "LiCl", unitCostCents: 70, costUnit: "g", ions: [{ ion: "Li+", charge: 1, count: 1 }, { ion: "Cl-", charge: -1, count: 1 }] });
   expect(licl.status, licl.text).toBe(201);
@@ -180,6 +183,11 @@ describe("reservations", () => {
     const bookingId = await book(owner, 8);
     const r = await owner.post(`/api/run-plans/${plan.id}/reserve`, { bookingId, containers: [{ chemicalId: liclId, containerId: bottle.id }] });
     expect(r.status, r.text).toBe(200);
+    // The Scan page of the cell shows the plan of its next booking to the booking's owner, not to others.
+    const scanned = await owner.get(`/api/scan/${cellLabel}`);
+    expect(scanned.body.record.nextBooking.id).toBe(bookingId);
+    expect(scanned.body.record.runPlans).toEqual([expect.objectContaining({ id: plan.id, bookingId, heldReservations: 2 })]);
+    expect((await other.get(`/api/scan/${cellLabel}`)).body.record.runPlans).toEqual([]);
     t.clock.set("2026-12-08T14:05:00.000Z");
     try {
       const checkIn = await owner.post(`/api/bookings/${bookingId}/check-in`, {});

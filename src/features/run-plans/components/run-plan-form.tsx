@@ -52,19 +52,44 @@ function stockIonsOf(c: ChemicalDto, mM: number) {
   return (c.ions ?? []).map((i) => ({ ion: i.ion, molPerL: (i.count * mM) / 1000 }));
 }
 
+/** A bottle on the shelf that gives exactly these ions, or the table's salt of that name. */
+function defaultChoice(stock: ChemicalDto[], ions: [string, string], salt: string): string {
+  const found = stock.find((c) => c.ions?.length === 2 && ions.every((ion) => c.ions?.some((i) => i.ion === ion && i.count === 1)));
+  return found ? `stock:${found.id}` : `salt:${salt}`;
+}
+
 export function RunPlanForm({ onSaved }: { onSaved: (plan: RunPlanDto) => void }) {
   const solvents = useSolvents();
-  const [solvent, setSolvent] = useState("dce");
-  const ions = useIons(solvent);
   const stock = useStockElectrolytes();
   const instruments = useInstrumentChoices();
-  const cells = useMemo(() => (instruments.data ?? []).filter((i) => i.kind === "interface_cell" && i.status === "in_service"), [instruments.data]);
+  if (solvents.isPending || instruments.isPending || stock.isPending) return <LoadingLine label="Loading the ion table and the Stockroom" />;
+  const failed = solvents.error ?? instruments.error ?? stock.error;
+  if (failed) return <Alert tone="danger">{describeError(failed)}</Alert>;
+  return <PlanForm onSaved={onSaved} stockChoices={stock.data ?? []} instruments={instruments.data ?? []} solventChoices={solvents.data?.items ?? []} />;
+}
+
+function PlanForm({
+  onSaved,
+  stockChoices,
+  instruments,
+  solventChoices,
+}: {
+  onSaved: (plan: RunPlanDto) => void;
+  stockChoices: ChemicalDto[];
+  instruments: InstrumentDto[];
+  solventChoices: { id: string; name: string }[];
+}) {
+  const [solvent, setSolvent] = useState("dce");
+  const ions = useIons(solvent);
+  const stock = { data: stockChoices };
+  const cells = useMemo(() => instruments.filter((i) => i.kind === "interface_cell" && i.status === "in_service"), [instruments]);
   const [title, setTitle] = useState("");
   const [cellId, setCellId] = useState<number | null>(null);
-  const [rows, setRows] = useState<Record<Phase, ElectrolyteRow[]>>({
-    aqueous: [{ choice: "salt:LiCl", mM: "10", purity: "100" }],
-    organic: [{ choice: "salt:BTPPA TB(C6F5)4", mM: "5", purity: "100" }],
-  });
+  // Bottles on the shelf first: LiCl in water and BTPPA TB(C6F5)4 in the organic phase when the Stockroom has them.
+  const [rows, setRows] = useState<Record<Phase, ElectrolyteRow[]>>(() => ({
+    aqueous: [{ choice: defaultChoice(stockChoices, ["Li+", "Cl-"], "LiCl"), mM: "10", purity: "100" }],
+    organic: [{ choice: defaultChoice(stockChoices, ["BTPPA+", "TB(C6F5)4-"], "BTPPA TB(C6F5)4"), mM: "5", purity: "100" }],
+  }));
   const [analytes, setAnalytes] = useState<AnalyteRow[]>([{ ion: "TEA+", mM: "0.5", phase: "aqueous" }]);
   const [scanMvPerS, setScanMvPerS] = useState("50");
   const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
@@ -124,7 +149,7 @@ export function RunPlanForm({ onSaved }: { onSaved: (plan: RunPlanDto) => void }
     };
     // chemicalOf reads stock.data, which is in the dependencies.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [solventEntry?.id, ions.data, rows, analytes, scanMvPerS, cell?.id, stock.data, solvent]);
+  }, [solventEntry?.id, ions.data, rows, analytes, scanMvPerS, cell?.id, stockChoices, solvent]);
   const debounced = useDebouncedValue(previewBody, 300);
   const preview = usePreview(debounced);
 
@@ -196,15 +221,13 @@ export function RunPlanForm({ onSaved }: { onSaved: (plan: RunPlanDto) => void }
     </fieldset>
   );
 
-  if (solvents.isPending || instruments.isPending || stock.isPending) return <LoadingLine label="Loading the ion table and the Stockroom" />;
-
   return (
     <div className="flex flex-col gap-4">
       <Card title="What you will run">
         <div className="grid gap-3 sm:grid-cols-2">
           <Input label="Title" value={title} placeholder="e.g. TEA⁺ transfer, LiCl | BTPPA TB(C6F5)4" onChange={(e) => setTitle(e.target.value)} error={fieldErrors.title} />
           <Select label="Organic solvent" value={solvent} onChange={(e) => setSolvent(e.target.value)}>
-            {(solvents.data?.items ?? []).map((s) => (
+            {solventChoices.map((s) => (
               <option key={s.id} value={s.id}>
                 {s.name}
               </option>
