@@ -167,7 +167,7 @@ describe("the Stockroom", () => {
     try {
       await signIn(page, server.url, "safety@kestrelbay.example");
       await page.click('[data-testid="nav-safety"]');
-      const finding = page.getByText(/location(s are| is) over the limit: .*Under-bench solvent cabinet UB-1/);
+      const finding = page.getByText(/location(s are| is) over (a|the) limit: .*Under-bench solvent cabinet UB-1/);
       await expect.poll(() => finding.count(), { timeout: 15_000 }).toBe(1);
       await expect.poll(() => page.getByText(/Over limit by \d+\.\d\d L/).count()).toBeGreaterThan(0);
     } finally {
