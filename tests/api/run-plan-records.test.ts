@@ -220,6 +220,25 @@ describe("reservations", () => {
     expect(after.booking).toBeNull();
   });
 
+  it("keeps a plan that holds stock from being edited until its author, the booking's owner or the manager releases it", async () => {
+    const bottle = await receive(liclId, 5, "g");
+    const plan = await makePlan(owner, 0.01);
+    const bookingId = await book(owner, 15);
+    expect((await owner.post(`/api/run-plans/${plan.id}/reserve`, { bookingId, containers: [{ chemicalId: liclId, containerId: bottle.id }] })).status).toBe(200);
+    const edit = await owner.request("PUT", `/api/run-plans/${plan.id}`, { json: { ...plan.input, title: "Changed" } });
+    expect(edit.status).toBe(409);
+    expect(edit.body.code).toBe("plan_has_reservations");
+    expect((await owner.post(`/api/run-plans/${plan.id}/reserve`, { bookingId })).status).toBe(409);
+    expect((await other.post(`/api/run-plans/${plan.id}/release`)).status).toBe(404);
+    const released = await keeper.post(`/api/run-plans/${plan.id}/release`);
+    expect(released.status, released.text).toBe(200);
+    expect(released.body.runPlan.reservations.every((r: { state: string }) => r.state === "released")).toBe(true);
+    expect(released.body.runPlan.abilities).toEqual({ see: true, edit: true, attach: true, release: false });
+    const edited = await owner.request("PUT", `/api/run-plans/${plan.id}`, { json: { ...plan.input, title: "Changed" } });
+    expect(edited.status, edited.text).toBe(200);
+    expect(edited.body.runPlan.title).toBe("Changed");
+  });
+
   it("reserves only for the caller's own booking with a potentiostat and a cell", async () => {
     const plan = await makePlan(owner, 0.01);
     const othersBooking = await book(other, 11);

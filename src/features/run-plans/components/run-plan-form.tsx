@@ -221,83 +221,88 @@ function PlanForm({
     </fieldset>
   );
 
+  // The picture first: above the form on a phone, beside it (and staying in view) on a wide screen.
   return (
-    <div className="flex flex-col gap-4">
-      <Card title="What you will run">
-        <div className="grid gap-3 sm:grid-cols-2">
-          <Input label="Title" value={title} placeholder="e.g. TEA⁺ transfer, LiCl | BTPPA TB(C6F5)4" onChange={(e) => setTitle(e.target.value)} error={fieldErrors.title} />
-          <Select label="Organic solvent" value={solvent} onChange={(e) => setSolvent(e.target.value)}>
-            {solventChoices.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-              </option>
+    <div className="grid items-start gap-4 xl:grid-cols-2">
+      <div className="order-first xl:sticky xl:top-4 xl:order-last">
+        <Card title="The plan">
+          {preview.isError && <Alert tone="danger">{describeError(preview.error)}</Alert>}
+          {!previewBody && <p className="text-sm text-grey-600">Give every concentration as a number above zero to see the window.</p>}
+          {preview.data && (
+            <div className="flex flex-col gap-4">
+              <PotentialPicture preview={preview.data} solventName={preview.data.solvent.name} />
+              <PlanNumbers preview={preview.data} />
+            </div>
+          )}
+        </Card>
+      </div>
+      <div className="flex flex-col gap-4">
+        <Card title="What you will run">
+          <div className="grid gap-3 sm:grid-cols-2">
+            <Input label="Title" value={title} placeholder="e.g. TEA⁺ transfer, LiCl | BTPPA TB(C6F5)4" onChange={(e) => setTitle(e.target.value)} error={fieldErrors.title} />
+            <Select label="Organic solvent" value={solvent} onChange={(e) => setSolvent(e.target.value)}>
+              {solventChoices.map((s) => (
+                <option key={s.id} value={s.id}>
+                  {s.name}
+                </option>
+              ))}
+            </Select>
+            <Select label="Interface cell" value={cell?.id ?? ""} onChange={(e) => setCellId(Number(e.target.value))} error={fieldErrors.cellId}>
+              {cells.map((c) => (
+                <option key={c.id} value={c.id}>
+                  {c.name}
+                </option>
+              ))}
+            </Select>
+            <Input label="Scan rate (mV/s)" inputMode="decimal" value={scanMvPerS} onChange={(e) => setScanMvPerS(e.target.value)} error={positiveError(scanMvPerS, "scan rate")} />
+          </div>
+          {cell && (
+            <p className="mt-2 text-xs text-grey-600" data-testid="cell-facts">
+              {cell.interfaceRadiusCm ? `Micro-interface of radius ${cell.interfaceRadiusCm * 1e4} µm` : `Interface ${cell.interfaceAreaCm2 ?? "?"} cm²`}; fills {cell.aqueousFillMl ?? "?"} mL of water and {cell.organicFillMl ?? "?"} mL of
+              organic phase{cell.aqueousFillMl === null || cell.organicFillMl === null ? " (the manager has not recorded the volumes; the plan cannot say what to weigh)" : ""}.
+            </p>
+          )}
+        </Card>
+        <Card title="Electrolytes" description="Bottles on the shelf first (chemicals that say which ions they give), then salts of the ion table.">
+          <div className="grid gap-4 lg:grid-cols-2">
+            {electrolyteRows("aqueous")}
+            {electrolyteRows("organic")}
+          </div>
+        </Card>
+        <Card title="Analytes" description="The ions you want to see transfer.">
+          <div className="flex flex-col gap-2">
+            {analytes.map((a, i) => (
+              <div key={i} className="grid gap-2 sm:grid-cols-[1fr_8rem_10rem_auto] sm:items-end">
+                <Select label="Ion" value={a.ion} onChange={(e) => setAnalytes(analytes.map((x, k) => (k === i ? { ...x, ion: e.target.value } : x)))} error={fieldErrors[`analytes.${i}.ion`]}>
+                  {(ions.data?.items ?? []).map((ion) => (
+                    <option key={ion.ion} value={ion.ion}>
+                      {prettyIon(ion.ion)} ({ion.name})
+                    </option>
+                  ))}
+                </Select>
+                <Input label="mmol/L" inputMode="decimal" value={a.mM} onChange={(e) => setAnalytes(analytes.map((x, k) => (k === i ? { ...x, mM: e.target.value } : x)))} error={positiveError(a.mM, "concentration")} />
+                <Select label="Starts in" value={a.phase} onChange={(e) => setAnalytes(analytes.map((x, k) => (k === i ? { ...x, phase: e.target.value as Phase } : x)))}>
+                  <option value="aqueous">water</option>
+                  <option value="organic">organic phase</option>
+                </Select>
+                <Button size="sm" variant="ghost" onClick={() => setAnalytes(analytes.filter((_, k) => k !== i))}>
+                  Remove
+                </Button>
+              </div>
             ))}
-          </Select>
-          <Select label="Interface cell" value={cell?.id ?? ""} onChange={(e) => setCellId(Number(e.target.value))} error={fieldErrors.cellId}>
-            {cells.map((c) => (
-              <option key={c.id} value={c.id}>
-                {c.name}
-              </option>
-            ))}
-          </Select>
-          <Input label="Scan rate (mV/s)" inputMode="decimal" value={scanMvPerS} onChange={(e) => setScanMvPerS(e.target.value)} error={positiveError(scanMvPerS, "scan rate")} />
-        </div>
-        {cell && (
-          <p className="mt-2 text-xs text-grey-600" data-testid="cell-facts">
-            {cell.interfaceRadiusCm ? `Micro-interface of radius ${cell.interfaceRadiusCm * 1e4} µm` : `Interface ${cell.interfaceAreaCm2 ?? "?"} cm²`}; fills {cell.aqueousFillMl ?? "?"} mL of water and {cell.organicFillMl ?? "?"} mL of
-            organic phase{cell.aqueousFillMl === null || cell.organicFillMl === null ? " (the manager has not recorded the volumes; the plan cannot say what to weigh)" : ""}.
-          </p>
-        )}
-      </Card>
-      <Card title="Electrolytes" description="Bottles on the shelf first (chemicals that say which ions they give), then salts of the ion table.">
-        <div className="grid gap-4 lg:grid-cols-2">
-          {electrolyteRows("aqueous")}
-          {electrolyteRows("organic")}
-        </div>
-      </Card>
-      <Card title="Analytes" description="The ions you want to see transfer.">
-        <div className="flex flex-col gap-2">
-          {analytes.map((a, i) => (
-            <div key={i} className="grid gap-2 sm:grid-cols-[1fr_8rem_10rem_auto] sm:items-end">
-              <Select label="Ion" value={a.ion} onChange={(e) => setAnalytes(analytes.map((x, k) => (k === i ? { ...x, ion: e.target.value } : x)))} error={fieldErrors[`analytes.${i}.ion`]}>
-                {(ions.data?.items ?? []).map((ion) => (
-                  <option key={ion.ion} value={ion.ion}>
-                    {prettyIon(ion.ion)} ({ion.name})
-                  </option>
-                ))}
-              </Select>
-              <Input label="mmol/L" inputMode="decimal" value={a.mM} onChange={(e) => setAnalytes(analytes.map((x, k) => (k === i ? { ...x, mM: e.target.value } : x)))} error={positiveError(a.mM, "concentration")} />
-              <Select label="Starts in" value={a.phase} onChange={(e) => setAnalytes(analytes.map((x, k) => (k === i ? { ...x, phase: e.target.value as Phase } : x)))}>
-                <option value="aqueous">water</option>
-                <option value="organic">organic phase</option>
-              </Select>
-              <Button size="sm" variant="ghost" onClick={() => setAnalytes(analytes.filter((_, k) => k !== i))}>
-                Remove
+            <div>
+              <Button size="sm" onClick={() => setAnalytes([...analytes, { ion: "TMA+", mM: "0.5", phase: "aqueous" }])}>
+                Add an analyte
               </Button>
             </div>
-          ))}
-          <div>
-            <Button size="sm" onClick={() => setAnalytes([...analytes, { ion: "TMA+", mM: "0.5", phase: "aqueous" }])}>
-              Add an analyte
-            </Button>
           </div>
+        </Card>
+        {error && <Alert tone="danger">{error}</Alert>}
+        <div className="flex justify-end">
+          <Button variant="primary" loading={create.isPending} onClick={save}>
+            Save the plan
+          </Button>
         </div>
-      </Card>
-      <Card title="The plan">
-        {preview.isError && <Alert tone="danger">{describeError(preview.error)}</Alert>}
-        {!previewBody && <p className="text-sm text-grey-600">Give every concentration as a number above zero to see the window.</p>}
-        {preview.data && (
-          <div className="flex flex-col gap-4">
-            <PotentialPicture preview={preview.data} solventName={preview.data.solvent.name} />
-            <PlanNumbers preview={preview.data} />
-          </div>
-        )}
-      </Card>
-      {error && <Alert tone="danger">{error}</Alert>}
-      <div className="flex justify-end">
-        <Button variant="primary" loading={create.isPending} onClick={save}>
-          Save the plan
-        </Button>
       </div>
     </div>
   );
