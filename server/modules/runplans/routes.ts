@@ -48,7 +48,7 @@ const ionTableRoutes = [
     access: "signed_in",
     query: ionsQuery,
     output: ionsAnswer,
-    handler: ({ ctx, query }) => withIonProblems(() => ionsOf(loadIonTable(ctx.ds), query.solvent), (f) => (f === "solvent" ? "solvent" : f)),
+    handler: ({ ctx, query }) => withIonProblems(() => ionsOf(loadIonTable(ctx.ds), query.solvent)),
   }),
   route({
     method: "post",

@@ -223,8 +223,8 @@ function PlanForm({
 
   // The picture first: above the form on a phone, beside it (and staying in view) on a wide screen.
   return (
-    <div className="grid items-start gap-4 xl:grid-cols-2">
-      <div className="order-first xl:sticky xl:top-4 xl:order-last">
+    <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
+      <div className="order-first min-w-0 xl:sticky xl:top-4 xl:order-last">
         <Card title="The plan">
           {preview.isError && <Alert tone="danger">{describeError(preview.error)}</Alert>}
           {!previewBody && <p className="text-sm text-grey-600">Give every concentration as a number above zero to see the window.</p>}
@@ -236,7 +236,7 @@ function PlanForm({
           )}
         </Card>
       </div>
-      <div className="flex flex-col gap-4">
+      <div className="flex min-w-0 flex-col gap-4">
         <Card title="What you will run">
           <div className="grid gap-3 sm:grid-cols-2">
             <Input label="Title" value={title} placeholder="e.g. TEA⁺ transfer, LiCl | BTPPA TB(C6F5)4" onChange={(e) => setTitle(e.target.value)} error={fieldErrors.title} />
