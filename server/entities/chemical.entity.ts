@@ -31,6 +31,8 @@ export class Chemical {
   @Column("integer", { nullable: true }) unitCostCents: number | null;
   @Column("text", { nullable: true }) costUnit: string | null;
   @Column("text", { nullable: true }) onHoldReason: string | null;
+  /** Electrolytes: JSON [{ ion, charge, count }] of the ions one formula unit gives (LiCl → Li+, Cl−); null otherwise. */
+  @Column("text", { nullable: true }) ions: string | null;
   @Column("text") createdAt: string;
 
 }

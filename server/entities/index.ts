@@ -35,6 +35,10 @@ import { TrainingRecord } from "./training-record.entity";
 import { TrainingRequest } from "./training-request.entity";
 import { User } from "./user.entity";
 import { UserRole } from "./user-role.entity";
+import { IonTransferSolvent } from "./ion-transfer-solvent.entity";
+import { IonTransferIon } from "./ion-transfer-ion.entity";
+import { RunPlan } from "./run-plan.entity";
+import { Reservation } from "./reservation.entity";
 
 export {
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
@@ -44,6 +48,8 @@ export {
 };
 // Stockroom and safety review.
 export { ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert };
+// Run plans.
+export { IonTransferSolvent, IonTransferIon, RunPlan, Reservation };
 
 export const entities = [
   Account, AccountMember, AuditEntry, Booking, BookingInstrument, Chemical, Container, ContainerUsage, Department, Instrument, InstrumentFault, LabelHistory, LabelStock, Location,
@@ -51,4 +57,5 @@ export const entities = [
   ContainerMovement, LocationLimit, SafetyDataSheet, SolutionComponent, StockAlert,
   Setup, SetupInstrument, TrainingRequest,
   BillingAdjustment, BillingRun, ChargeLine, JournalLine, ProcessedEvent, Rate, Statement,
+  IonTransferSolvent, IonTransferIon, RunPlan, Reservation,
 ];

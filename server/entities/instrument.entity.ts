@@ -18,6 +18,11 @@ export class Instrument {
   @Column("boolean", { default: false }) fourElectrode: boolean;
   /** Interface cells: interfacial area in cm². */
   @Column("real", { nullable: true }) interfaceAreaCm2: number | null;
+  /** Micro-interface cells: radius of the inlaid disc interface in cm. */
+  @Column("real", { nullable: true }) interfaceRadiusCm: number | null;
+  /** Interface cells: volume of each phase a run fills in, mL (what a run plan weighs for). */
+  @Column("real", { nullable: true }) aqueousFillMl: number | null;
+  @Column("real", { nullable: true }) organicFillMl: number | null;
   @Column("boolean", { default: true }) trainingRequired: boolean;
   @Column("boolean", { default: false }) requiresApproval: boolean;
   @Column("integer", { default: 0 }) cleaningBufferMinutes: number;

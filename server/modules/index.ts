@@ -10,6 +10,7 @@ import { systemTable } from "./system";
 import { peopleTable } from "./people";
 import { rechargeTable } from "./recharge";
 import { scheduleTable } from "./schedule";
+import { runPlansTable } from "./runplans";
 
 // People first: its session routes (GET /api/auth/me, the signed-in baseline) are matched before any other.
-export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, scheduleTable, stockroomTable, safetyTable, labelsTable, rechargeTable];
+export const ROUTE_TABLES: RouteTable[] = [peopleTable, systemTable, scheduleTable, stockroomTable, safetyTable, labelsTable, rechargeTable, runPlansTable];

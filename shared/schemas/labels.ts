@@ -144,6 +144,8 @@ export const scanInstrumentRecord = z.object({
   nextBooking: scanBookingDto.nullable(),
   /** Fault reports nobody has closed yet. */
   openFaults: z.array(faultDto),
+  /** Run plans attached to the current and next booking that the scanner may see (run-plan policy). */
+  runPlans: z.array(z.object({ id: z.number(), title: z.string(), bookingId: z.number(), heldReservations: z.number() })),
   /** What the caller may do to it, decided by the server's instrument policy. */
   abilities: instrumentAbilities,
 });

@@ -7,6 +7,8 @@
 import { z } from "zod";
 import { id, isoDate, pageQuery } from "./common";
 import { locationClassTotals, nfpaClassSchema, storageLimitResultDto } from "./storage";
+import { chemicalIon, chemicalIons } from "./ion-table";
+import { reservationDto } from "./run-plan-records";
 
 export const CONTAINER_STATUSES = ["sealed", "in_use", "on_hold", "empty", "disposed"] as const;
 export const containerStatus = z.enum(CONTAINER_STATUSES);
@@ -77,6 +79,8 @@ export const chemicalDto = z.object({
   unitCostCents: z.number().nullable(),
   costUnit: z.string().nullable(),
   onHoldReason: z.string().nullable(),
+  /** Electrolytes: the ions one formula unit gives (LiCl → Li+ + Cl−), so a run plan can start from the bottle; null otherwise. */
+  ions: z.array(chemicalIon).nullable(),
   createdAt: z.string(),
 });
 export type ChemicalDto = z.infer<typeof chemicalDto>;
@@ -110,6 +114,7 @@ export const chemicalInput = z.object({
   reorderUnit: z.enum(STOCK_UNITS).nullable().optional(),
   unitCostCents: z.number().int("Give the unit cost in whole cents").min(0).max(1e9).nullable().optional(),
   costUnit: z.enum(STOCK_UNITS).nullable().optional(),
+  ions: chemicalIons.optional(),
 });
 export type ChemicalInput = z.infer<typeof chemicalInput>;
 export const chemicalUpdate = chemicalInput.partial();
@@ -135,6 +140,10 @@ export const containerDto = z.object({
   quantity: z.number(),
   initialQuantity: z.number(),
   unit: z.string(),
+  /** Held for bookings' run plans (in the container's unit); only those bookings draw it. */
+  reservedQuantity: z.number(),
+  /** quantity − reservedQuantity: what anyone else may draw. */
+  freeQuantity: z.number(),
   locationId: z.number().nullable(),
   locationName: z.string().nullable(),
   status: containerStatus,
@@ -271,6 +280,8 @@ export const containerDetailDto = z.object({
   parents: z.array(lineageDto),
   /** Solutions prepared from this container. */
   children: z.array(lineageDto),
+  /** Amounts held (or once held) for bookings' run plans. */
+  reservations: z.array(reservationDto),
   /** False when the reader sees the chemical, hazards, quantity, place and state but not the people or the money. */
   historyShown: z.boolean(),
 });

@@ -67,6 +67,8 @@ export function createAppRouter() {
         screen(paths.chemical.path, () => import("./routes/stockroom-chemical").then((m) => ({ Component: m.ChemicalRoute }))),
         screen(paths.container.path, () => import("./routes/stockroom-container").then((m) => ({ Component: m.ContainerRoute }))),
         screen(paths.prepareSolution.path, () => import("./routes/stockroom-prepare").then((m) => ({ Component: m.PrepareSolutionRoute }))),
+        screen(paths.runPlanNew.path, () => import("./routes/run-plan-new").then((m) => ({ Component: m.NewRunPlanRoute }))),
+        screen(paths.runPlan.path, () => import("./routes/run-plan").then((m) => ({ Component: m.RunPlanRoute }))),
         screen(paths.scan.path, () => import("./routes/scan").then((m) => ({ Component: m.ScanRoute }))),
         screen(paths.scanToken.path, () => import("./routes/scan-token").then((m) => ({ Component: m.ScanTokenRoute }))),
         screen(paths.myCharges.path, () => import("./routes/my-charges").then((m) => ({ Component: m.MyChargesRoute }))),

@@ -36,6 +36,8 @@ export const paths = {
   receive: { path: "/stockroom/receive", getHref: (chemicalId?: number) => (chemicalId ? `/stockroom/receive?chemicalId=${chemicalId}` : "/stockroom/receive") },
   prepareSolution: { path: "/stockroom/prepare", getHref: () => "/stockroom/prepare" },
   stockImport: { path: "/stockroom/import", getHref: () => "/stockroom/import" },
+  runPlanNew: { path: "/run-plans/new", getHref: () => "/run-plans/new" },
+  runPlan: { path: "/run-plans/:id", getHref: (id: number) => `/run-plans/${id}` },
   scan: { path: "/scan", getHref: () => "/scan" },
   scanToken: { path: "/s/:token", getHref: (token: string) => `/s/${enc(token)}` },
   recharge: { path: "/recharge", getHref: () => "/recharge" },

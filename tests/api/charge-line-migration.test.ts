@@ -12,6 +12,17 @@ import { openDatabase } from "../../server/db/data-source";
 import { minutesAsHours } from "../../server/db/migrations/1796238557056-charge-line-exact-figures";
 
 let ds: DataSource | undefined;
+
+/** Undoes migrations, newest first, until the named one is undone too (later ones come off first). */
+async function undoThrough(source: DataSource, name: string): Promise<void> {
+  for (;;) {
+    const [last] = (await source.query(`SELECT name FROM migrations ORDER BY id DESC LIMIT 1`)) as { name: string }[];
+    if (!last) throw new Error(`${name} was never applied`);
+    await source.undoLastMigration({ transaction: "each" });
+    if (last.name === name) return;
+  }
+}
+const CHARGE_LINE_MIGRATION = "ChargeLineExactFigures1796238557056";
 afterEach(async () => {
   await ds?.destroy();
   ds = undefined;
@@ -32,7 +43,7 @@ describe("the charge-line exact figures migration", () => {
 
   it("turns lines billed before it into lines that reconcile, with the same amounts, and undoes cleanly", async () => {
     ds = await openDatabase(":memory:");
-    await ds.undoLastMigration({ transaction: "each" });
+    await undoThrough(ds, CHARGE_LINE_MIGRATION);
     await ds.query(`INSERT INTO billing_runs (id, period, status, currency, totalCents, createdAt) VALUES (1, '2026-05', 'final', 'CAD', 0, '2026-06-02T12:00:00.000Z')`);
     await ds.query(`INSERT INTO statements (id, runId, accountId, period, totalCents, currency, createdAt) VALUES (1, 1, 1, '2026-05', 0, 'CAD', '2026-06-02T12:00:00.000Z')`);
     // As the old run wrote them (the old columns: quantity real, unitPriceCents integer):
@@ -60,7 +71,7 @@ describe("the charge-line exact figures migration", () => {
     for (const r of rows) expect(lineReconciles({ quantity: r.quantity, unit: r.unit, unitPriceCents: r.unitPriceCents, amountCents: r.amountCents })).toBe(true);
     expect((await ds.query(`SELECT typeof(quantity) AS q, typeof(unitPriceCents) AS p FROM charge_lines LIMIT 1`))[0]).toEqual({ q: "text", p: "text" });
 
-    await ds.undoLastMigration({ transaction: "each" });
+    await undoThrough(ds, CHARGE_LINE_MIGRATION);
     const back: { quantity: number; unit: string; unitPriceCents: number; amountCents: number }[] = await ds.query(
       `SELECT quantity, unit, unitPriceCents, amountCents FROM charge_lines ORDER BY id LIMIT 3`,
     );

@@ -44,6 +44,11 @@ export const CONTRACT_ACCESS: Record<string, Who> = {
   "POST /api/billing/runs": ["manager"],
   "GET /api/billing/runs/:id/journal.csv": ["manager"],
   "POST /api/webhooks/stripe": PUBLIC,
+  // Issue 12's contract routes: signed in.
+  "POST /api/run-plans/preview": SIGNED_IN,
+  "POST /api/run-plans/distribution": SIGNED_IN,
+  "GET /api/ion-transfer/solvents": SIGNED_IN,
+  "GET /api/ion-transfer/ions": SIGNED_IN,
 };
 
 

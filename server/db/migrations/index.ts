@@ -11,6 +11,7 @@ import { RecordOwnersAndFaults1796231102622 } from "./1796231102622-record-owner
 import { StorageLimitsByClass1796233973566 } from "./1796233973566-storage-limits-by-class";
 import { UsageExactCost1796235000000 } from "./1796235000000-usage-exact-cost";
 import { ChargeLineExactFigures1796238557056 } from "./1796238557056-charge-line-exact-figures";
+import { RunPlansAndReservations1796239193256 } from "./1796239193256-run-plans-and-reservations";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -24,4 +25,5 @@ export const migrations = [
   StorageLimitsByClass1796233973566,
   UsageExactCost1796235000000,
   ChargeLineExactFigures1796238557056,
+  RunPlansAndReservations1796239193256,
 ];

@@ -49,7 +49,14 @@ export interface DemoChemical {
   reorderUnit: string | null;
   unitCostCents: number | null;
   costUnit: string | null;
+  /** Electrolytes: the ions one formula unit gives, for run plans (charges as the formula says). */
+  ions?: { ion: string; charge: number; count: number }[];
 }
+
+const ions = (cation: string, anion: string) => [
+  { ion: cation, charge: 1, count: 1 },
+  { ion: anion, charge: -1, count: 1 },
+];
 
 const fromFormula = (formula: string) => ({ formula, molarMass: molarMassFromFormula(formula), molarMassOverridden: false });
 
@@ -103,6 +110,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "licl",
+    ions: ions("Li+", "Cl-"),
     name: "Lithium chloride",
     synonyms: ["LiCl"],
     casNumber: "7447-41-8",
@@ -125,6 +133,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "nacl",
+    ions: ions("Na+", "Cl-"),
     name: "Sodium chloride",
     synonyms: ["NaCl"],
     casNumber: "7647-14-5",
@@ -137,6 +146,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "kcl",
+    ions: ions("K+", "Cl-"),
     name: "Potassium chloride",
     synonyms: ["KCl"],
     casNumber: "7447-40-7",
@@ -197,6 +207,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "tbacl",
+    ions: ions("TBA+", "Cl-"),
     name: "Tetrabutylammonium chloride",
     synonyms: ["TBACl", "TBA chloride"],
     casNumber: "1112-67-0",
@@ -219,6 +230,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "ppncl",
+    ions: ions("BTPPA+", "Cl-"),
     name: "Bis(triphenylphosphoranylidene)ammonium chloride",
     synonyms: ["BTPPACl", "PPNCl", "bis(triphenylphosphine)iminium chloride"],
     // 21050-13-5 passes the CAS check digit; the "21050-13-9" in our brief does not.
@@ -243,6 +255,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "litpfb",
+    ions: ions("Li+", "TB(C6F5)4-"),
     name: "Lithium tetrakis(pentafluorophenyl)borate ethyl etherate",
     synonyms: ["LiTPFB etherate", "LiB(C6F5)4 · x Et2O"],
     // The brief gave 155543-02-1, which fails the CAS check digit. 371162-53-7 is the etherate's
@@ -293,6 +306,7 @@ export const DEMO_CHEMICALS: readonly DemoChemical[] = [
   },
   {
     key: "tmacl",
+    ions: ions("TMA+", "Cl-"),
     name: "Tetramethylammonium chloride",
     synonyms: ["TMACl", "TMA chloride"],
     casNumber: "75-57-0",

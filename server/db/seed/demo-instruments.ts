@@ -48,6 +48,10 @@ export interface DemoInstrument {
   location: LocationKey;
   fourElectrode: boolean;
   interfaceAreaCm2: number | null;
+  /** Interface cells only (example values, invented for the demo; the manager keeps the real ones). */
+  interfaceRadiusCm?: number | null;
+  aqueousFillMl?: number | null;
+  organicFillMl?: number | null;
   trainingRequired: boolean;
   requiresApproval: boolean;
   cleaningBufferMinutes: number;
@@ -100,6 +104,9 @@ const cell = (
   location: "interfaceLab",
   fourElectrode: false,
   interfaceAreaCm2: areaCm2,
+  // Example fill volumes of a four-electrode glass cell (invented for the demo).
+  aqueousFillMl: areaCm2 >= 1 ? 5 : 3,
+  organicFillMl: areaCm2 >= 1 ? 4 : 2.5,
   trainingRequired: true,
   requiresApproval: false,
   cleaningBufferMinutes: 30,
@@ -132,6 +139,10 @@ export const DEMO_INSTRUMENTS: readonly DemoInstrument[] = [
     model: "Micro-interface cell: 25 µm hole in a polyester film",
     description: "Single micro-hole interface for steady-state ion-transfer voltammetry. The film is fragile: ask the manager first.",
     requiresApproval: true,
+    // The hole's radius; the film separates two small reservoirs (example volumes).
+    interfaceRadiusCm: 1.25e-3,
+    aqueousFillMl: 2,
+    organicFillMl: 1.5,
   }),
   {
     key: "shaker",

@@ -185,6 +185,9 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
           locationId: lookup(locations, i.location),
           fourElectrode: i.fourElectrode,
           interfaceAreaCm2: i.interfaceAreaCm2,
+          interfaceRadiusCm: i.interfaceRadiusCm ?? null,
+          aqueousFillMl: i.aqueousFillMl ?? null,
+          organicFillMl: i.organicFillMl ?? null,
           trainingRequired: i.trainingRequired,
           requiresApproval: i.requiresApproval,
           cleaningBufferMinutes: i.cleaningBufferMinutes,
@@ -253,6 +256,7 @@ export async function seedDemo(ds: DataSource, opts: SeedDemoOptions): Promise<{
           unitCostCents: c.unitCostCents,
           costUnit: c.costUnit,
           onHoldReason: null,
+          ions: c.ions ? JSON.stringify(c.ions) : null,
           createdAt: isoAfter(now, -500),
         }),
       );

@@ -15,6 +15,7 @@ import type { AuthUser } from "../../middleware/auth";
 import type { Deps } from "../../core/deps";
 import { allLocations, containerPolicy, locationPaths, presentChemical } from "../stockroom";
 import { bookingPolicy, instrumentPolicy, openFaults, readBookingSettings, seesInFull } from "../schedule";
+import { factsOf, plansOfBookings, runPlanPolicy } from "../runplans";
 
 /**
  * A retired token opens nothing: 404 as the contract has it for a token that leads nowhere, with
@@ -128,6 +129,10 @@ async function instrumentRecord(deps: Deps, user: AuthUser, i: Instrument): Prom
     currentBooking: current,
     nextBooking: next,
     openFaults: await openFaults(deps.ds.manager, i.id),
+    // The plans of the bookings shown, as far as the run-plan policy lets this person see them.
+    runPlans: plansOfBookings(deps.ds, [current?.id, next?.id].filter((x): x is number => typeof x === "number"))
+      .filter((p) => runPlanPolicy.can(user, "see", factsOf(p)))
+      .map((p) => ({ id: p.id, title: p.title, bookingId: p.bookingId as number, heldReservations: p.heldCount })),
     abilities: instrumentPolicy.abilities(user, i),
   };
 }

@@ -19,6 +19,7 @@ import { isLateCancel, readBookingSettings } from "./booking-settings";
 import { errorFor, instrumentsInService, problemsFor, requireLength, takenInstruments } from "./booking-checks";
 import { loadForChange, rolesOf, type BookingForChange, type BookingWithInstruments } from "./booking.queries";
 import type { ScheduleDeps } from "./deps";
+import { bookingCheckedIn, bookingEnded } from "../runplans";
 
 const mailContext = (deps: ScheduleDeps): mail.MailContext => ({ publicUrl: deps.config.PUBLIC_URL, tz: deps.config.FACILITY_TZ });
 const names = (instruments: Instrument[]) => instruments.map((i) => i.name);
@@ -105,6 +106,7 @@ export function declineBooking(deps: ScheduleDeps, actor: AuthUser, id: number, 
     (c) => bookingPolicy.authorize(actor, "decline", c),
     async (em, { instruments, owner }, now) => {
       const b = await update(em, id, now, { status: "declined", declineReason: reason, decidedById: actor.id });
+      await bookingEnded(em, now, actor.id, id, "The booking was declined.");
       await audit(em, now, actor.id, "booking.declined", "booking", id, { userId: b.userId, reason });
       await enqueueMail(em, now, mail.declinedMail(owner.email, b, names(instruments), reason, mailContext(deps)));
       return b;
@@ -123,6 +125,8 @@ export function cancelBooking(deps: ScheduleDeps, actor: AuthUser, id: number, r
       if (missing) throw new RuleBroken(missing.reason, [{ path: "reason", message: "Give a reason" }], missing.code);
       const late = booking.status === "confirmed" && isLateCancel(booking.startMs, now.getTime(), readBookingSettings(em.connection));
       const b = await update(em, id, now, { status: "cancelled", cancelledAt: now.toISOString(), cancelledById: actor.id, cancelReason: reason ?? null, lateCancel: late });
+      // Stock a run plan held for this booking goes back to the shelf.
+      await bookingEnded(em, now, actor.id, id, "The booking was cancelled.");
       await audit(em, now, actor.id, "booking.cancelled", "booking", id, { userId: b.userId, reason: reason ?? null, lateCancel: late });
       await enqueueMail(em, now, mail.cancelledMail(owner.email, b, names(instruments), mailContext(deps), { byManager: booking.userId !== actor.id, reason, late }));
       return b;
@@ -138,7 +142,9 @@ export function checkIn(deps: ScheduleDeps, actor: AuthUser, id: number): Promis
     (c) => bookingPolicy.authorize(actor, "checkIn", c),
     async (em, _found, now) => {
       const b = await update(em, id, now, { status: "in_progress", checkedInAt: now.toISOString() });
-      await audit(em, now, actor.id, "booking.checked_in", "booking", id, {});
+      // What a run plan reserved for this booking is used from now: it becomes usage on the booking.
+      const stock = await bookingCheckedIn(em, now, actor, id);
+      await audit(em, now, actor.id, "booking.checked_in", "booking", id, stock.used || stock.released ? { reservations: stock } : {});
       return b;
     },
   );
@@ -171,6 +177,7 @@ export function recordNoShow(deps: ScheduleDeps, actor: AuthUser | null, id: num
     },
     async (em, { instruments, owner }, now) => {
       const b = await update(em, id, now, { status: "no_show" });
+      await bookingEnded(em, now, actor?.id ?? null, id, "Nobody checked in (no-show).");
       await audit(em, now, actor?.id ?? null, "booking.no_show", "booking", id, { userId: b.userId, automatic: actor === null });
       await enqueueMail(em, now, mail.noShowMail(owner.email, b, names(instruments), mailContext(deps)));
       return b;

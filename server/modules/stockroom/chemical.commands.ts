@@ -9,6 +9,7 @@ import type { EntityManager } from "typeorm";
 import { parseCas } from "@shared/domain/cas";
 import { analyseFormula, FormulaError } from "@shared/domain/chemistry";
 import { normaliseHCode, isHCode } from "@shared/domain/ghs-statements";
+import { ChemicalIonsError, checkChemicalIons } from "@shared/domain/ion-transfer/chemical-ions";
 import { isAcutelyToxic, isCarcinogen, pictogramsFor, signalWordFor } from "@shared/domain/hazards";
 import type { ChemicalInput, ChemicalUpdate } from "@shared/schemas/stock";
 import { Chemical } from "../../entities";
@@ -103,6 +104,17 @@ export function checkChemicalInput(input: ChemicalUpdate, current?: Chemical): C
     "costUnit",
   ] as const) {
     if (input[k] !== undefined) (values as Record<string, unknown>)[k] = input[k];
+  }
+  if (input.ions !== undefined) {
+    if (input.ions === null) values.ions = null;
+    else {
+      try {
+        values.ions = JSON.stringify(checkChemicalIons(input.ions));
+      } catch (e) {
+        if (!(e instanceof ChemicalIonsError)) throw e;
+        errors.push({ path: e.field, message: e.message });
+      }
+    }
   }
   const flash = input.flashPointC !== undefined ? input.flashPointC : current?.flashPointC;
   const boil = input.boilingPointC !== undefined ? input.boilingPointC : current?.boilingPointC;

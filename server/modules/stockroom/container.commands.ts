@@ -33,6 +33,7 @@ import type { Deps } from "../../core/deps";
 import type { ContainerRow } from "./stock.presenter";
 import { containerRow } from "./container.queries";
 import { containerPolicy } from "./container.policy";
+import { checkNotReserved, drawAgainstReservation } from "./reservation.queries";
 
 /** A UnitError from the domain as a 422 naming the request's field. */
 export function unitProblem(e: UnitError, fields: { amount: string; unit: string }): RuleBroken {
@@ -163,8 +164,10 @@ export async function withdraw(
     const msg = `Container ${c.id} has ${formatQty(c.quantity)} ${c.unit} left; ${formatQty(amount)} ${unit} is ${formatQty(take)} ${c.unit}.`;
     throw new RuleBroken(msg, [{ path: fields.amount, message: msg }], "not_enough_left", { left: c.quantity, unit: c.unit });
   }
-  let accountId: number | null = null;
   const bookingId = opts.bookingId ?? null;
+  // Amounts held for other bookings' runs are not there to take (409 naming what is free).
+  checkNotReserved(em.connection, c, take, bookingId, fields.amount);
+  let accountId: number | null = null;
   if (bookingId !== null) {
     const b = await em.findOneBy(Booking, { id: bookingId });
     if (!b || (b.userId !== actor.id && !hasRole(actor, "manager"))) {
@@ -172,6 +175,7 @@ export async function withdraw(
     }
     accountId = b.accountId;
   }
+  drawAgainstReservation(em.connection, c.id, bookingId, take, now.toISOString());
   const change = { quantity: exactAmountToNumber(w.left), status: w.empty ? ("empty" as const) : ("in_use" as const), openedAt: c.openedAt ?? now.toISOString() };
   // Prepared statements on the transaction's connection: TypeORM's builders cost more than the writes themselves.
   prepared(em.connection, `UPDATE containers SET quantity = ?, status = ?, openedAt = ? WHERE id = ?`).run(change.quantity, change.status, change.openedAt, c.id);

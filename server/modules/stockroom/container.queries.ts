@@ -10,8 +10,10 @@ import { Chemical, Location } from "../../entities";
 import { NotFound } from "../../errors";
 import { prepared } from "../../db/prepared";
 import { locationPaths, type ContainerRow } from "./stock.presenter";
+import { reservationsWhere } from "./reservation.queries";
 
-const ROW_COLUMNS = `c.*, ch.name AS chemicalName, ch.casNumber AS casNumber, ch.onHoldReason AS chemicalHoldReason, l.name AS locationName`;
+const ROW_COLUMNS = `c.*, ch.name AS chemicalName, ch.casNumber AS casNumber, ch.onHoldReason AS chemicalHoldReason, l.name AS locationName,
+  (SELECT COALESCE(SUM(r.amount - r.drawn), 0) FROM reservations r WHERE r.containerId = c.id AND r.state = 'held') AS reservedQuantity`;
 const ROW_FROM = `FROM containers c JOIN chemicals ch ON ch.id = c.chemicalId LEFT JOIN locations l ON l.id = c.locationId`;
 
 const SORT_SQL: Record<ContainerListQuery["sort"], string> = {
@@ -191,9 +193,11 @@ export async function containerDetail(ds: DataSource, id: number) {
      WHERE sc.parentContainerId = ? ORDER BY sc.id`,
     [id],
   )) as LineageRow[];
+  const reservations = reservationsWhere(ds, { containerId: id });
   return {
     container,
     chemical,
+    reservations,
     locationPath: container.locationId === null ? null : (paths.get(container.locationId) ?? null),
     movements,
     usages,

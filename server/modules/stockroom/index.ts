@@ -8,3 +8,5 @@ export { moveContainer, markContainerEmpty, disposeContainer, reportContainerPro
 export { containerRow, descendantIds } from "./container.queries";
 export { presentChemical, presentContainer, presentLocation, presentLimit, locationPaths, type ContainerRow } from "./stock.presenter";
 export { allLocations } from "./location.commands";
+export { holdReservation, releaseReservations, useReservations } from "./reservation.commands";
+export { reservationsWhere, freeInContainer, type ReservationRow } from "./reservation.queries";

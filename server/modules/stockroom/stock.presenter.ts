@@ -46,12 +46,13 @@ export function presentChemical(c: Chemical): ChemicalDto {
     unitCostCents: c.unitCostCents,
     costUnit: c.costUnit,
     onHoldReason: c.onHoldReason,
+    ions: c.ions ? (JSON.parse(c.ions) as ChemicalDto["ions"]) : null,
     createdAt: c.createdAt,
   };
 }
 
 /** A container row as the list query returns it: the container's columns plus names joined in. */
-export type ContainerRow = Container & { chemicalName: string; casNumber: string; locationName: string | null; chemicalHoldReason: string | null };
+export type ContainerRow = Container & { chemicalName: string; casNumber: string; locationName: string | null; chemicalHoldReason: string | null; reservedQuantity: number };
 
 export function presentContainer(c: ContainerRow, viewer: AuthUser): ContainerDto {
   return {
@@ -63,6 +64,8 @@ export function presentContainer(c: ContainerRow, viewer: AuthUser): ContainerDt
     quantity: c.quantity,
     initialQuantity: c.initialQuantity,
     unit: c.unit,
+    reservedQuantity: c.reservedQuantity,
+    freeQuantity: Math.max(0, c.quantity - c.reservedQuantity),
     locationId: c.locationId,
     locationName: c.locationName,
     status: c.status,
@@ -125,6 +128,19 @@ export function presentContainerDetail(d: Awaited<ReturnType<typeof containerDet
     }),
     parents: d.parents,
     children: d.children,
+    reservations: d.reservations.map((r) => ({
+      id: r.id,
+      containerId: r.containerId,
+      chemicalName: r.chemicalName,
+      bookingId: r.bookingId,
+      runPlanId: r.runPlanId,
+      amount: r.amount,
+      drawn: r.drawn,
+      unit: r.unit,
+      state: r.state,
+      note: r.note,
+      createdAt: r.createdAt,
+    })),
     historyShown: shown,
   };
 }

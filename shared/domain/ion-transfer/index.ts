@@ -11,3 +11,4 @@ export * from "./distribution";
 export * from "./scale";
 export * from "./voltammogram";
 export * from "./run-plan";
+export * from "./chemical-ions";

@@ -37,6 +37,12 @@ function Rules({ i }: { i: InstrumentDto }) {
     ["Lead time", i.minLeadMinutes ? `${i.minLeadMinutes} min` : "None"],
     ["Longest booking", `${i.maxLengthMinutes} min`],
     ["After hours", i.afterHoursAllowed ? "Allowed for people with an after-hours endorsement" : "Not allowed"],
+    ...(i.kind === "interface_cell"
+      ? ([
+          ["Interface", i.interfaceRadiusCm ? `micro-interface, radius ${i.interfaceRadiusCm * 1e4} µm` : i.interfaceAreaCm2 ? `${i.interfaceAreaCm2} cm²` : "not recorded"],
+          ["Fill volumes", `${i.aqueousFillMl ?? "?"} mL water, ${i.organicFillMl ?? "?"} mL organic phase`],
+        ] as [string, string][])
+      : []),
     ["Bookable hours", WEEKDAYS.map((d) => `${d} ${(i.bookableHours[d] ?? []).map((w) => `${w.from}–${w.to}`).join(", ") || "closed"}`).join(" · ")],
   ];
   return (

@@ -5,9 +5,11 @@ import { PageHeader } from "@/components/ui/page-header";
 import { LoadingLine } from "@/components/ui/spinner";
 import { MyBookings } from "@/features/schedule/components/my-bookings";
 import { useScheduleContext } from "@/app/use-schedule-context";
+import { BookingRunPlans, useRunPlansByBooking } from "@/features/run-plans/components/booking-run-plans";
 
 export function MyBookingsRoute() {
   const ctx = useScheduleContext();
+  const plans = useRunPlansByBooking();
   return (
     <>
       <PageHeader title="My bookings" description="Check in when you start and out when you finish: billing uses those times. Cancel in good time so others can use the instrument." />
@@ -16,7 +18,11 @@ export function MyBookingsRoute() {
       ) : ctx.loading || !ctx.zone ? (
         <LoadingLine label="Loading your bookings" />
       ) : (
-        <MyBookings names={ctx.names} zone={ctx.zone} />
+        <MyBookings
+          names={ctx.names}
+          zone={ctx.zone}
+          extra={{ title: "Run plan", cell: (b) => <BookingRunPlans plans={plans.get(b.id)} canPlan={b.abilities.cancel && b.mine} /> }}
+        />
       )}
     </>
   );

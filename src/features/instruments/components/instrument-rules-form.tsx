@@ -43,6 +43,14 @@ export function InstrumentRulesForm({ instrument }: { instrument: InstrumentDto 
     maxLengthMinutes: instrument.maxLengthMinutes,
     hours: hoursToText(instrument.bookableHours),
   });
+  // Interface cells: what run plans compute with (area or radius, each phase's fill volume).
+  const [cell, setCell] = useState({
+    interfaceAreaCm2: instrument.interfaceAreaCm2?.toString() ?? "",
+    interfaceRadiusCm: instrument.interfaceRadiusCm?.toString() ?? "",
+    aqueousFillMl: instrument.aqueousFillMl?.toString() ?? "",
+    organicFillMl: instrument.organicFillMl?.toString() ?? "",
+  });
+  const isCell = instrument.kind === "interface_cell";
   const [msg, setMsg] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
   const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
 
@@ -51,7 +59,8 @@ export function InstrumentRulesForm({ instrument }: { instrument: InstrumentDto 
     setFieldErrors({});
     try {
       const { hours, statusNote, ...rest } = v;
-      await update.mutateAsync({ ...rest, bookableHours: textToHours(hours), ...(statusNote ? { statusNote } : {}) });
+      const cellFields = isCell ? Object.fromEntries(Object.entries(cell).map(([k, t]) => [k, t.trim() === "" ? null : Number(t)])) : {};
+      await update.mutateAsync({ ...rest, ...cellFields, bookableHours: textToHours(hours), ...(statusNote ? { statusNote } : {}) });
       setMsg({ tone: "ok", text: v.status !== instrument.status && v.status !== "in_service" ? "Saved. People with upcoming bookings have been told by e-mail." : "Saved." });
     } catch (e) {
       if (e instanceof ApiError) setFieldErrors(e.fieldErrors);
@@ -78,6 +87,28 @@ export function InstrumentRulesForm({ instrument }: { instrument: InstrumentDto 
         {num("minLeadMinutes", "Minimum lead time (minutes)")}
         {num("maxLengthMinutes", "Longest booking (minutes)")}
       </div>
+      {isCell && (
+        <fieldset className="grid gap-3 sm:grid-cols-2" data-testid="cell-fields">
+          <legend className="mb-1 text-xs font-medium text-grey-700">The cell, for run plans (empty: not recorded)</legend>
+          {(
+            [
+              ["interfaceAreaCm2", "Interface area (cm²)"],
+              ["interfaceRadiusCm", "Micro-interface radius (cm), e.g. 0.00125 for 12.5 µm"],
+              ["aqueousFillMl", "Aqueous phase fill (mL)"],
+              ["organicFillMl", "Organic phase fill (mL)"],
+            ] as const
+          ).map(([key, label]) => (
+            <Input
+              key={key}
+              label={label}
+              inputMode="decimal"
+              value={cell[key]}
+              onChange={(e) => setCell({ ...cell, [key]: e.target.value })}
+              error={fieldErrors[key] ?? (cell[key].trim() !== "" && !(Number(cell[key]) > 0) ? "Enter a number above zero, or leave it empty" : undefined)}
+            />
+          ))}
+        </fieldset>
+      )}
       <div className="flex flex-wrap gap-4">
         <Checkbox label="Training required" checked={v.trainingRequired} onChange={(e) => setV({ ...v, trainingRequired: e.target.checked })} />
         <Checkbox label="Manager's approval required" checked={v.requiresApproval} onChange={(e) => setV({ ...v, requiresApproval: e.target.checked })} />

@@ -6,7 +6,7 @@
  * this page only hides what the person could not do anyway.
  */
 import { useState, type ReactNode } from "react";
-import { useNavigate } from "react-router-dom";
+import { Link, useNavigate } from "react-router-dom";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
@@ -354,6 +354,16 @@ function InstrumentView({ scan }: { scan: InstrumentScan }) {
       <Card title="Bookings" bodyClassName="flex flex-col gap-2 p-3">
         <BookingLine label="Now" booking={r.currentBooking} />
         <BookingLine label="Next" booking={r.nextBooking} />
+        {r.runPlans.length > 0 && (
+          <ul className="border-t border-grey-100 pt-2 text-sm" data-testid="scan-run-plans">
+            {r.runPlans.map((p) => (
+              <li key={p.id}>
+                Run plan: <Link to={paths.runPlan.getHref(p.id)}>{p.title}</Link>
+                {p.heldReservations > 0 ? <span className="text-grey-600"> · stock reserved</span> : null}
+              </li>
+            ))}
+          </ul>
+        )}
       </Card>
       {r.abilities.recordCleaned && (
         <Section title="Record that it was cleaned" testId="scan-cleaned">

@@ -3,7 +3,7 @@
  * (`abilities`: check in, check out, cancel), a per-booking .ics, and the personal calendar feed with its rotation. Times are on
  * the facility's clock; the route passes the zone and the instruments' names in.
  */
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import type { BookingDto } from "@shared/schemas/bookings";
 import { describeError } from "@/lib/forms";
 import { formatDateTime, formatSpan } from "@/lib/format";
@@ -29,7 +29,8 @@ function actionsFor(b: BookingDto): { action: BookingAction; label: string }[] {
   return out;
 }
 
-export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>; zone: string }) {
+/** `extra` adds a column the route composes from another feature (the booking's run plans). */
+export function MyBookings({ names, zone, extra }: { names: ReadonlyMap<number, string>; zone: string; extra?: { title: string; cell: (b: BookingDto) => ReactNode } }) {
   const [tab, setTab] = useState<"upcoming" | "past">("upcoming");
   const [now] = useState(() => Date.now());
   const iso = new Date(now).toISOString();
@@ -97,6 +98,7 @@ export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>
               <Th>State</Th>
               <Th>Account</Th>
               <Th>Checked in / out</Th>
+              {extra && <Th>{extra.title}</Th>}
               <Th className="text-right">Actions</Th>
             </tr>
           </THead>
@@ -114,6 +116,7 @@ export function MyBookings({ names, zone }: { names: ReadonlyMap<number, string>
                 <Td className="text-xs">
                   {b.checkedInAt ? formatDateTime(b.checkedInAt, zone) : "—"} / {b.checkedOutAt ? formatDateTime(b.checkedOutAt, zone) : "—"}
                 </Td>
+                {extra && <Td>{extra.cell(b)}</Td>}
                 <Td className="text-right">
                   <div className="flex justify-end gap-2">
                     {actionsFor(b).map((a) => (

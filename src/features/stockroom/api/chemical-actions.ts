@@ -16,3 +16,13 @@ export function useHoldChemical(id: number) {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: stockKeys.all }),
   });
 }
+
+/** PATCH /api/chemicals/:id with `ions` (safety officer, manager): the ions an electrolyte gives, or null. */
+export function useSetChemicalIons(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async (ions: { ion: string; charge: number; count: number }[] | null) =>
+      parseResponse(z.object({ chemical: chemicalDto }), await api.patch<unknown>(`/chemicals/${id}`, { ions }), "PATCH /api/chemicals/:id").chemical,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: stockKeys.all }),
+  });
+}

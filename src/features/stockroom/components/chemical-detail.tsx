@@ -15,6 +15,7 @@ import { useChemical, useSheets } from "../api/get-chemical";
 import { useHoldChemical } from "../api/chemical-actions";
 import { ContainersTable } from "./containers-table";
 import { HazardPanel } from "./hazard-panel";
+import { ChemicalIons } from "./chemical-ions";
 import { SdsUploadForm } from "./sds-upload-form";
 
 interface ChemicalDetailProps {
@@ -56,6 +57,7 @@ export function ChemicalDetail({ id, containerSelectionActions }: ChemicalDetail
               <div><dt className="text-xs text-grey-600">Unit cost</dt><dd>{c.unitCostCents === null ? "–" : `${(c.unitCostCents / 100).toFixed(2)} per ${c.costUnit}`}</dd></div>
             </dl>
           </Card>
+          <ChemicalIons key={JSON.stringify(c.ions)} chemical={c} canEdit={keeper} />
           <Card title="Safety data sheets">
             {sheets.data?.length ? (
               <ul className="text-sm" data-testid="sds-list">

@@ -34,7 +34,8 @@ export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
   const q = useContainer(id);
   if (q.isPending) return <LoadingLine label="Loading the container" />;
   if (q.isError) return <Alert tone="danger">{describeError(q.error)}</Alert>;
-  const { container: c, chemical, movements, usages, parents, children, locationPath, historyShown } = q.data;
+  const { container: c, chemical, movements, usages, parents, children, locationPath, historyShown, reservations } = q.data;
+  const held = reservations.filter((r) => r.state === "held");
   return (
     <>
       <PageHeader
@@ -59,6 +60,11 @@ export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
               ) : (
                 <Fact label="Left">
                   <span data-testid="container-quantity">{formatQuantity(c.quantity, c.unit)}</span> of {formatQuantity(c.initialQuantity, c.unit)}
+                  {c.reservedQuantity > 0 && (
+                    <span className="block text-xs text-grey-700" data-testid="container-reserved">
+                      {formatQuantity(c.reservedQuantity, c.unit)} reserved for booked runs; {formatQuantity(c.freeQuantity, c.unit)} free
+                    </span>
+                  )}
                 </Fact>
               )}
               <Fact label="Status"><StatusBadge status={c.status} chemicalHold={c.chemicalHoldReason} /></Fact>
@@ -71,6 +77,22 @@ export function ContainerDetail({ id, labelTools }: ContainerDetailProps) {
             </dl>
           </Card>
           <ContainerActions container={c} />
+          {held.length > 0 && (
+            <Card title="Reserved for booked runs" description="Only these bookings draw these amounts; cancelling a booking releases its share, checking in uses it.">
+              <ul className="text-sm" data-testid="container-reservations">
+                {held.map((r) => (
+                  <li key={r.id}>
+                    {formatQuantity(r.amount - r.drawn, r.unit)} for booking #{r.bookingId}
+                    {r.runPlanId !== null && (
+                      <>
+                        {" "}(<Link to={paths.runPlan.getHref(r.runPlanId)}>run plan</Link>)
+                      </>
+                    )}
+                  </li>
+                ))}
+              </ul>
+            </Card>
+          )}
           {labelTools && (
             <Card title="Label" description="The QR label on this container opens this page when scanned">
               <div className="flex flex-col gap-3" data-testid="container-label-tools">

@@ -37,7 +37,15 @@ const columns = [
       </span>
     ),
   }),
-  col.accessor("quantity", { header: "Left", cell: (c) => <span className="font-mono text-xs">{formatQuantity(c.getValue(), c.row.original.unit)}</span> }),
+  col.accessor("quantity", {
+    header: "Left",
+    cell: (c) => (
+      <span className="font-mono text-xs">
+        {formatQuantity(c.getValue(), c.row.original.unit)}
+        {c.row.original.reservedQuantity > 0 && <span className="block text-grey-600">{formatQuantity(c.row.original.freeQuantity, c.row.original.unit)} free</span>}
+      </span>
+    ),
+  }),
   col.accessor("status", { header: "Status", cell: (c) => <StatusBadge status={c.getValue()} chemicalHold={c.row.original.chemicalHoldReason} /> }),
   col.accessor("locationName", { id: "location", header: "Location", cell: (c) => c.getValue() ?? <span className="text-warning-800">No location</span> }),
   col.accessor("expiresAt", { header: "Expires", cell: (c) => (c.getValue() ? formatDate(c.getValue()!) : "–") }),
