@@ -66,6 +66,34 @@ export function createApp(deps: AppDeps): CreatedApp {
 
   app.disable("x-powered-by");
   app.set("trust proxy", "loopback");
+  // The built client's hashed assets come first, before the security headers meant for pages and
+  // the API, the logger and the session: a script or style sheet needs only nosniff and its
+  // cross-origin rule, and the first screen loads a dozen of them, so header bytes add up on a
+  // slow link (and a rolling session would be re-saved for each). Vite's hashed bundles never
+  // change under their name; a missing one is a 404, never the page (a browser would otherwise
+  // run the HTML as a script after a deploy).
+  const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
+  const clientBuilt = Boolean(staticDir && fs.existsSync(path.join(staticDir, "index.html")));
+  if (staticDir && clientBuilt) {
+    app.use("/assets", (_req, res, next) => {
+      res.setHeader("X-Content-Type-Options", "nosniff");
+      res.setHeader("Cross-Origin-Resource-Policy", "same-origin");
+      next();
+    });
+    // The build writes name.br and name.gz beside each asset; the best one the client accepts is
+    // sent with its Content-Encoding and `Vary: Accept-Encoding`.
+    app.use(
+      "/assets",
+      expressStaticGzip(path.join(staticDir, "assets"), {
+        enableBrotli: true,
+        orderPreference: ["br", "gzip"],
+        index: false,
+        serveStatic: { index: false, immutable: true, maxAge: "1y", fallthrough: true },
+      }),
+    );
+    app.use("/assets", (req, res) => sendProblem(res, 404, "no_such_file", `There is no file ${req.originalUrl.split("?")[0]}.`));
+  }
+
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -133,22 +161,8 @@ export function createApp(deps: AppDeps): CreatedApp {
   for (const { path: p, router } of mounts) app.use(`/api${p}`, router);
   app.use("/api", apiNotFound);
 
-  const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
-  if (staticDir && fs.existsSync(path.join(staticDir, "index.html"))) {
-    // Vite's hashed bundles never change under their name; a missing one is a 404, never the page
-    // (a browser would otherwise run the HTML as a script after a deploy).
-    // The build writes name.br and name.gz beside each asset; the best one the client accepts is
-    // sent with its Content-Encoding and `Vary: Accept-Encoding`.
-    app.use(
-      "/assets",
-      expressStaticGzip(path.join(staticDir, "assets"), {
-        enableBrotli: true,
-        orderPreference: ["br", "gzip"],
-        index: false,
-        serveStatic: { index: false, immutable: true, maxAge: "1y", fallthrough: true },
-      }),
-    );
-    app.use("/assets", (req, res) => sendProblem(res, 404, "no_such_file", `There is no file ${req.originalUrl.split("?")[0]}.`));
+  if (staticDir && clientBuilt) {
+    // The build's other files, and index.html for page loads only (revalidated on every load).
     app.use(express.static(staticDir, { index: false, maxAge: "1h" }));
     app.get("/{*splat}", (req, res, next) => {
       if (!isNavigation(req)) return next();

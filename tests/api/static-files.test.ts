@@ -121,6 +121,7 @@ describe("compressed answers", () => {
     expect(r.headers.vary).toMatch(/Accept-Encoding/i);
     expect(r.headers["content-type"]).toMatch(/javascript/);
     expect(r.headers["cache-control"]).toBe("public, max-age=31536000, immutable");
+    expect(r.headers["x-content-type-options"]).toBe("nosniff");
     expect(r.body.length).toBeLessThan(BIG.length / 4);
     expect(zlib.brotliDecompressSync(r.body).toString()).toBe(BIG);
   });
