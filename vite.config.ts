@@ -83,6 +83,19 @@ export default defineConfig({
         },
       },
       {
+        plugins: [react()],
+        resolve: { alias },
+        test: {
+          name: "component",
+          include: ["tests/component/**/*.test.tsx"],
+          environment: "happy-dom",
+          globalSetup: ["tests/component/global-setup.ts"],
+          setupFiles: ["tests/component/setup.ts"],
+          testTimeout: 30_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
         resolve: { alias },
         test: {
           name: "e2e",

@@ -23,9 +23,9 @@ import { warmLinksOnIntent } from "./prefetch";
 type Code = () => Promise<ComponentType>;
 type Data = () => Promise<ScreenLoader>;
 
-const schedule = () => import("./loaders/schedule");
-const stockroom = () => import("./loaders/stockroom");
-const areas = () => import("./loaders/areas");
+const schedule = () => import("./loaders/schedule-data");
+const stockroom = () => import("./loaders/stockroom-data");
+const areas = () => import("./loaders/areas-data");
 
 export function createAppRouter(qc: QueryClient) {
   /** One screen: its code, its data (optional), the section error page; `roles` as its guard. */
