@@ -13,6 +13,7 @@ import { useQueryClient, type QueryClient } from "@tanstack/react-query";
 import type { Role } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
 import { RequireAuth } from "@/lib/auth";
+import { meQueryOptions } from "@/lib/session/get-me";
 import { AREA_ROLES } from "@/layouts/nav-items";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { SectionError } from "./routes/section-error";
@@ -50,8 +51,16 @@ export function createAppRouter(qc: QueryClient) {
     children: children.map(([path, code, data]) => screen(path, code, data, roles)),
   });
 
+  // Who is signed in is asked at once, beside the screen's code, not after it arrives: the
+  // signed-out pages open straight on their form (or move on), the frame straight on its screen.
+  const session = async () => {
+    await qc.prefetchQuery(meQueryOptions());
+    return null;
+  };
+
   const signedOut = (path: string, code: Code): RouteObject => ({
     path,
+    loader: session,
     lazy: { Component: code },
     errorElement: <SectionError />,
     hydrateFallbackElement: <FullPageSpinner />,
@@ -63,6 +72,7 @@ export function createAppRouter(qc: QueryClient) {
     signedOut(paths.reset.path, () => import("./routes/reset-password").then((m) => m.ResetPasswordRoute)),
     {
       path: paths.home.path,
+      loader: session,
       lazy: { Component: () => import("./routes/signed-in-frame").then((m) => m.SignedInFrame) },
       errorElement: <SectionError />,
       hydrateFallbackElement: <FullPageSpinner />,

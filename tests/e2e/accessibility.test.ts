@@ -143,7 +143,7 @@ async function walk(role: RoleName, size: keyof typeof SIZES, colorScheme: "ligh
 }
 
 describe("the axe walk (WCAG 2.2 AA)", () => {
-  it("finds nothing on the signed-out pages, at a desk and on a phone, light and dark", async () => {
+  it("finds nothing on the signed-out pages, at a desk and on a phone, light and dark", { timeout: 300_000 }, async () => {
     const problems: string[] = [];
     for (const size of ["desk", "phone"] as const) {
       for (const scheme of ["light", "dark"] as const) {
@@ -166,7 +166,7 @@ describe("the axe walk (WCAG 2.2 AA)", () => {
   });
 
   for (const role of Object.keys(ACCOUNTS) as RoleName[]) {
-    it(`finds nothing on any page the ${role.replace("_", " ")} reaches, at a desk and on a phone`, async () => {
+    it(`finds nothing on any page the ${role.replace("_", " ")} reaches, at a desk and on a phone`, { timeout: 600_000 }, async () => {
       const desk = await walk(role, "desk");
       const phone = await walk(role, "phone");
       expect(desk.visited.length).toBeGreaterThan(6);
@@ -174,7 +174,7 @@ describe("the axe walk (WCAG 2.2 AA)", () => {
     });
   }
 
-  it("finds nothing on the manager's pages in the dark colour scheme", async () => {
+  it("finds nothing on the manager's pages in the dark colour scheme", { timeout: 600_000 }, async () => {
     const dark = await walk("manager", "desk", "dark");
     expect(dark.problems).toEqual([]);
   });

@@ -132,7 +132,8 @@ describe("keyboard only", () => {
     const block = page.locator('.fc-event[role="button"]', { hasText: "Confirmed" }).filter({ hasText: instrument.name });
     await block.first().waitFor();
     expect(await block.first().getAttribute("tabindex")).toBe("0");
-    await tabTo(page, `.fc-event[role="button"]:has-text("${instrument.name}")`, { limit: 200 });
+    await block.first().evaluate((el) => el.setAttribute("data-keyboard-target", "block"));
+    await tabTo(page, '[data-keyboard-target="block"]', { limit: 200 });
     await page.keyboard.press("Enter");
     const details = page.locator('[data-testid="booking-details"]');
     await details.waitFor();
