@@ -13,8 +13,10 @@ const alias = {
 };
 
 /**
- * Preloads the fonts the first screen needs (IBM Plex Sans 400, 500 and 600), by their hashed
- * names in the build, so text is set in Plex from the first paint instead of swapping later.
+ * Preloads fonts by their hashed names in the build. Only IBM Plex Sans 400, the face of almost
+ * all text: it then arrives with the first scripts and body text is set in Plex from the start.
+ * The other weights swap in when used (font-display: swap); preloading them too would take
+ * bandwidth the first screen's scripts need on a slow link.
  */
 function preloadFonts(pattern: RegExp): Plugin {
   return {
@@ -39,7 +41,7 @@ export default defineConfig({
   plugins: [
     react(),
     tailwindcss(),
-    preloadFonts(/ibm-plex-sans-latin-(400|500|600)-normal-[\w-]+\.woff2$/),
+    preloadFonts(/ibm-plex-sans-latin-400-normal-[\w-]+\.woff2$/),
     // Brotli and gzip copies of every script, style sheet and SVG beside it, served by
     // express-static-gzip with the matching Content-Encoding (server/app.ts).
     compression({ algorithms: ["brotliCompress", "gzip"], include: /\.(js|mjs|css|svg|json)$/, exclude: /\.map$/, threshold: 1024 }),
