@@ -35,6 +35,8 @@ async function newPage(timezoneId = FACILITY_TZ): Promise<Page> {
 
 /** Drags over the time grid from one slot to another in one day's column. */
 async function selectRange(page: Page, date: string, from: string, lastSlot: string) {
+  // The pointer works only inside the viewport: bring the range into view first.
+  await page.locator(`td.fc-timegrid-slot-lane[data-time="${lastSlot}"]`).scrollIntoViewIfNeeded();
   const column = await page.locator(`td.fc-timegrid-col[data-date="${date}"]`).boundingBox();
   const top = await page.locator(`td.fc-timegrid-slot-lane[data-time="${from}"]`).boundingBox();
   const bottom = await page.locator(`td.fc-timegrid-slot-lane[data-time="${lastSlot}"]`).boundingBox();

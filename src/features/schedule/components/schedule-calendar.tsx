@@ -61,14 +61,15 @@ function eventFor(b: BookingListItem, names: Map<number, string>): EventInput {
  * the full date and time, so its name says the state, instruments, person and when.
  */
 function BlockContent({ arg, zone }: { arg: EventContentArg; zone: string }) {
-  const b = arg.event.extendedProps.booking as BookingListItem;
+  // The range being selected is drawn as a block too (the "mirror"), with no booking behind it.
+  const b = arg.event.extendedProps.booking as BookingListItem | undefined;
   return (
     <div className="fc-event-main-frame">
       {arg.timeText && <div className="fc-event-time">{arg.timeText}</div>}
       <div className="fc-event-title-container">
         <div className="fc-event-title fc-sticky">{arg.event.title}</div>
       </div>
-      <span className="sr-only">, {formatSpan(b.start, b.end, zone)}</span>
+      {b && <span className="sr-only">, {formatSpan(b.start, b.end, zone)}</span>}
     </div>
   );
 }
@@ -151,11 +152,14 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   };
 
   // The library draws a block as an <a> without href; as a button (Enter or Space opens it) it is reachable and named by its content.
-  const onMount = (arg: EventMountArg) => arg.el.setAttribute("role", "button");
+  const onMount = (arg: EventMountArg) => {
+    if (arg.event.extendedProps.booking) arg.el.setAttribute("role", "button");
+  };
 
   const onClick = (arg: EventClickArg) => {
     arg.jsEvent.preventDefault();
-    setOpened(arg.event.extendedProps.booking as BookingListItem);
+    const booking = arg.event.extendedProps.booking as BookingListItem | undefined;
+    if (booking) setOpened(booking);
   };
   const events = useMemo(
     () => (bookings.data?.items ?? []).filter((b) => b.instrumentIds.some((id) => visibleIds.has(id))).map((b) => eventFor(b, names)),
