@@ -1,13 +1,18 @@
 /**
  * createApp(deps): middleware, routers, the JSON 404 under /api, the built client (its hashed
  * assets, and index.html for page loads only), and the one error handler. main.ts is the only
- * file that listens.
+ * file that listens. Answers are compressed when the client asks: the build's assets come
+ * pre-compressed (brotli and gzip files written by the Vite build), everything else is
+ * compressed on the fly by the `compression` middleware.
  */
 import fs from "node:fs";
 import path from "node:path";
+import zlib from "node:zlib";
 import express, { type Express } from "express";
 import session from "express-session";
 import helmet from "helmet";
+import compression from "compression";
+import expressStaticGzip from "express-static-gzip";
 import { pinoHttp } from "pino-http";
 import type { AppDeps, Ctx } from "./context";
 import { createPassport, createSignIn, DbSessionStore, SESSION_COOKIE } from "./modules/people";
@@ -61,6 +66,34 @@ export function createApp(deps: AppDeps): CreatedApp {
 
   app.disable("x-powered-by");
   app.set("trust proxy", "loopback");
+  // The built client's hashed assets come first, before the security headers meant for pages and
+  // the API, the logger and the session: a script or style sheet needs only nosniff and its
+  // cross-origin rule, and the first screen loads a dozen of them, so header bytes add up on a
+  // slow link (and a rolling session would be re-saved for each). Vite's hashed bundles never
+  // change under their name; a missing one is a 404, never the page (a browser would otherwise
+  // run the HTML as a script after a deploy).
+  const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
+  const clientBuilt = Boolean(staticDir && fs.existsSync(path.join(staticDir, "index.html")));
+  if (staticDir && clientBuilt) {
+    app.use("/assets", (_req, res, next) => {
+      res.setHeader("X-Content-Type-Options", "nosniff");
+      res.setHeader("Cross-Origin-Resource-Policy", "same-origin");
+      next();
+    });
+    // The build writes name.br and name.gz beside each asset; the best one the client accepts is
+    // sent with its Content-Encoding and `Vary: Accept-Encoding`.
+    app.use(
+      "/assets",
+      expressStaticGzip(path.join(staticDir, "assets"), {
+        enableBrotli: true,
+        orderPreference: ["br", "gzip"],
+        index: false,
+        serveStatic: { index: false, immutable: true, maxAge: "1y", fallthrough: true },
+      }),
+    );
+    app.use("/assets", (req, res) => sendProblem(res, 404, "no_such_file", `There is no file ${req.originalUrl.split("?")[0]}.`));
+  }
+
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -82,6 +115,10 @@ export function createApp(deps: AppDeps): CreatedApp {
       hsts: secureCookies,
     }),
   );
+  // Brotli or gzip on the fly for the API's JSON and index.html; a pre-compressed asset already
+  // carries its Content-Encoding and is passed through. Brotli at quality 4 costs about what gzip
+  // does and saves more; small answers (< 1 kB) are not worth the CPU.
+  app.use(compression({ threshold: 1024, brotli: { params: { [zlib.constants.BROTLI_PARAM_QUALITY]: 4 } } }));
   // A silent request logger would still build a child logger and listeners per request.
   const logLevel = deps.quiet ? "silent" : deps.config.LOG_LEVEL;
   if (logLevel !== "silent") {
@@ -125,12 +162,8 @@ export function createApp(deps: AppDeps): CreatedApp {
   for (const { path: p, router } of mounts) app.use(`/api${p}`, router);
   app.use("/api", apiNotFound);
 
-  const staticDir = deps.staticDir === undefined ? path.resolve("dist") : deps.staticDir;
-  if (staticDir && fs.existsSync(path.join(staticDir, "index.html"))) {
-    // Vite's hashed bundles never change under their name; a missing one is a 404, never the page
-    // (a browser would otherwise run the HTML as a script after a deploy).
-    app.use("/assets", express.static(path.join(staticDir, "assets"), { index: false, immutable: true, maxAge: "1y", fallthrough: true }));
-    app.use("/assets", (req, res) => sendProblem(res, 404, "no_such_file", `There is no file ${req.originalUrl.split("?")[0]}.`));
+  if (staticDir && clientBuilt) {
+    // The build's other files, and index.html for page loads only (revalidated on every load).
     app.use(express.static(staticDir, { index: false, maxAge: "1h" }));
     app.get("/{*splat}", (req, res, next) => {
       if (!isNavigation(req)) return next();

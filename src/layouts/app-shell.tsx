@@ -1,10 +1,12 @@
 /**
  * The frame around every signed-in screen: a compact top bar (mark, who is signed in, sign-out)
  * and the navigation for the person's roles. On a phone the navigation folds behind a menu
- * button, while Scan stays one tap away in the top bar for work at the bench.
+ * button, while Scan stays one tap away in the top bar for work at the bench. The navigation's
+ * column runs the full height of the page (its list stays in view while the page scrolls), and
+ * a thin bar under the top bar shows that the next screen is on its way.
  */
 import { useState } from "react";
-import { Link, NavLink, Outlet } from "react-router-dom";
+import { Link, NavLink, Outlet, useNavigation } from "react-router-dom";
 import { ROLE_LABELS } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
 import { useLogout, useUser } from "@/lib/auth";
@@ -23,6 +25,7 @@ export function AppShell() {
   const [menuOpen, setMenuOpen] = useState(false);
   const items = navItemsFor(user);
   const closeMenu = () => setMenuOpen(false);
+  const navigating = useNavigation().state === "loading";
 
   return (
     <div className="flex min-h-screen flex-col">
@@ -89,16 +92,22 @@ export function AppShell() {
         </Button>
       </header>
 
+      {navigating && (
+        <div className="pointer-events-none sticky top-12 z-30 h-0.5 w-full overflow-hidden bg-aqueous-100" data-testid="navigation-progress">
+          <div className="h-full w-1/3 animate-pulse bg-aqueous-600" />
+        </div>
+      )}
+
       <div className="flex flex-1">
         <nav
           id="app-nav"
           aria-label="Main"
           className={cn(
-            "border-grey-200 bg-white md:sticky md:top-12 md:block md:h-[calc(100vh-3rem)] md:w-52 md:shrink-0 md:overflow-y-auto md:border-r",
+            "border-grey-200 bg-white md:block md:w-52 md:shrink-0 md:border-r",
             menuOpen ? "fixed inset-x-0 bottom-0 top-12 z-20 block overflow-y-auto" : "hidden",
           )}
         >
-          <div className="flex flex-col gap-4 px-2 py-3">
+          <div className="flex flex-col gap-4 px-2 py-3 md:sticky md:top-12 md:max-h-[calc(100vh-3rem)] md:overflow-y-auto">
             {GROUP_ORDER.map((group) => {
               const groupItems = items.filter((i) => i.group === group);
               if (groupItems.length === 0) return null;
@@ -143,7 +152,7 @@ export function AppShell() {
           </div>
         </nav>
 
-        <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-4 py-4 focus:outline-none md:px-6 md:py-5">
+        <main id="main" tabIndex={-1} aria-busy={navigating || undefined} className="min-w-0 flex-1 px-4 py-4 focus:outline-none md:px-6 md:py-5">
           <div className="mx-auto max-w-6xl">
             <Outlet />
           </div>

@@ -154,13 +154,10 @@ async function request<T>(method: string, path: string, body?: unknown, options:
 
   // A stale token (the session changed in another tab, or the server restarted): fetch a fresh one and retry once.
   if (res.status === 403 && UNSAFE_METHODS.has(method)) {
-    const error = await toApiError(res.clone());
-    if (error.code === "csrf_invalid") {
-      await refreshCsrfToken();
-      res = await send(method, url, body, options.signal);
-    } else {
-      throw error;
-    }
+    const error = await toApiError(res);
+    if (error.code !== "csrf_invalid") throw error;
+    await refreshCsrfToken();
+    res = await send(method, url, body, options.signal);
   }
 
   if (!res.ok) throw await toApiError(res);

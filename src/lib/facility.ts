@@ -4,13 +4,13 @@
  * books the same local hours the instruments are open.
  */
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import { facilityDto } from "@shared/schemas/facility";
-import { api, parseResponse } from "./api-client";
+import { api } from "./api-client";
+import { facilityAnswer } from "./boot-answers";
 
 export const facilityQueryOptions = () =>
   queryOptions({
     queryKey: ["facility"] as const,
-    queryFn: async ({ signal }) => parseResponse(facilityDto, await api.get<unknown>("/facility", { signal }), "GET /api/facility"),
+    queryFn: async ({ signal }) => facilityAnswer(await api.get<unknown>("/facility", { signal })),
     // A server setting that changes only with a restart.
     staleTime: Infinity,
   });

@@ -88,6 +88,8 @@ describe("GET /api/auth/csrf", () => {
     for (let i = 0; i < 300; i++) {
       const r = await new ApiClient(t.url).get("/api/auth/csrf");
       expect(r.status).toBe(200);
+      // A cached copy would hand an old token out without its cookie.
+      expect(r.headers.get("cache-control")).toBe("no-store");
       tokens.add(r.body.token);
     }
     expect(tokens.size).toBe(300);

@@ -35,6 +35,8 @@ async function newPage(timezoneId = FACILITY_TZ): Promise<Page> {
 
 /** Drags over the time grid from one slot to another in one day's column. */
 async function selectRange(page: Page, date: string, from: string, lastSlot: string) {
+  // The pointer works only inside the viewport: bring the range into view first.
+  await page.locator(`td.fc-timegrid-slot-lane[data-time="${lastSlot}"]`).scrollIntoViewIfNeeded();
   const column = await page.locator(`td.fc-timegrid-col[data-date="${date}"]`).boundingBox();
   const top = await page.locator(`td.fc-timegrid-slot-lane[data-time="${from}"]`).boundingBox();
   const bottom = await page.locator(`td.fc-timegrid-slot-lane[data-time="${lastSlot}"]`).boundingBox();
@@ -63,8 +65,8 @@ describe("booking through the Schedule with the manager's approval", () => {
     await signIn(page, server.url, MEMBER);
     await page.goto(`${server.url}/schedule`);
     await page.selectOption('[data-testid="filter-instrument"]', String(micro.id));
-    await page.locator(".fc-next-button").click();
-    await page.locator(".fc-next-button").click();
+    await page.locator("[data-testid='schedule-next']").click();
+    await page.locator("[data-testid='schedule-next']").click();
     const thursday = await page.locator("th.fc-col-header-cell").nth(3).getAttribute("data-date");
     expect(thursday).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     await selectRange(page, thursday!, "10:00:00", "11:30:00");
@@ -140,7 +142,7 @@ describe("the Schedule seen from a browser in another time zone", () => {
     await page.goto(`${server.url}/schedule`);
     expect(await page.locator('[data-testid="schedule-zone"]').textContent()).toContain("America/Halifax");
     await page.selectOption('[data-testid="filter-instrument"]', String(chosen!.id));
-    for (let n = 0; n < 3; n += 1) await page.locator(".fc-next-button").click();
+    for (let n = 0; n < 3; n += 1) await page.locator("[data-testid='schedule-next']").click();
     const tuesday = await page.locator("th.fc-col-header-cell").nth(1).getAttribute("data-date");
     expect(tuesday).toBe(weekStart.plus({ days: 1 }).toISODate());
 

@@ -18,7 +18,11 @@ export const sessionRoutes = [
     description: "A signed double-submit cookie: the answer's token and the httpOnly cookie set with it belong together. Stores nothing on the server; the same token keeps working across sign-in, and sign-out drops it.",
     access: "public",
     output: csrfTokenDto,
-    handler: ({ ctx, req, res }) => ({ token: ctx.signIn.csrfToken(req, res) }),
+    handler: ({ ctx, req, res }) => {
+      // A token belongs with the cookie set beside it: no cache may hand out a copy of an old one.
+      res.set("Cache-Control", "no-store");
+      return { token: ctx.signIn.csrfToken(req, res) };
+    },
   }),
   route({
     method: "post",

@@ -49,6 +49,8 @@ export function ScanTokenRoute() {
   if (scan.isError) return <ScanProblem error={scan.error} />;
   return (
     <div className="flex flex-col gap-3">
+      <title>Scanned label · Phasebook</title>
+      <h1 className="sr-only">Scanned label</h1>
       {(location.state as { reissued?: boolean } | null)?.reissued && (
         <Alert tone="ok" className="mx-auto w-full max-w-md">
           A new label was issued; the old one no longer opens anything. Print the new one and stick it over the old.

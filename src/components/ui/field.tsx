@@ -6,8 +6,9 @@
 import type { ReactNode } from "react";
 import { cn } from "@/lib/cn";
 
+/** The ids of what is shown under a control: the error in place of the hint once there is one. */
 export function describedBy(id: string, hint?: ReactNode, error?: string): string | undefined {
-  const ids = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean);
+  const ids = [hint && !error ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean);
   return ids.length ? ids.join(" ") : undefined;
 }
 

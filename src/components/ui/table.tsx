@@ -8,8 +8,9 @@ import { cn } from "@/lib/cn";
 import { Button } from "./button";
 
 export function Table({ className, children, caption }: { className?: string; children: ReactNode; caption?: ReactNode }) {
+  // The scroll wrapper takes the focus, so a keyboard can scroll a table wider than a phone (WCAG 2.1.1).
   return (
-    <div className={cn("overflow-x-auto rounded-lg border border-grey-200 bg-white shadow-xs", className)}>
+    <div tabIndex={0} className={cn("overflow-x-auto rounded-lg border border-grey-200 bg-white shadow-xs", className)}>
       <table className="min-w-full border-collapse text-left text-sm">
         {caption && <caption className="sr-only">{caption}</caption>}
         {children}

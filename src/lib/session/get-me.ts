@@ -1,13 +1,14 @@
 /** GET /api/auth/me: who is signed in. A 401 is an answer here ("nobody"), not an error. */
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import { sessionDto, type UserDto } from "@shared/schemas/auth";
-import { api, isApiError, parseResponse } from "@/lib/api-client";
+import type { UserDto } from "@shared/schemas/auth";
+import { api, isApiError } from "@/lib/api-client";
+import { sessionUser } from "@/lib/boot-answers";
 import { authKeys } from "./keys";
 
 export async function getMe(signal?: AbortSignal): Promise<UserDto | null> {
   try {
     const data = await api.get<unknown>("/auth/me", { signal });
-    return parseResponse(sessionDto, data, "GET /api/auth/me").user;
+    return sessionUser(data, "GET /api/auth/me");
   } catch (error) {
     if (isApiError(error, 401)) return null;
     throw error;

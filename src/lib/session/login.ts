@@ -1,12 +1,13 @@
 /** POST /api/auth/login. Sign-in replaces the session, so the CSRF token is fetched anew afterwards. */
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { sessionDto, type LoginInput, type UserDto } from "@shared/schemas/auth";
-import { api, parseResponse, refreshCsrfToken } from "@/lib/api-client";
+import type { LoginInput, UserDto } from "@shared/schemas/auth";
+import { api, refreshCsrfToken } from "@/lib/api-client";
+import { sessionUser } from "@/lib/boot-answers";
 import { authKeys } from "./keys";
 
 export async function login(input: LoginInput): Promise<UserDto> {
   const data = await api.post<unknown>("/auth/login", input);
-  return parseResponse(sessionDto, data, "POST /api/auth/login").user;
+  return sessionUser(data, "POST /api/auth/login");
 }
 
 export function useLogin() {

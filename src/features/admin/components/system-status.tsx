@@ -23,10 +23,12 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
-function StatusCard({ title, tone, summary, testId, children }: { title: string; tone: Tone; summary: string; testId: string; children: ReactNode }) {
+/** A status card: its rows as a definition list, and a note under the list (a <dl> holds only its rows). */
+function StatusCard({ title, tone, summary, testId, note, children }: { title: string; tone: Tone; summary: string; testId: string; note?: ReactNode; children: ReactNode }) {
   return (
     <Card title={title} actions={<Badge tone={tone}>{summary}</Badge>}>
       <dl data-testid={testId}>{children}</dl>
+      {note}
     </Card>
   );
 }
@@ -40,18 +42,25 @@ function MailCard({ mail }: { mail: SystemStatus["mail"] }) {
   const tone: Tone = mail.via === "none" ? "warning" : mail.failed > 0 ? "danger" : "ok";
   const via = { smtp: "the mail server in SMTP_URL", fake: "the local fake mailbox (development; nothing reaches a real inbox)", none: "nothing: SMTP_URL is not set" }[mail.via];
   return (
-    <StatusCard title="Mail" tone={tone} summary={mail.via === "none" ? "Not configured" : mail.failed > 0 ? "Failures" : "Sending"} testId="status-mail">
+    <StatusCard
+      title="Mail"
+      tone={tone}
+      summary={mail.via === "none" ? "Not configured" : mail.failed > 0 ? "Failures" : "Sending"}
+      testId="status-mail"
+      note={
+        mail.via === "none" ? (
+          <p className="mt-2 text-sm text-grey-700">
+            Mail waits in the outbox and nothing is lost: set <code>SMTP_URL</code> and restart, and the waiting messages go out.
+          </p>
+        ) : undefined
+      }
+    >
       <Row label="Sent through">{via}</Row>
       <Row label="Waiting">
         {mail.pending} in the outbox
         {mail.oldestPendingAt && <span className="text-grey-600"> (oldest from {formatDateTime(mail.oldestPendingAt, zone)})</span>}
       </Row>
       <Row label="Given up">{mail.failed} after every retry</Row>
-      {mail.via === "none" && (
-        <p className="mt-2 text-sm text-grey-700">
-          Mail waits in the outbox and nothing is lost: set <code>SMTP_URL</code> and restart, and the waiting messages go out.
-        </p>
-      )}
     </StatusCard>
   );
 }
@@ -60,14 +69,17 @@ function PaymentsCard({ payments }: { payments: SystemStatus["payments"] }) {
   const tone: Tone = payments.via === "none" ? "warning" : "ok";
   const via = { service: "the payment service (STRIPE_SECRET_KEY)", test: "a test endpoint (the local fake; no card is charged)", none: "nothing: STRIPE_SECRET_KEY is not set" }[payments.via];
   return (
-    <StatusCard title="Card payments" tone={tone} summary={payments.via === "none" ? "Not configured" : "Connected"} testId="status-payments">
+    <StatusCard title="Card payments" tone={tone} summary={payments.via === "none" ? "Not configured" : "Connected"} testId="status-payments"
+      note={
+        payments.via === "none" ? (
+          <p className="mt-2 text-sm text-grey-700">
+            Statements for external customers are kept and their invoices wait; set <code>STRIPE_SECRET_KEY</code> and restart to send them.
+          </p>
+        ) : undefined
+      }
+    >
       <Row label="Invoices through">{via}</Row>
       <Row label="Waiting">{payments.invoicesWaiting} external invoice(s) not yet with the payment service</Row>
-      {payments.via === "none" && (
-        <p className="mt-2 text-sm text-grey-700">
-          Statements for external customers are kept and their invoices wait; set <code>STRIPE_SECRET_KEY</code> and restart to send them.
-        </p>
-      )}
     </StatusCard>
   );
 }
@@ -78,7 +90,16 @@ function BackupCard({ backup }: { backup: SystemStatus["backup"] }) {
   const tone: Tone = !backup.scheduled ? "warning" : last && !last.ok ? "danger" : last ? "ok" : "warning";
   const summary = !backup.scheduled ? "Not scheduled" : !last ? "None yet" : last.ok ? "Last one good" : "Last one failed";
   return (
-    <StatusCard title="Nightly backup" tone={tone} summary={summary} testId="status-backup">
+    <StatusCard title="Nightly backup" tone={tone} summary={summary} testId="status-backup"
+      note={
+        !backup.scheduled ? (
+          <p className="mt-2 text-sm text-grey-700">
+            Nightly backups run in production when <code>BACKUP_DIR</code> is set. <code>npm run backup -- DIR</code> takes one at any time; the README says how to
+            restore.
+          </p>
+        ) : undefined
+      }
+    >
       <Row label="Folder">{backup.dir ?? "not set (BACKUP_DIR)"}</Row>
       <Row label="Kept">{backup.keepDays} days</Row>
       <Row label="Last backup">
@@ -90,12 +111,6 @@ function BackupCard({ backup }: { backup: SystemStatus["backup"] }) {
           "none recorded"
         )}
       </Row>
-      {!backup.scheduled && (
-        <p className="mt-2 text-sm text-grey-700">
-          Nightly backups run in production when <code>BACKUP_DIR</code> is set. <code>npm run backup -- DIR</code> takes one at any time; the README says how to
-          restore.
-        </p>
-      )}
     </StatusCard>
   );
 }

@@ -1,9 +1,8 @@
 /** The sign-in form: shared loginInput rules as you type, the server's verdict in words. */
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
+import { useForm, type Resolver } from "react-hook-form";
 import { Link } from "react-router-dom";
-import { loginInput, type UserDto } from "@shared/schemas/auth";
+import type { LoginInput, UserDto } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
 import { isApiError } from "@/lib/api-client";
 import { useLogin } from "@/lib/auth";
@@ -11,6 +10,15 @@ import { applyServerFieldErrors, describeError, tooManyRequests } from "@/lib/fo
 import { Input } from "@/components/ui/input";
 import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
+
+/**
+ * The shared loginInput rules, fetched with zod on the form's first check (a field left, or
+ * the submit) rather than with the page: the sign-in page then appears without them.
+ */
+const loginRules: Resolver<LoginInput> = async (values, context, options) => {
+  const [{ zodResolver }, { loginInput }] = await Promise.all([import("@hookform/resolvers/zod"), import("@shared/schemas/auth")]);
+  return zodResolver(loginInput)(values, context, options);
+};
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: UserDto) => void }) {
   const login = useLogin();
@@ -22,7 +30,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: UserDto) => void
     setFocus,
     formState: { errors },
   } = useForm({
-    resolver: zodResolver(loginInput),
+    resolver: loginRules,
     mode: "onTouched",
     defaultValues: { email: "", password: "" },
   });

@@ -3,7 +3,7 @@
  * do), the manager's PATCH, fault reports from anyone (POST …/faults) and the manager's closing
  * of one (POST …/faults/:faultId/close).
  */
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { faultReportDto, instrumentDetailDto, instrumentDto, type InstrumentPatch } from "@shared/schemas/instruments";
 import { api, parseResponse } from "@/lib/api-client";
@@ -13,11 +13,13 @@ const detail = z.object({ instrument: instrumentDetailDto });
 const one = z.object({ instrument: instrumentDto });
 const oneFault = z.object({ fault: faultReportDto });
 
-export const useInstrument = (id: number) =>
-  useQuery({
+export const instrumentQueryOptions = (id: number) =>
+  queryOptions({
     queryKey: instrumentKeys.detail(id),
     queryFn: async ({ signal }) => parseResponse(detail, await api.get<unknown>(`/instruments/${id}`, { signal }), "GET /api/instruments/:id").instrument,
   });
+
+export const useInstrument = (id: number) => useQuery(instrumentQueryOptions(id));
 
 export function useUpdateInstrument(id: number) {
   const qc = useQueryClient();

@@ -9,7 +9,8 @@ import { safetyKeys } from "./keys";
 export async function getLocations(signal?: AbortSignal) {
   return parseResponse(z.object({ items: z.array(locationDto), total: z.number() }), await api.get<unknown>("/locations", { signal }), "GET /api/locations").items;
 }
-export const useLocationList = () => useQuery(queryOptions({ queryKey: safetyKeys.locations(), queryFn: ({ signal }) => getLocations(signal) }));
+export const locationListQueryOptions = () => queryOptions({ queryKey: safetyKeys.locations(), queryFn: ({ signal }) => getLocations(signal) });
+export const useLocationList = () => useQuery(locationListQueryOptions());
 
 function useLocationMutation<V>(run: (v: V) => Promise<unknown>) {
   const queryClient = useQueryClient();

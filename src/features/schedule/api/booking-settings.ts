@@ -2,16 +2,18 @@
  * The facility's booking settings (late-cancellation window, no-show grace, check-in opening):
  * GET /api/bookings/policy (everyone) and PUT (manager).
  */
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { bookingSettingsAnswer, type BookingSettings } from "@shared/schemas/bookings";
 import { api, parseResponse } from "@/lib/api-client";
 import { bookingKeys } from "./keys";
 
-export const useBookingSettings = () =>
-  useQuery({
+export const bookingSettingsQueryOptions = () =>
+  queryOptions({
     queryKey: bookingKeys.settings(),
     queryFn: async ({ signal }) => parseResponse(bookingSettingsAnswer, await api.get<unknown>("/bookings/policy", { signal }), "GET /api/bookings/policy").policy,
   });
+
+export const useBookingSettings = () => useQuery(bookingSettingsQueryOptions());
 
 export function useSaveBookingSettings() {
   const qc = useQueryClient();

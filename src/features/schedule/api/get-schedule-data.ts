@@ -1,5 +1,5 @@
 /** The Schedule's reference data: accounts the caller may charge (GET /api/accounts) and setups (GET /api/setups). */
-import { useQuery } from "@tanstack/react-query";
+import { queryOptions, useQuery } from "@tanstack/react-query";
 import { z } from "zod";
 import { setupDto } from "@shared/schemas/setups";
 import { api, parseResponse } from "@/lib/api-client";
@@ -16,16 +16,20 @@ export type AccountOption = z.infer<typeof accountDto>;
 const accountPage = z.object({ items: z.array(accountDto), total: z.number() });
 const setupPage = z.object({ items: z.array(setupDto), total: z.number() });
 
-export const useAccounts = () =>
-  useQuery({
+export const accountOptionsQueryOptions = () =>
+  queryOptions({
     queryKey: scheduleKeys.accounts(),
     queryFn: async ({ signal }) => parseResponse(accountPage, await api.get<unknown>("/accounts", { signal }), "GET /api/accounts").items,
     staleTime: 5 * 60_000,
   });
 
-export const useSetups = () =>
-  useQuery({
+export const useAccounts = () => useQuery(accountOptionsQueryOptions());
+
+export const setupsQueryOptions = () =>
+  queryOptions({
     queryKey: scheduleKeys.setups(),
     queryFn: async ({ signal }) => parseResponse(setupPage, await api.get<unknown>("/setups", { signal }), "GET /api/setups").items,
     staleTime: 5 * 60_000,
   });
+
+export const useSetups = () => useQuery(setupsQueryOptions());

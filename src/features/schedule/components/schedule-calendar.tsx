@@ -5,31 +5,42 @@
  * (the server re-checks everything and a refusal puts the block back). Every block says its state in words. The grid runs on the facility's clock (the
  * luxon plugin gives FullCalendar named zones), so someone abroad sees and selects the same local
  * hours the instruments are bookable; the route passes the zone and the instruments in.
+ *
+ * Without a mouse: "Book a slot" opens the same booking form with the next half hour filled in,
+ * and every block is a button (Enter or Space) named by its state, instruments, time and person,
+ * which opens its details. The toolbar and the blocks are Phasebook's own (schedule-toolbar.tsx,
+ * schedule-calendar.css), not the library's defaults.
  */
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
+import { Link } from "react-router-dom";
 import FullCalendar from "@fullcalendar/react";
 import timeGridPlugin from "@fullcalendar/timegrid";
 import dayGridPlugin from "@fullcalendar/daygrid";
 import interactionPlugin from "@fullcalendar/interaction";
 import luxonPlugin from "@fullcalendar/luxon3";
-import type { DateSelectArg, EventChangeArg, EventInput } from "@fullcalendar/core";
+import type { DateSelectArg, DatesSetArg, EventChangeArg, EventClickArg, EventContentArg, EventInput, EventMountArg } from "@fullcalendar/core";
 import { BOOKING_STATUS_LABELS, type BookingListItem } from "@shared/schemas/bookings";
 import { INSTRUMENT_KIND_LABELS, INSTRUMENT_KINDS, type InstrumentDto, type InstrumentKind } from "@shared/schemas/instruments";
 import { zoneShortName } from "@shared/domain/facility-time";
+import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
+import { formatSpan } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/input";
 import { Dialog } from "@/components/ui/dialog";
 import { useBookings } from "../api/get-bookings";
 import { useMoveBooking } from "../api/booking-actions";
 import { useSetups } from "../api/get-schedule-data";
+import { scheduleQuery, windowOfView, type ScheduleWindow } from "../api/schedule-window";
 import { BookingForm } from "./booking-form";
-import { BLOCK_COLOURS, StatusLegend } from "./booking-status";
+import { StatusBadge, StatusLegend } from "./booking-status";
+import { ScheduleToolbar, type ScheduleView } from "./schedule-toolbar";
+import "./schedule-calendar.css";
 
-const SHOWN = "requested,confirmed,in_progress,completed,no_show";
+const HALF_HOUR = 30 * 60_000;
 
 function eventFor(b: BookingListItem, names: Map<number, string>): EventInput {
-  const colours = BLOCK_COLOURS[b.busy ? "busy" : b.status];
   const what = b.instrumentIds.map((id) => names.get(id) ?? `#${id}`).join(" + ");
   const state = BOOKING_STATUS_LABELS[b.status];
   // Draggable only where the server's booking policy lets this person move it.
@@ -39,19 +50,79 @@ function eventFor(b: BookingListItem, names: Map<number, string>): EventInput {
     start: b.start,
     end: b.end,
     title: b.busy ? `Busy · ${what}` : `${state} · ${what}${b.mine ? "" : ` · ${b.userName}`}`,
-    backgroundColor: colours.bg,
-    borderColor: colours.border,
-    textColor: colours.text,
-    classNames: [`booking-${b.busy ? "busy" : b.status}`, ...(b.status === "requested" ? ["booking-requested"] : [])],
+    classNames: [`booking-${b.busy ? "busy" : b.status}`],
     editable,
     extendedProps: { booking: b },
   };
 }
 
+/**
+ * A block's content: its time and title as the library shows them, then (for screen readers)
+ * the full date and time, so its name says the state, instruments, person and when.
+ */
+function BlockContent({ arg, zone }: { arg: EventContentArg; zone: string }) {
+  // The range being selected is drawn as a block too (the "mirror"), with no booking behind it.
+  const b = arg.event.extendedProps.booking as BookingListItem | undefined;
+  return (
+    <div className="fc-event-main-frame">
+      {arg.timeText && <div className="fc-event-time">{arg.timeText}</div>}
+      <div className="fc-event-title-container">
+        <div className="fc-event-title fc-sticky">{arg.event.title}</div>
+      </div>
+      {b && <span className="sr-only">, {formatSpan(b.start, b.end, zone)}</span>}
+    </div>
+  );
+}
+
+/** The next half hour and an hour on: what "Book a slot" proposes; the form lets the person change both. */
+function nextSlot(now = Date.now()): { start: Date; end: Date } {
+  const start = Math.ceil(now / HALF_HOUR) * HALF_HOUR;
+  return { start: new Date(start), end: new Date(start + 2 * HALF_HOUR) };
+}
+
+function BookingDetails({ booking, names, zone }: { booking: BookingListItem; names: Map<number, string>; zone: string }) {
+  const what = booking.instrumentIds.map((id) => names.get(id) ?? `#${id}`).join(" + ");
+  return (
+    <dl className="grid grid-cols-[7rem_1fr] gap-x-3 gap-y-1.5 text-sm" data-testid="booking-details">
+      <dt className="text-grey-600">State</dt>
+      <dd>
+        <StatusBadge status={booking.status} />
+      </dd>
+      <dt className="text-grey-600">Instruments</dt>
+      <dd>{what}</dd>
+      <dt className="text-grey-600">Time</dt>
+      <dd>{formatSpan(booking.start, booking.end, zone)}</dd>
+      {booking.busy ? (
+        <>
+          <dt className="text-grey-600">Booked by</dt>
+          <dd>Someone else (the Schedule shows only that the time is taken)</dd>
+        </>
+      ) : (
+        <>
+          <dt className="text-grey-600">Booked by</dt>
+          <dd>{booking.userName}</dd>
+          <dt className="text-grey-600">Account</dt>
+          <dd>{booking.accountCode}</dd>
+          {booking.purpose && (
+            <>
+              <dt className="text-grey-600">Purpose</dt>
+              <dd>{booking.purpose}</dd>
+            </>
+          )}
+        </>
+      )}
+    </dl>
+  );
+}
+
 export function ScheduleCalendar({ instruments: all, zone }: { instruments: InstrumentDto[]; zone: string }) {
   const setups = useSetups();
   const move = useMoveBooking();
-  const [range, setRange] = useState<{ from: string; to: string } | null>(null);
+  const calendar = useRef<FullCalendar>(null);
+  const [range, setRange] = useState<ScheduleWindow | null>(null);
+  const [title, setTitle] = useState("");
+  const [view, setView] = useState<ScheduleView>("timeGridWeek");
+  const [opened, setOpened] = useState<BookingListItem | null>(null);
   const [instrumentId, setInstrumentId] = useState("");
   const [kind, setKind] = useState<"" | InstrumentKind>("");
   const [setupId, setSetupId] = useState("");
@@ -68,7 +139,28 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
     return new Set(list.map((i) => i.id));
   }, [all, kind, setup, instrumentId]);
 
-  const bookings = useBookings({ from: range?.from, to: range?.to, instrumentId: instrumentId ? Number(instrumentId) : undefined, status: SHOWN }, range !== null);
+  const bookings = useBookings(
+    scheduleQuery(range ?? { from: "", to: "" }, instrumentId ? Number(instrumentId) : undefined),
+    range !== null,
+  );
+  const api = () => calendar.current?.getApi();
+
+  const onDates = (arg: DatesSetArg) => {
+    setRange(windowOfView(arg.view));
+    setTitle(arg.view.title);
+    setView(arg.view.type as ScheduleView);
+  };
+
+  // The library draws a block as an <a> without href; as a button (Enter or Space opens it) it is reachable and named by its content.
+  const onMount = (arg: EventMountArg) => {
+    if (arg.event.extendedProps.booking) arg.el.setAttribute("role", "button");
+  };
+
+  const onClick = (arg: EventClickArg) => {
+    arg.jsEvent.preventDefault();
+    const booking = arg.event.extendedProps.booking as BookingListItem | undefined;
+    if (booking) setOpened(booking);
+  };
   const events = useMemo(
     () => (bookings.data?.items ?? []).filter((b) => b.instrumentIds.some((id) => visibleIds.has(id))).map((b) => eventFor(b, names)),
     [bookings.data, visibleIds, names],
@@ -125,16 +217,36 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
       <p className="text-xs text-grey-600" data-testid="schedule-zone">
         Times are the facility's local time ({zone.replace(/_/g, " ")}, {zoneShortName(Date.now(), zone)}), whatever your own device's time zone.
       </p>
-      <StatusLegend />
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <StatusLegend />
+        <Button
+          variant="primary"
+          data-testid="book-slot"
+          onClick={() => {
+            setNotice(null);
+            setSelection(nextSlot());
+          }}
+        >
+          Book a slot
+        </Button>
+      </div>
       {notice && <Alert tone={notice.tone}>{notice.text}</Alert>}
       {bookings.isError && <Alert tone="danger">{describeError(bookings.error)}</Alert>}
-      <div className="rounded-lg border border-grey-200 bg-white p-2 text-sm" data-testid="schedule-calendar" aria-busy={bookings.isFetching || undefined}>
+      <div className="pb-calendar flex flex-col gap-2 rounded-lg border border-grey-200 bg-white p-2 text-sm" data-testid="schedule-calendar" aria-busy={bookings.isFetching || undefined}>
+        <ScheduleToolbar
+          title={title}
+          view={view}
+          onPrev={() => api()?.prev()}
+          onToday={() => api()?.today()}
+          onNext={() => api()?.next()}
+          onView={(v) => api()?.changeView(v)}
+        />
         <FullCalendar
+          ref={calendar}
           plugins={[timeGridPlugin, dayGridPlugin, interactionPlugin, luxonPlugin]}
           timeZone={zone}
           initialView="timeGridWeek"
-          headerToolbar={{ left: "prev,next today", center: "title", right: "timeGridDay,timeGridWeek,dayGridMonth" }}
-          buttonText={{ today: "Today", day: "Day", week: "Week", month: "Month" }}
+          headerToolbar={false}
           firstDay={1}
           allDaySlot={false}
           slotMinTime="06:00:00"
@@ -146,13 +258,33 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
           selectable
           selectMirror
           events={events}
-          datesSet={(arg) => setRange({ from: arg.start.toISOString(), to: arg.end.toISOString() })}
+          datesSet={onDates}
+          eventDidMount={onMount}
+          eventContent={(arg) => <BlockContent arg={arg} zone={zone} />}
+          eventClick={onClick}
           select={onSelect}
           eventChange={onChange}
           eventTimeFormat={{ hour: "2-digit", minute: "2-digit", hour12: false }}
           slotLabelFormat={{ hour: "2-digit", minute: "2-digit", hour12: false }}
         />
       </div>
+      <Dialog open={opened !== null} onClose={() => setOpened(null)} title="Booking">
+        {opened && (
+          <>
+            <BookingDetails booking={opened} names={names} zone={zone} />
+            <div className="flex justify-end gap-2">
+              {opened.mine && (
+                <Link to={paths.myBookings.getHref()} className="self-center text-sm">
+                  Check in, out or cancel in My bookings
+                </Link>
+              )}
+              <Button onClick={() => setOpened(null)} autoFocus>
+                Close
+              </Button>
+            </div>
+          </>
+        )}
+      </Dialog>
       <Dialog open={selection !== null} onClose={() => setSelection(null)} title="Book this slot" className="w-[min(40rem,calc(100vw-2rem))]">
         {selection && (
           <BookingForm

@@ -39,15 +39,15 @@ function Chart({ rows }: { rows: UtilisationRow[] }) {
     <svg viewBox={`0 0 ${width} ${per.length * rowH + 24}`} className="w-full max-w-3xl" role="img" aria-label="Booked and used share of bookable hours per instrument">
       {per.map((p, i) => (
         <g key={p.name} transform={`translate(0, ${i * rowH})`}>
-          <text x={0} y={20} fontSize={12} fill="#2c3239">
+          <text x={0} y={20} fontSize={12} className="fill-grey-800">
             {p.name.length > 34 ? `${p.name.slice(0, 33)}…` : p.name}
           </text>
-          <rect x={label} y={4} height={12} width={scale(p.booked)} fill="#2b6c99" />
-          <text x={label + scale(p.booked) + 4} y={14} fontSize={10} fill="#2c3239">
+          <rect x={label} y={4} height={12} width={scale(p.booked)} className="fill-aqueous-600" />
+          <text x={label + scale(p.booked) + 4} y={14} fontSize={10} className="fill-grey-800">
             booked {p.booked.toFixed(0)} %
           </text>
-          <rect x={label} y={18} height={12} width={scale(p.used)} fill="#b5541c" />
-          <text x={label + scale(p.used) + 4} y={28} fontSize={10} fill="#2c3239">
+          <rect x={label} y={18} height={12} width={scale(p.used)} className="fill-organic-600" />
+          <text x={label + scale(p.used) + 4} y={28} fontSize={10} className="fill-grey-800">
             used {p.used.toFixed(0)} %
           </text>
         </g>

@@ -17,4 +17,5 @@ export async function getSheets(chemicalId: number, signal?: AbortSignal) {
   const data = await api.get<unknown>(`/chemicals/${chemicalId}/sds`, { signal });
   return parseResponse(z.object({ items: z.array(sdsDto), total: z.number() }), data, "GET /api/chemicals/:id/sds").items;
 }
-export const useSheets = (chemicalId: number) => useQuery({ queryKey: stockKeys.sds(chemicalId), queryFn: ({ signal }) => getSheets(chemicalId, signal) });
+export const sheetsQueryOptions = (chemicalId: number) => queryOptions({ queryKey: stockKeys.sds(chemicalId), queryFn: ({ signal }) => getSheets(chemicalId, signal) });
+export const useSheets = (chemicalId: number) => useQuery(sheetsQueryOptions(chemicalId));

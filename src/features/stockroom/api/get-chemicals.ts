@@ -12,6 +12,10 @@ export async function getChemicals(q: ChemicalFilters, signal?: AbortSignal) {
   return parseResponse(chemicalPage, data, "GET /api/chemicals");
 }
 
+/** The chemicals table's page size, and its first page as the table and the route loader ask for it. */
+export const CHEMICAL_PAGE = 50;
+export const firstChemicalsPage: ChemicalFilters = { sort: "name", dir: "asc", limit: CHEMICAL_PAGE, offset: 0 };
+
 export const chemicalsQueryOptions = (q: ChemicalFilters) =>
   queryOptions({ queryKey: stockKeys.chemicalList(q), queryFn: ({ signal }) => getChemicals(q, signal), placeholderData: keepPreviousData });
 

@@ -10,9 +10,8 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Input } from "@/components/ui/input";
 import { HeaderRows, Pager, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
-import { useChemicals } from "../api/get-chemicals";
+import { CHEMICAL_PAGE as PAGE, useChemicals } from "../api/get-chemicals";
 
-const PAGE = 50;
 const col = createColumnHelper<ChemicalDto>();
 const SORTABLE = new Set<string>(CHEMICAL_SORTS);
 

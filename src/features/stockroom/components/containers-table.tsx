@@ -16,11 +16,10 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/input";
 import { HeaderRows, Pager, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
-import { useContainers } from "../api/get-containers";
+import { CONTAINER_PAGE as PAGE, IN_STOCK, containerTableQuery, useContainers } from "../api/get-containers";
 import { useLocations } from "../api/get-locations";
 import { StatusBadge, formatQuantity } from "./stock-format";
 
-const PAGE = 50;
 const col = createColumnHelper<ContainerDto>();
 const SORTABLE = new Set<string>(CONTAINER_SORTS);
 
@@ -52,13 +51,7 @@ const columns = [
   col.accessor("lot", { header: "Lot", cell: (c) => (c.row.original.kind === "solution" ? "–" : <span className="text-xs">{c.getValue()}</span>) }),
 ];
 
-const IN_STOCK = "sealed,in_use,on_hold";
-
-/** A status from a link, if it is one the Status filter offers; otherwise the default. */
-export function statusFromLink(value: string | null): string | undefined {
-  if (value === null) return undefined;
-  return value === "" || value === IN_STOCK || (CONTAINER_STATUSES as readonly string[]).includes(value) ? value : undefined;
-}
+export { statusFromLink } from "../api/get-containers";
 
 interface ContainersTableProps {
   chemicalId?: number;
@@ -95,17 +88,16 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
 
   const sort = sorting[0];
   const query = useMemo(
-    () => ({
-      q: q || undefined,
-      status: status || undefined,
-      locationId: locationId ? Number(locationId) : undefined,
-      within: locationId ? ("true" as const) : undefined,
-      chemicalId,
-      sort: (sort && SORTABLE.has(sort.id) ? sort.id : "chemical") as (typeof CONTAINER_SORTS)[number],
-      dir: sort?.desc ? ("desc" as const) : ("asc" as const),
-      limit: PAGE,
-      offset: page * PAGE,
-    }),
+    () =>
+      containerTableQuery({
+        q,
+        status,
+        locationId: locationId ? Number(locationId) : undefined,
+        chemicalId,
+        sort: (sort && SORTABLE.has(sort.id) ? sort.id : "chemical") as (typeof CONTAINER_SORTS)[number],
+        desc: sort?.desc,
+        page,
+      }),
     [q, status, locationId, chemicalId, sort, page],
   );
   const containers = useContainers(query);

@@ -2,7 +2,7 @@
  * Training records and requests: GET/POST /api/training, POST /api/training/:id/revoke,
  * GET /api/training/people, GET/POST /api/training/requests, POST /api/training/requests/:id/close.
  */
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { pageOf } from "@shared/schemas/common";
 import { trainablePersonDto, trainingDto, trainingRequestDto, type GrantTrainingInput, type TrainingListQuery } from "@shared/schemas/training";
 import { api, parseResponse } from "@/lib/api-client";
@@ -18,24 +18,29 @@ const page = pageOf(trainingDto);
 const requestPage = pageOf(trainingRequestDto);
 const peoplePage = pageOf(trainablePersonDto);
 
-export const useTrainingRecords = (q: Partial<TrainingListQuery>) =>
-  useQuery({
+export const trainingRecordsQueryOptions = (q: Partial<TrainingListQuery>) =>
+  queryOptions({
     queryKey: trainingKeys.list(q),
     queryFn: async ({ signal }) => parseResponse(page, await api.get<unknown>("/training", { query: q, signal }), "GET /api/training"),
   });
 
-export const useTrainingRequests = (status?: "open" | "granted" | "dismissed") =>
-  useQuery({
+export const useTrainingRecords = (q: Partial<TrainingListQuery>) => useQuery(trainingRecordsQueryOptions(q));
+
+export const trainingRequestsQueryOptions = (status?: "open" | "granted" | "dismissed") =>
+  queryOptions({
     queryKey: trainingKeys.requests(status),
     queryFn: async ({ signal }) => parseResponse(requestPage, await api.get<unknown>("/training/requests", { query: { status }, signal }), "GET /api/training/requests").items,
   });
 
-export const useTrainablePeople = (enabled: boolean) =>
-  useQuery({
+export const useTrainingRequests = (status?: "open" | "granted" | "dismissed") => useQuery(trainingRequestsQueryOptions(status));
+
+export const trainablePeopleQueryOptions = () =>
+  queryOptions({
     queryKey: trainingKeys.people(),
     queryFn: async ({ signal }) => parseResponse(peoplePage, await api.get<unknown>("/training/people", { signal }), "GET /api/training/people"),
-    enabled,
   });
+
+export const useTrainablePeople = (enabled: boolean) => useQuery({ ...trainablePeopleQueryOptions(), enabled });
 
 function useInvalidateTraining() {
   const qc = useQueryClient();

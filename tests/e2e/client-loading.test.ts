@@ -1,0 +1,112 @@
+/**
+ * How the client arrives in a real browser: its scripts come compressed and cached for a year;
+ * a screen's queries start while its code is still on the way (the route loaders), which the
+ * test proves by holding the screen's code back until its data has been asked for; and a link
+ * warms the next screen's code when the pointer rests on it or it gets the keyboard's focus.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page, Route } from "playwright-core";
+import { DEMO_PASSWORD, launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
+
+let server: RunningServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+const MANAGER = "manager@kestrelbay.example";
+
+async function newPage(): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+  return context.newPage();
+}
+
+/** A screen's own code: /assets/<name>-<8-character hash>.js (its loader lives in <name>-data-….js). */
+const chunkOf = (name: string) => new RegExp(`/assets/${name}-[A-Za-z0-9_-]{8}\\.js$`);
+
+describe("the client's delivery", () => {
+  it("loads the sign-in page's scripts brotli-compressed, cached for a year, and no zod", async () => {
+    const page = await newPage();
+    const scripts: { url: string; encoding?: string; cache?: string; length: number }[] = [];
+    page.on("response", (r) => {
+      if (r.request().resourceType() === "script") {
+        const h = r.headers();
+        scripts.push({ url: r.url(), encoding: h["content-encoding"], cache: h["cache-control"], length: Number(h["content-length"] ?? Infinity) });
+      }
+    });
+    await page.goto(`${server.url}/sign-in`, { waitUntil: "networkidle" });
+    expect(scripts.length).toBeGreaterThan(2);
+    expect(scripts.filter((s) => s.encoding === "br").length).toBeGreaterThan(2);
+    for (const s of scripts) {
+      expect(s.cache, s.url).toBe("public, max-age=31536000, immutable");
+      // Chunks under 1 kB are not worth compressing (the build's threshold); everything else comes as brotli.
+      if (s.encoding === undefined) expect(s.length, s.url).toBeLessThan(1024);
+      else expect(s.encoding, s.url).toBe("br");
+    }
+    // The form's rules (and zod with them) come with the first check, not with the page.
+    expect(scripts.filter((s) => /\/zod-/.test(s.url))).toEqual([]);
+    // Leaving the e-mail field empty is the first check: the rule's words appear beside it.
+    await page.locator('input[name="email"]').focus();
+    await page.locator('input[name="password"]').focus();
+    await expect.poll(() => page.getByText("Enter your e-mail address").count(), { timeout: 10_000 }).toBeGreaterThan(0);
+    expect(scripts.some((s) => /\/zod-/.test(s.url))).toBe(true);
+    await page.context().close();
+  });
+
+  for (const screen of [
+    { nav: "stockroom", chunk: "stockroom", api: /\/api\/containers\?/ },
+    { nav: "schedule", chunk: "schedule", api: /\/api\/bookings\?/ },
+    { nav: "safety", chunk: "safety", api: /\/api\/safety\/review/ },
+  ]) {
+    it(`asks for the ${screen.nav} screen's data while its code is still loading`, async () => {
+      const page = await newPage();
+      await signIn(page, server.url, MANAGER, DEMO_PASSWORD);
+      await page.locator('[data-testid="nav-home"]').waitFor();
+      await page.waitForLoadState("networkidle");
+
+      let release!: () => void;
+      const released = new Promise<void>((r) => (release = r));
+      let held = 0;
+      await page.route(chunkOf(screen.chunk), async (route: Route) => {
+        held += 1;
+        await released;
+        await route.continue();
+      });
+      const asked = page.waitForRequest((r) => screen.api.test(r.url()), { timeout: 20_000 });
+      // A click with no hover first, so prefetch-on-intent has not loaded the code already.
+      await page.locator(`[data-testid="nav-${screen.nav}"]`).dispatchEvent("click");
+      await expect.poll(() => held, { timeout: 20_000 }).toBeGreaterThan(0);
+      const request = await asked; // while the screen's code is held back
+      expect(request.url()).toMatch(screen.api);
+      release();
+      await page.waitForURL((u) => u.pathname === `/${screen.nav}`);
+      await page.locator("h1").first().waitFor();
+      await page.context().close();
+    });
+  }
+
+  it("warms a screen's code when the pointer rests on its link, and when the link gets the focus", async () => {
+    const page = await newPage();
+    await signIn(page, server.url, MANAGER, DEMO_PASSWORD);
+    await page.locator('[data-testid="nav-home"]').waitFor();
+    await page.waitForLoadState("networkidle");
+    const requested: string[] = [];
+    page.on("request", (r) => requested.push(r.url()));
+
+    await page.locator('[data-testid="nav-instruments"]').hover();
+    await expect.poll(() => requested.some((u) => chunkOf("instruments").test(u)), { timeout: 10_000 }).toBe(true);
+    expect(page.url()).toMatch(/\/$/);
+
+    await page.locator('[data-testid="nav-training"]').focus();
+    await expect.poll(() => requested.some((u) => chunkOf("training").test(u)), { timeout: 10_000 }).toBe(true);
+    // Code only: no data is fetched before the person goes there.
+    expect(requested.filter((u) => /\/api\/training/.test(u))).toEqual([]);
+    await page.context().close();
+  });
+});
