@@ -6,6 +6,8 @@ export type ContainerStatus = "sealed" | "in_use" | "on_hold" | "empty" | "dispo
 /** A bottle, vial, prepared solution or waste container of one chemical. */
 @Entity("containers")
 @Index(["chemicalId", "status"])
+// The Stockroom search counts one chemical's containers in a place and state from the index alone.
+@Index(["chemicalId", "locationId", "status"])
 export class Container {
   @PrimaryGeneratedColumn("increment") id: number;
   @Column("integer") chemicalId: number;

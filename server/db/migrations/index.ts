@@ -10,6 +10,7 @@ import { BookingInstrumentTimes1796183167192 } from "./1796183167192-booking-ins
 import { RecordOwnersAndFaults1796231102622 } from "./1796231102622-record-owners-and-faults";
 import { StorageLimitsByClass1796233973566 } from "./1796233973566-storage-limits-by-class";
 import { UsageExactCost1796235000000 } from "./1796235000000-usage-exact-cost";
+import { TextSearch1796239235279 } from "./1796239235279-text-search";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -22,4 +23,5 @@ export const migrations = [
   RecordOwnersAndFaults1796231102622,
   StorageLimitsByClass1796233973566,
   UsageExactCost1796235000000,
+  TextSearch1796239235279,
 ];

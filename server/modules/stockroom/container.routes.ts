@@ -7,7 +7,7 @@
 import express from "express";
 import { z } from "zod";
 import { BENCH_ROLES } from "@shared/schemas/auth";
-import { idParam, pageOf } from "@shared/schemas/common";
+import { boundedPageOf, idParam } from "@shared/schemas/common";
 import { containerDetailDto, containerDto, containerListQuery, disposeInput, holdInput, moveInput, receiveInput, usageInput, wasteAddInput } from "@shared/schemas/stock";
 import { route, WRITTEN } from "../../http/route-table";
 import { UnsupportedMedia } from "../../errors";
@@ -44,12 +44,15 @@ export const containerRoutes = [
     method: "get",
     path: "/containers",
     summary: "Search containers (text, chemical, place, state) one page at a time",
+    description:
+      "The text is plain text (never query syntax): part of a chemical's name, synonym, CAS number or formula, or of a lot or supplier; a label code or #number exactly. " +
+      "`total` is exact while `totalIsExact` is true; past 1,000 matches (or the end of the page asked for) counting stops and `total` is that bound: more than `total` match.",
     access: "signed_in",
     query: containerListQuery,
-    output: pageOf(containerDto),
+    output: boundedPageOf(containerDto),
     handler: async ({ ctx, actor, query }) => {
       const page = await listContainers(ctx.ds, query);
-      return { items: page.items.map((c) => presentContainer(c, actor)), total: page.total };
+      return { items: page.items.map((c) => presentContainer(c, actor)), total: page.total, totalIsExact: page.totalIsExact };
     },
   }),
   route({
