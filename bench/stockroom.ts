@@ -79,11 +79,20 @@ export async function seedStockroomBench(ds: DataSource, opts: { count?: number;
   });
 
   const locStart = Number(((await ds.query(`SELECT COALESCE(MAX(id), 0) AS m FROM locations`)) as { m: number }[])[0].m);
-  const locationRows: unknown[][] = [[null, "building", "Bench Building", "general", null, null, ""]];
-  for (let r = 0; r < 10; r++) locationRows.push([locStart + 1, "room", `Bench room ${r + 1}`, "general", 80, null, "Example only"]);
-  for (let r = 0; r < 10; r++) for (let c = 0; c < 4; c++) locationRows.push([locStart + 2 + r, "cabinet", `Cabinet ${r + 1}-${c + 1}`, "flammable_cabinet", 227.12, 454.25, "Example only"]);
-  await insertMany(ds, "locations", ["parentId", "level", "name", "type", "flammableLimitLitres", "combustibleLimitLitres", "limitNote"], locationRows);
+  const locationRows: unknown[][] = [[null, "building", "Bench Building", "general", ""]];
+  for (let r = 0; r < 10; r++) locationRows.push([locStart + 1, "room", `Bench room ${r + 1}`, "general", "Example only"]);
+  for (let r = 0; r < 10; r++) for (let c = 0; c < 4; c++) locationRows.push([locStart + 2 + r, "cabinet", `Cabinet ${r + 1}-${c + 1}`, "flammable_cabinet", "Example only"]);
+  await insertMany(ds, "locations", ["parentId", "level", "name", "type", "limitNote"], locationRows);
   const cabinetIds = Array.from({ length: 40 }, (_, k) => locStart + 12 + k);
+  // Storage limits by fire-code class (location_limits): 80 L per room, a cabinet's 227.12 L (60 US gal) of
+  // Class I–II and 454.25 L (120 US gal) of Class III liquids. Example figures only, as in the demo.
+  const limitRows: unknown[][] = [];
+  for (let r = 0; r < 10; r++) limitRows.push([locStart + 2 + r, '["IA","IB","IC","II"]', 80, 80, "L", 1, "Example only", now]);
+  for (const id of cabinetIds) {
+    limitRows.push([id, '["IA","IB","IC","II"]', 227.12, 60, "US gal", 1, "Example only", now]);
+    limitRows.push([id, '["IIIA","IIIB"]', 454.25, 120, "US gal", 1, "Example only", now]);
+  }
+  await insertMany(ds, "location_limits", ["locationId", "classes", "maxLitres", "enteredVolume", "enteredUnit", "includesCabinets", "note", "createdAt"], limitRows);
 
   const chemStart = Number(((await ds.query(`SELECT COALESCE(MAX(id), 0) AS m FROM chemicals`)) as { m: number }[])[0].m);
   const chemicalRows: unknown[][] = [];
