@@ -8,8 +8,9 @@ import type { MigrationInterface, QueryRunner } from "typeorm";
  * id, filled here from the rows already there and kept in step by three triggers per table
  * (insert, change of a searched column, delete). server/db/text-search.ts reads them.
  *
- * Also the indexes the bounded lists walk: chemicals and people by name, and containers by
- * (chemicalId, locationId, status) for counting one chemical's containers in a place and state.
+ * Also the indexes the bounded lists walk: chemicals and people by name, containers by quantity,
+ * and containers by (chemicalId, locationId, status) and (locationId, status) for counting one
+ * chemical's (one place's) containers in a place and state from the index alone.
  *
  * TypeORM knows neither the FTS tables nor the triggers: a later migration that rebuilds
  * chemicals, containers or users must create the triggers again (tests/api/schema.test.ts lists them).
@@ -42,6 +43,8 @@ export class TextSearch1796239235279 implements MigrationInterface {
     await queryRunner.query(`CREATE INDEX "IDX_aae3aad23d6b7c9d16bc6f1b00" ON "chemicals" ("name") `);
     await queryRunner.query(`CREATE INDEX "IDX_67da21984f4ba1f226b6d6b160" ON "containers" ("chemicalId", "locationId", "status") `);
     await queryRunner.query(`CREATE INDEX "IDX_51b8b26ac168fbe7d6f5653e6c" ON "users" ("name") `);
+    await queryRunner.query(`CREATE INDEX "IDX_7fe99073ebbc699873b3ae9f40" ON "containers" ("quantity") `);
+    await queryRunner.query(`CREATE INDEX "IDX_e6b479825e696f30db5fa103f8" ON "containers" ("locationId", "status") `);
     for (const ix of INDEXES) {
       const cols = ix.columns.map((c) => `"${c}"`).join(", ");
       await queryRunner.query(`CREATE VIRTUAL TABLE "${ix.fts}" USING fts5(${cols}, ${TOKENIZER})`);
@@ -69,6 +72,8 @@ export class TextSearch1796239235279 implements MigrationInterface {
       for (const t of ["delete", "update", "insert"]) await queryRunner.query(`DROP TRIGGER "${ix.fts}_${t}"`);
       await queryRunner.query(`DROP TABLE "${ix.fts}"`);
     }
+    await queryRunner.query(`DROP INDEX "IDX_e6b479825e696f30db5fa103f8"`);
+    await queryRunner.query(`DROP INDEX "IDX_7fe99073ebbc699873b3ae9f40"`);
     await queryRunner.query(`DROP INDEX "IDX_51b8b26ac168fbe7d6f5653e6c"`);
     await queryRunner.query(`DROP INDEX "IDX_67da21984f4ba1f226b6d6b160"`);
     await queryRunner.query(`DROP INDEX "IDX_aae3aad23d6b7c9d16bc6f1b00"`);

@@ -5,22 +5,24 @@
  * lot or supplier, hold the text (parts of words; ASCII letters in either case), or when the text
  * is its label code or its number (#123). Chemicals are found through `chemical_text`, containers'
  * own text through `container_text` (FTS5 trigram indexes, server/db/text-search.ts). A text in
- * the lot or supplier of more than OWN_TEXT_LIST_MAX containers (a supplier's name, "LOT"), or
- * shorter than three characters, is checked row by row instead: it matches broadly, so the
- * reads below stop early.
+ * the lot or supplier of more than ownTextListMax containers (a supplier's name, "LOT"), or
+ * shorter than three characters, is checked row by row instead.
  *
  * A page is read as a series of segments, each in an order an index gives: by chemical or
- * location, one segment per chemical (location) in name order, found through the name index
- * and counted through the (chemicalId, locationId, status) and (chemicalId, status) indexes; by
- * expiry, the dated containers then the undated ones; other sorts, one segment in their column's
- * index. Segments are counted only as far as the page and the bounded total need
- * (`totalIsExact: false` beyond the bound of text-search.ts), and rows are read only from the
- * segments the page falls in.
+ * location, one segment per chemical (location) in name order, walked through the name index;
+ * by expiry, the dated containers then the undated ones; other sorts, one segment in their
+ * column's index. Segments are counted only as far as the page and the bounded total need
+ * (`totalIsExact: false` beyond the bound of text-search.ts), mostly from the (chemicalId,
+ * locationId, status) and (locationId, status) indexes alone, and rows are read only from the
+ * segments the page falls in. There, a few matches (at most denseAbove) are found through the
+ * filters' indexes and sorted; many are read in the sort's own index, the filters then checked
+ * row by row (their columns written `+c.x`, which keeps SQLite from choosing their indexes), so
+ * the read stops after the page.
  */
 import type { DataSource } from "typeorm";
 import type { ContainerListQuery } from "@shared/schemas/stock";
 import { prepared } from "../../db/prepared";
-import { boundedTotal, countCap, likeAny, matchingRowids, pageTotal, TRIGRAM, type BoundedTotal, type TextIndex } from "../../db/text-search";
+import { boundedTotal, countCap, likeAny, matchingRowids, TRIGRAM, type BoundedTotal, type TextIndex } from "../../db/text-search";
 import type { ContainerRow } from "./stock.presenter";
 
 /** Chemicals' searchable text (synonyms one per line), kept by the TextSearch migration's triggers. */
@@ -28,10 +30,18 @@ export const CHEMICAL_TEXT: TextIndex = { table: "chemical_text", columns: ["nam
 /** Containers' own searchable text. */
 export const CONTAINER_TEXT: TextIndex = { table: "container_text", columns: ["lot", "supplier"] };
 
-/** Containers found by their own text beyond this many are checked row by row instead of listed. */
-const OWN_TEXT_LIST_MAX = 2_000;
-/** Matches a grouped page counts in one pass before it counts group by group instead. */
-const GROUPING_PASS_MAX = 1_000;
+/**
+ * Where the search changes its way of reading (numbers of matching rows). Fixed in use; a test
+ * lowers them to take each way on a small stockroom.
+ */
+export const SEARCH_TUNING = {
+  /** Containers found by their own text beyond this many are checked row by row instead of listed. */
+  ownTextListMax: 2_000,
+  /** Matches a grouped page sorts in one read; beyond, it walks the groups. */
+  groupingPassMax: 1_000,
+  /** Beyond this many matches a segment is read in its sort's index rather than sorted. */
+  denseAbove: 4_000,
+};
 
 const ROW_COLUMNS = `c.*, ch.name AS chemicalName, ch.casNumber AS casNumber, ch.onHoldReason AS chemicalHoldReason, l.name AS locationName`;
 const ROW_FROM = `FROM containers c JOIN chemicals ch ON ch.id = c.chemicalId LEFT JOIN locations l ON l.id = c.locationId`;
@@ -44,9 +54,16 @@ interface Where {
   sql: string[];
   args: unknown[];
 }
+/** How a condition names a column: `c.x` (its index may be used) or `+c.x` (it may not). */
+type Ref = (column: string) => string;
+/** A condition, written either way. */
+type Cond = (ref: Ref) => Where;
 
+const INDEXED: Ref = (column) => `c.${column}`;
+const UNINDEXED: Ref = (column) => `+c.${column}`;
 const NOTHING: Where = { sql: [], args: [] };
 const and = (...parts: Where[]): Where => ({ sql: parts.flatMap((p) => p.sql), args: parts.flatMap((p) => p.args) });
+const both = (...conds: Cond[]): Cond => (ref) => and(...conds.map((c) => c(ref)));
 const whereSql = (w: Where) => (w.sql.length ? `WHERE ${w.sql.join(" AND ")}` : "");
 const inList = (column: string, ids: readonly unknown[]): Where => ({ sql: [`${column} IN (SELECT value FROM json_each(?))`], args: [JSON.stringify(ids)] });
 
@@ -57,7 +74,7 @@ interface TextMatch {
   /** Containers matched by their own text, label code or number: a list, or null when checked row by row. */
   containerIds: number[] | null;
   /** The text's condition on one container row. */
-  row: Where;
+  row: Cond;
 }
 
 /** The label code in a text: the text itself, or the end of a scanned label's address (…/s/<code>). */
@@ -73,28 +90,31 @@ function matchText(ds: DataSource, text: string): TextMatch {
   if (label) exact.push(label.id);
   const asNumber = /^#?([1-9]\d{0,14})$/.exec(text);
   if (asNumber) exact.push(Number(asNumber[1]));
-  const own = [...text].length >= TRIGRAM ? matchingRowids(ds, CONTAINER_TEXT, text, OWN_TEXT_LIST_MAX + 1) : null;
-  const listed = own !== null && own.length <= OWN_TEXT_LIST_MAX;
-  const ids = listed ? [...new Set([...own!, ...exact])] : exact;
-  const ors: Where[] = [];
-  if (chemicalIds.length) ors.push(inList("c.chemicalId", chemicalIds));
-  if (ids.length) ors.push(inList("c.id", ids));
-  if (!listed) {
-    const like = likeAny(CONTAINER_TEXT.columns, text, "c.");
-    ors.push({ sql: [like.sql], args: like.args });
-  }
-  const row: Where = ors.length === 0 ? { sql: ["0"], args: [] } : ors.length === 1 ? ors[0] : { sql: [`(${ors.map((o) => o.sql[0]).join(" OR ")})`], args: ors.flatMap((o) => o.args) };
+  const own = [...text].length >= TRIGRAM ? matchingRowids(ds, CONTAINER_TEXT, text, SEARCH_TUNING.ownTextListMax + 1) : null;
+  const listed = own !== null && own.length <= SEARCH_TUNING.ownTextListMax;
+  const ids = listed ? [...new Set([...own, ...exact])] : exact;
+  const like = likeAny(CONTAINER_TEXT.columns, text, "c.");
+  const row: Cond = (ref) => {
+    const ors: Where[] = [];
+    if (chemicalIds.length) ors.push(inList(ref("chemicalId"), chemicalIds));
+    if (ids.length) ors.push(inList(ref("id"), ids));
+    if (!listed) ors.push({ sql: [like.sql], args: like.args });
+    if (ors.length === 0) return { sql: ["0"], args: [] };
+    return ors.length === 1 ? ors[0] : { sql: [`(${ors.map((o) => o.sql[0]).join(" OR ")})`], args: ors.flatMap((o) => o.args) };
+  };
   return { chemicalIds, containerIds: listed ? ids : null, row };
 }
 
 /** The filters other than the text; `locationIds` are the location and, with `within`, what it holds. */
-function filtersOf(q: ContainerListQuery, locationIds: number[] | null): Where {
-  const parts: Where[] = [];
-  if (q.chemicalId) parts.push({ sql: ["c.chemicalId = ?"], args: [q.chemicalId] });
-  if (locationIds) parts.push(inList("c.locationId", locationIds));
-  if (q.status?.length) parts.push(inList("c.status", q.status));
-  if (q.kind) parts.push({ sql: ["c.kind = ?"], args: [q.kind] });
-  return and(...parts);
+function filtersOf(q: ContainerListQuery, locationIds: number[] | null): Cond {
+  return (ref) => {
+    const parts: Where[] = [];
+    if (q.chemicalId) parts.push({ sql: [`${ref("chemicalId")} = ?`], args: [q.chemicalId] });
+    if (locationIds) parts.push(inList(ref("locationId"), locationIds));
+    if (q.status?.length) parts.push(inList(ref("status"), q.status));
+    if (q.kind) parts.push({ sql: [`${ref("kind")} = ?`], args: [q.kind] });
+    return and(...parts);
+  };
 }
 
 function countUpTo(ds: DataSource, w: Where, upTo: number): number {
@@ -114,25 +134,23 @@ export function searchContainers(ds: DataSource, q: ContainerListQuery, location
   const filters = filtersOf(q, locationIds);
   const text = q.q ? matchText(ds, q.q) : null;
   const dir = q.dir === "desc" ? "DESC" : "ASC";
-  const all = text ? and(filters, text.row) : filters;
   if (q.sort === "chemical" || q.sort === "location") return byGroup(ds, q, filters, text, dir);
+  const all = text ? both(filters, text.row) : filters;
   if (q.sort === "expiresAt") {
     // Containers without a date come last either way: "soonest expiry first" must not open on them.
     return walk(ds, q, [
-      { where: and(all, { sql: ["c.expiresAt IS NOT NULL"], args: [] }), orderBy: `c.expiresAt ${dir}, c.id ${dir}` },
-      { where: and(all, { sql: ["c.expiresAt IS NULL"], args: [] }), orderBy: `c.id ${dir}` },
+      { where: both(all, () => ({ sql: ["c.expiresAt IS NOT NULL"], args: [] })), orderBy: `c.expiresAt ${dir}, c.id ${dir}` },
+      { where: both(all, () => ({ sql: ["c.expiresAt IS NULL"], args: [] })), orderBy: `c.id ${dir}` },
     ]);
   }
   const column = COLUMN_SORTS[q.sort];
-  const items = rows(ds, all, `${column ? `${column} ${dir}, ` : ""}c.id ${dir}`, q.limit, q.offset);
-  return { items, ...pageTotal(items.length, q.offset, q.limit, (upTo) => countUpTo(ds, all, upTo)) };
+  return walk(ds, q, [{ where: all, orderBy: `${column ? `${column} ${dir}, ` : ""}c.id ${dir}` }]);
 }
 
-/** Part of a page's order: the rows meeting `where`, in `orderBy`; `count` when already known. */
+/** Part of a page's order: the rows meeting `where`, in `orderBy`. */
 interface Segment {
-  where: Where;
+  where: Cond;
   orderBy: string;
-  count?: number;
 }
 
 /**
@@ -140,44 +158,49 @@ interface Segment {
  * still need, rows read only from the segments the page falls in. Leaving early closes the
  * segments' generator (and any statement it iterates).
  */
-function walk(ds: DataSource, q: ContainerListQuery, segments: Iterable<Segment>, knownTotal?: number): ContainerPage {
+function walk(ds: DataSource, q: ContainerListQuery, segments: Iterable<Segment>): ContainerPage {
   const cap = countCap(q.offset, q.limit);
   let counted = 0;
   let skip = q.offset;
   let need = q.limit;
   const items: ContainerRow[] = [];
   for (const s of segments) {
-    const n = s.count ?? countUpTo(ds, s.where, cap + 1 - counted);
+    const upTo = cap + 1 - counted;
+    const n = countUpTo(ds, s.where(INDEXED), upTo);
     if (n > 0 && need > 0) {
       if (skip >= n) skip -= n;
       else {
         const take = Math.min(n - skip, need);
-        items.push(...rows(ds, s.where, s.orderBy, take, skip));
+        const dense = n < upTo ? n > SEARCH_TUNING.denseAbove : countUpTo(ds, s.where(INDEXED), SEARCH_TUNING.denseAbove + 1) > SEARCH_TUNING.denseAbove;
+        items.push(...rows(ds, s.where(dense ? UNINDEXED : INDEXED), s.orderBy, take, skip));
         need -= take;
         skip = 0;
       }
     }
     counted += n;
-    if (counted > cap || (knownTotal !== undefined && need <= 0)) break;
+    if (counted > cap) break;
   }
-  return { items, ...boundedTotal(knownTotal ?? counted, cap) };
+  return { items, ...boundedTotal(counted, cap) };
 }
 
 /**
- * By chemical (or location): one segment per group in name order, then id (containers without a
- * location first ascending, as SQLite sorts NULL). When the matches are at most
- * GROUPING_PASS_MAX, one pass counts every group and only groups that hold any are visited;
- * otherwise the groups are walked in name order through the name index and counted one by one.
+ * By chemical (or location): in name order, then id (containers without a location first
+ * ascending, as SQLite sorts NULL). At most groupingPassMax matches are counted and sorted in
+ * one read; more are walked one group (segment) at a time in name order through the name index,
+ * each counted only as far as needed. The group's own column stays indexed, so a group is read in
+ * id order from its index.
  */
-function byGroup(ds: DataSource, q: ContainerListQuery, filters: Where, text: TextMatch | null, dir: "ASC" | "DESC"): ContainerPage {
+function byGroup(ds: DataSource, q: ContainerListQuery, filters: Cond, text: TextMatch | null, dir: "ASC" | "DESC"): ContainerPage {
   const byChemical = q.sort === "chemical";
   const key = byChemical ? "c.chemicalId" : "c.locationId";
   const table = byChemical ? "chemicals" : "locations";
   const inGroup = (id: number | null): Where => (id === null ? { sql: [`${key} IS NULL`], args: [] } : { sql: [`${key} = ?`], args: [id] });
-  const all = text ? and(filters, text.row) : filters;
-  let within = (id: number | null): Where => and(all, inGroup(id));
-  /** The matches as disjoint parts, for the counting pass. */
-  let parts: Where[] = [all];
+  const all = text ? both(filters, text.row) : filters;
+  let within = (id: number | null): Cond => (ref) => and(inGroup(id), all(ref));
+  /** The matches as disjoint parts (each can use its own index). */
+  let parts: Where[] = [all(INDEXED)];
+  /** The groups that can hold a match, when known without reading containers; null for every one. */
+  let candidates: number[] | null = byChemical && q.chemicalId ? [q.chemicalId] : null;
 
   if (byChemical && text?.containerIds) {
     // By chemical, a listed text names its groups: the chemicals it found (all their containers
@@ -189,40 +212,38 @@ function byGroup(ds: DataSource, q: ContainerListQuery, filters: Where, text: Te
       chemicalId: number;
     }[];
     for (const r of owned) if (!found.has(r.chemicalId)) own.set(r.chemicalId, [...(own.get(r.chemicalId) ?? []), r.id]);
-    within = (id) => and(filters, inGroup(id), found.has(id!) ? NOTHING : inList("c.id", own.get(id!) ?? []));
+    within = (id) => (ref) => and(inGroup(id), filters(ref), found.has(id!) ? NOTHING : inList(ref("id"), own.get(id!) ?? []));
     parts = [];
-    if (found.size) parts.push(and(filters, inList("c.chemicalId", [...found])));
+    if (found.size) parts.push(and(filters(INDEXED), inList("c.chemicalId", [...found])));
     const ownIds = [...own.values()].flat();
-    if (ownIds.length) parts.push(and(filters, inList("c.id", ownIds)));
+    if (ownIds.length) parts.push(and(filters(INDEXED), inList("c.id", ownIds)));
+    if (!q.chemicalId) candidates = [...found, ...own.keys()];
   }
 
-  const counts = countGroups(ds, key, parts);
+  if (parts.length === 0) return { items: [], total: 0, totalIsExact: true };
+  const union = parts.map((p) => `SELECT c.id FROM containers c ${whereSql(p)}`).join(" UNION ALL ");
+  const unionArgs = parts.flatMap((p) => p.args);
+  const few = (prepared(ds, `SELECT COUNT(*) AS n FROM (${union} LIMIT ?)`).get(...unionArgs, SEARCH_TUNING.groupingPassMax + 1) as { n: number }).n;
+  if (few <= SEARCH_TUNING.groupingPassMax) {
+    // Few matches: one read sorts them all in the groups' order (the walk below gives the same).
+    const order = byChemical ? `ch.name ${dir}, ch.id ${dir}` : `l.name ${dir}, l.id ${dir}`;
+    const items = prepared(ds, `SELECT ${ROW_COLUMNS} ${ROW_FROM} WHERE c.id IN (${union}) ORDER BY ${order}, c.id ${dir} LIMIT ? OFFSET ?`).all(
+      ...unionArgs,
+      q.limit,
+      q.offset,
+    ) as ContainerRow[];
+    return { items, ...boundedTotal(few, countCap(q.offset, q.limit)) };
+  }
   const groups = function* (): Generator<Segment> {
-    const withNull = !byChemical && (counts ? counts.has(null) : true);
-    const segment = (id: number | null): Segment => ({ where: within(id), orderBy: `c.id ${dir}`, count: counts ? (counts.get(id) ?? 0) : undefined });
+    const segment = (id: number | null): Segment => ({ where: within(id), orderBy: `c.id ${dir}` });
+    const withNull = !byChemical;
     if (withNull && dir === "ASC") yield segment(null);
-    const ids = counts ? [...counts.keys()].filter((id) => id !== null) : byChemical && q.chemicalId ? [q.chemicalId] : null;
     const ordered =
-      ids === null
+      candidates === null
         ? prepared(ds, `SELECT id FROM ${table} ORDER BY name ${dir}, id ${dir}`).iterate()
-        : prepared(ds, `SELECT id FROM ${table} WHERE id IN (SELECT value FROM json_each(?)) ORDER BY name ${dir}, id ${dir}`).iterate(JSON.stringify(ids));
+        : prepared(ds, `SELECT id FROM ${table} WHERE id IN (SELECT value FROM json_each(?)) ORDER BY name ${dir}, id ${dir}`).iterate(JSON.stringify(candidates));
     for (const r of ordered as Iterable<{ id: number }>) yield segment(r.id);
     if (withNull && dir === "DESC") yield segment(null);
   };
-  return walk(ds, q, groups(), counts ? [...counts.values()].reduce((sum, n) => sum + n, 0) : undefined);
-}
-
-/**
- * Every group's number of matches in one pass over at most GROUPING_PASS_MAX of them, or null
- * when there are more (the groups are then counted one by one, as far as needed).
- */
-function countGroups(ds: DataSource, key: string, parts: Where[]): Map<number | null, number> | null {
-  if (parts.length === 0) return new Map();
-  const union = parts.map((p) => `SELECT ${key} AS g FROM containers c ${whereSql(p)}`).join(" UNION ALL ");
-  const found = prepared(ds, `SELECT g AS id, COUNT(*) AS n FROM (${union} LIMIT ?) GROUP BY g`).all(...parts.flatMap((p) => p.args), GROUPING_PASS_MAX + 1) as {
-    id: number | null;
-    n: number;
-  }[];
-  if (found.reduce((sum, r) => sum + r.n, 0) > GROUPING_PASS_MAX) return null;
-  return new Map(found.map((r) => [r.id, r.n]));
+  return walk(ds, q, groups());
 }
