@@ -31,7 +31,8 @@ const one = z.object({ container: containerDto });
 export const importResult = z.object({ imported: z.number().int(), ids: z.array(z.number().int()) });
 
 /** A CSV body sent as text/csv (or text/plain), or JSON { csv } from a form. */
-export const csvBody = express.text({ type: ["text/csv", "text/plain"], limit: "5mb" });
+/** 10 MB: a file of 20,000 containers with long location paths and names (~250 bytes a row) fits. */
+export const csvBody = express.text({ type: ["text/csv", "text/plain"], limit: "10mb" });
 export function csvText(body: unknown): string {
   if (typeof body === "string") return body;
   const b = body as { csv?: unknown } | undefined;
