@@ -128,6 +128,9 @@ async function serve(scale: number): Promise<void> {
   const ds = await openDatabase(path.join(dir, "bench.sqlite"));
   const schedule = await seedScheduleBench(ds, INSTRUMENTS * scale, await hashPassword("bench-password-1", 10), () => newToken(24));
   const stock = await seedStockroomBench(ds, { count: BENCH_CONTAINERS * scale });
+  // As server/main.ts runs it: WAL checkpoints in their own thread.
+  const { startCheckpointer } = await import("../server/db/checkpointer");
+  await startCheckpointer(ds);
   const config = loadConfig({ DATABASE_PATH: path.join(dir, "bench.sqlite"), NODE_ENV: "production", PUBLIC_URL: "http://127.0.0.1", LOG_LEVEL: "silent" });
   const { app } = createApp({ ds, config, clock: systemClock, mailer: { async send() {}, close() {} }, quiet: true, staticDir: null, loginRateLimit: { windowMs: 60_000, limit: 1000 } });
   const bare = express();

@@ -14,6 +14,7 @@ import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { loadConfig, ConfigError, type Config } from "./config";
 import { openDatabase } from "./db/data-source";
+import { startCheckpointer } from "./db/checkpointer";
 import { seedDemo } from "./db/seed/demo";
 import { DEMO_PASSWORD } from "./db/seed/demo-people";
 import { createApp, MAX_HEADER_BYTES } from "./app";
@@ -81,8 +82,11 @@ async function main(): Promise<void> {
       : undefined;
 
   const ds = await openDatabase(config.DATABASE_PATH);
+  // WAL checkpoints in a thread of their own, never inside a request's COMMIT (db/checkpointer.ts).
+  const checkpointer = await startCheckpointer(ds);
   const closeAll = async () => {
     await fakes?.close();
+    await checkpointer.stop();
     await ds.destroy();
   };
   let seeded = false;
