@@ -23,6 +23,8 @@ export interface RechargeBenchOptions {
   bookings?: number;
   usages?: number;
   accounts?: number;
+  /** BENCH_PROFILE: a CPU profile of the finalising run alone. */
+  profile?: { start(): Promise<() => Promise<object>>; write(profile: object): void };
 }
 
 export interface RechargeBenchResult {
@@ -159,7 +161,8 @@ export function seedRechargeMonth(ds: DataSource, opts: Required<Pick<RechargeBe
 }
 
 export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOptions = {}): Promise<RechargeBenchResult> {
-  const opts = { period: "2026-11", tz: "America/Halifax", bookings: 10_000, usages: 50_000, accounts: 60, ...options };
+  const { profile, ...rest } = options;
+  const opts = { period: "2026-11", tz: "America/Halifax", bookings: 10_000, usages: 50_000, accounts: 60, ...rest };
   const t0 = performance.now();
   seedRechargeMonth(ds, opts);
   const seedMs = performance.now() - t0;
@@ -176,9 +179,11 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
     peakHeap = Math.max(peakHeap, m.heapUsed);
   };
   const timer = setInterval(sample, 5);
+  const stopProfile = profile ? await profile.start() : null;
   const start = performance.now();
   const run = await finaliseRun(deps, { id: 1, email: "bench@kestrelbay.example", name: "Bench", roles: ["manager"], groupId: null, leadOf: [], organisation: null }, opts.period);
   const runMs = performance.now() - start;
+  if (stopProfile) profile!.write(await stopProfile());
   sample();
   const runPeakRss = peakRss;
   const mailStart = performance.now();
@@ -192,7 +197,7 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   const mb = (b: number) => Math.round((b / 1024 / 1024) * 10) / 10;
   const goal = { ms: 5000, mb: 300 };
   return {
-    name: "recharge: billing run over 10,000 bookings and 50,000 usages",
+    name: `recharge: billing run over ${opts.bookings.toLocaleString("en")} bookings and ${opts.usages.toLocaleString("en")} usages`,
     bookings: opts.bookings,
     usages: opts.usages,
     statements: Number(statements),

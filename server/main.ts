@@ -10,13 +10,14 @@
 import fs from "node:fs";
 import path from "node:path";
 import crypto from "node:crypto";
-import type { Server } from "node:http";
+import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { loadConfig, ConfigError, type Config } from "./config";
 import { openDatabase } from "./db/data-source";
+import { startCheckpointer } from "./db/checkpointer";
 import { seedDemo } from "./db/seed/demo";
 import { DEMO_PASSWORD } from "./db/seed/demo-people";
-import { createApp } from "./app";
+import { createApp, MAX_HEADER_BYTES } from "./app";
 import { systemClock } from "./clock";
 import { createSmtpMailer, type Mailer } from "./integrations/mailer";
 import { createPaymentsClient } from "./integrations/payments";
@@ -81,8 +82,11 @@ async function main(): Promise<void> {
       : undefined;
 
   const ds = await openDatabase(config.DATABASE_PATH);
+  // WAL checkpoints in a thread of their own, never inside a request's COMMIT (db/checkpointer.ts).
+  const checkpointer = await startCheckpointer(ds);
   const closeAll = async () => {
     await fakes?.close();
+    await checkpointer.stop();
     await ds.destroy();
   };
   let seeded = false;
@@ -116,8 +120,9 @@ async function main(): Promise<void> {
   let server: Server;
   try {
     server = await new Promise<Server>((resolve, reject) => {
-      const s = app.listen(config.PORT, config.HOST, (err?: Error) => (err ? reject(err) : resolve(s)));
+      const s = createServer({ maxHeaderSize: MAX_HEADER_BYTES }, app);
       s.once("error", reject);
+      s.listen(config.PORT, config.HOST, () => resolve(s));
     });
   } catch (e) {
     await closeAll();

@@ -8,6 +8,7 @@ import "reflect-metadata";
 import { DataSource } from "typeorm";
 import { entities } from "../entities";
 import { migrations } from "./migrations";
+import { refreshPlannerStatistics } from "./prepared";
 
 export function createDataSource(databasePath: string): DataSource {
   if (databasePath !== ":memory:") fs.mkdirSync(path.dirname(path.resolve(databasePath)), { recursive: true });
@@ -34,5 +35,6 @@ export async function openDatabase(databasePath: string): Promise<DataSource> {
   const ds = createDataSource(databasePath);
   await ds.initialize();
   await ds.runMigrations({ transaction: "each" });
+  refreshPlannerStatistics(ds, true);
   return ds;
 }

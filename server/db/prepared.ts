@@ -52,3 +52,13 @@ export function readEntities<T extends ObjectLiteral>(ds: DataSource, target: En
 export function readEntity<T extends ObjectLiteral>(ds: DataSource, target: EntityTarget<T>, sql: string, ...args: unknown[]): T | undefined {
   return readEntities(ds, target, sql, ...args)[0];
 }
+
+/**
+ * `PRAGMA optimize`: SQLite runs ANALYZE (with a bounded sample) on the tables whose statistics
+ * are missing or stale since they grew or shrank tenfold, so the query planner keeps choosing the
+ * indexes the lists rely on. Cheap when nothing changed; called after bulk imports, and with
+ * 0x10002 (check every table) when the database opens, as SQLite advises for long-lived connections.
+ */
+export function refreshPlannerStatistics(ds: DataSource, atOpen = false): void {
+  connectionOf(ds).pragma(atOpen ? "optimize=0x10002" : "optimize");
+}

@@ -4,7 +4,8 @@ import { Column, Entity, Index, PrimaryGeneratedColumn } from "typeorm";
 @Entity("chemicals")
 export class Chemical {
   @PrimaryGeneratedColumn("increment") id: number;
-  @Column("text") name: string;
+  /** Indexed: the Stockroom lists chemicals, and containers by chemical, in name order. */
+  @Index() @Column("text") name: string;
   /** JSON array of other names. */
   @Column("text", { default: "[]" }) synonyms: string;
   @Index() @Column("text") casNumber: string;

@@ -6,11 +6,15 @@ export type ContainerStatus = "sealed" | "in_use" | "on_hold" | "empty" | "dispo
 /** A bottle, vial, prepared solution or waste container of one chemical. */
 @Entity("containers")
 @Index(["chemicalId", "status"])
+// The Stockroom search counts one chemical's (one place's) containers in a place and state from the index alone.
+@Index(["chemicalId", "locationId", "status"])
+@Index(["locationId", "status"])
 export class Container {
   @PrimaryGeneratedColumn("increment") id: number;
   @Column("integer") chemicalId: number;
   @Column("text", { default: "bottle" }) kind: ContainerKind;
-  @Column("real") quantity: number;
+  /** Indexed: the Stockroom sorts by what is left. */
+  @Index() @Column("real") quantity: number;
   @Column("real") initialQuantity: number;
   @Column("text") unit: string;
   @Index() @Column("integer", { nullable: true }) locationId: number | null;

@@ -7,7 +7,8 @@ import { UserRole } from "./user-role.entity";
 export class User {
   @PrimaryGeneratedColumn("increment") id: number;
   @Index({ unique: true }) @Column("text") email: string;
-  @Column("text") name: string;
+  /** Indexed: the people list reads in name order. */
+  @Index() @Column("text") name: string;
   @Column("text") passwordHash: string;
   @Column("boolean", { default: true }) active: boolean;
   @Column("integer", { nullable: true }) departmentId: number | null;

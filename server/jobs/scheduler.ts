@@ -8,6 +8,7 @@ import type { Clock } from "../clock";
 import type { Config } from "../config";
 import type { Mailer } from "../integrations/mailer";
 import { deliverDueMail } from "../core/outbox";
+import { refreshPlannerStatistics } from "../db/prepared";
 import { runStockAlerts } from "../modules/safety";
 import { markNoShows, sendBookingReminders, sendTrainingExpiryNotices } from "../modules/schedule";
 import { mailStatementsJob, sendInvoicesJob } from "../modules/recharge";
@@ -46,6 +47,12 @@ export const jobs: Job[] = [
   // Recharge: invoices the payment service did not take yet, and statement PDFs not yet mailed.
   sendInvoicesJob,
   mailStatementsJob,
+  {
+    // The query planner's statistics, refreshed where tables grew or shrank tenfold (the lists' plans rely on them).
+    name: "planner-statistics",
+    everyMs: 60 * 60_000,
+    run: async (d) => refreshPlannerStatistics(d.ds),
+  },
   {
     // Production with BACKUP_DIR: one dated backup folder a night, BACKUP_KEEP days kept (ops/nightly-backup.ts).
     name: "nightly-backup",

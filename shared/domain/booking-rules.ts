@@ -7,6 +7,7 @@
  */
 import { DateTime } from "luxon";
 import { type Instant, type Interval, MINUTE_MS, clip, mergeIntervals, toMs } from "./intervals";
+import { facilityZone } from "./zones";
 
 export const WEEKDAYS = ["mon", "tue", "wed", "thu", "fri", "sat", "sun"] as const;
 export type Weekday = (typeof WEEKDAYS)[number];
@@ -90,7 +91,7 @@ export function parseClock(text: string): number | null {
 
 /** A local calendar day's start in `tz` (luxon moves a midnight that does not exist forward). */
 function localDayStart(at: number, tz: string): DateTime {
-  return DateTime.fromMillis(at, { zone: tz }).startOf("day");
+  return DateTime.fromMillis(at, { zone: facilityZone(tz) }).startOf("day");
 }
 
 function weekdayOf(day: DateTime): Weekday {
@@ -170,7 +171,7 @@ export function trainingState(record: TrainingRecord | null | undefined, at: Ins
 }
 
 function fmtLocal(ms: number, tz: string): string {
-  return DateTime.fromMillis(ms, { zone: tz }).toFormat("yyyy-MM-dd HH:mm");
+  return DateTime.fromMillis(ms, { zone: facilityZone(tz) }).toFormat("yyyy-MM-dd HH:mm");
 }
 
 function describeWindows(windows: TimeWindow[]): string {
@@ -223,7 +224,7 @@ function trainingViolations(end: number, rules: BookingRules, training: Training
 }
 
 function isValidZone(tz: string): boolean {
-  return DateTime.now().setZone(tz).isValid;
+  return facilityZone(tz).isValid;
 }
 
 /** Every rule the proposed booking breaks; an empty list means it may be booked. */

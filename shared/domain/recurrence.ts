@@ -14,6 +14,7 @@
  * place for an hour to slip at a DST change.
  */
 import { DateTime } from "luxon";
+import { facilityZone } from "./zones";
 import { type Instant, toMs } from "./intervals";
 
 export interface Occurrence {
@@ -41,7 +42,7 @@ export function weeklyOccurrences({ start, end, weeks, tz }: WeeklyInput): Occur
   if (!Number.isInteger(weeks) || weeks < 1 || weeks > MAX_WEEKLY_OCCURRENCES) {
     throw new RangeError(`weeks must be a whole number from 1 to ${MAX_WEEKLY_OCCURRENCES}, got ${weeks}`);
   }
-  const first = DateTime.fromMillis(startMs, { zone: tz });
+  const first = DateTime.fromMillis(startMs, { zone: facilityZone(tz) });
   if (!first.isValid) throw new RangeError(`Unknown time zone ${tz}`);
   return Array.from({ length: weeks }, (_, index) => {
     const s = first.plus({ weeks: index }).toMillis();

@@ -30,6 +30,27 @@ export const idParam = z.object({ id: id() });
 /** A page of a list as every list route answers it. */
 export const pageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int() });
 
+/**
+ * A page of a list that may be too long to count on every request (containers, chemicals, people):
+ * `total` is exact while `totalIsExact` is true; otherwise more than `total` rows match (counting
+ * stopped there) and the client says "more than …".
+ */
+export const boundedPageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int(), totalIsExact: z.boolean() });
+
+/** The longest search text a list route takes; longer is 400. */
+export const SEARCH_MAX = 10_000;
+
+/**
+ * What a person types into a list's search box: any characters (quotes, operators, emoji), taken
+ * as plain text and never as query syntax. Control characters (a pasted line break) become
+ * spaces, then the text is trimmed; an empty search lists everything.
+ */
+export const searchText = z
+  .string()
+  .max(SEARCH_MAX, `Search for at most ${SEARCH_MAX.toLocaleString("en")} characters`)
+  // eslint-disable-next-line no-control-regex
+  .transform((s) => s.replace(/[\u0000-\u001f\u007f]+/g, " ").trim());
+
 /** ISO 8601 date-time that must carry an offset or Z, so no time is read in the server's zone. */
 export const isoDateTime = z.iso.datetime({ offset: true, message: "Give an ISO 8601 date-time with an offset or Z, e.g. 2026-12-02T14:00:00-04:00" });
 
@@ -39,6 +60,10 @@ export const isoDate = z.iso.date({ message: "Give a date as YYYY-MM-DD" });
 export interface Page<T> {
   items: T[];
   total: number;
+}
+
+export interface BoundedPage<T> extends Page<T> {
+  totalIsExact: boolean;
 }
 
 /** RFC 9457 problem details as the API sends them. */

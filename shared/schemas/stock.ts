@@ -5,7 +5,7 @@
  * unit conversion) are checked by the services and answered 422 naming the field.
  */
 import { z } from "zod";
-import { id, isoDate, pageQuery } from "./common";
+import { id, isoDate, pageQuery, searchText } from "./common";
 import { locationClassTotals, nfpaClassSchema, storageLimitResultDto } from "./storage";
 import { chemicalIon, chemicalIons } from "./ion-table";
 import { reservationDto } from "./run-plan-records";
@@ -87,7 +87,7 @@ export type ChemicalDto = z.infer<typeof chemicalDto>;
 
 export const CHEMICAL_SORTS = ["name", "casNumber", "flashPointC", "createdAt"] as const;
 export const chemicalListQuery = pageQuery.extend({
-  q: z.string().trim().max(100).optional(),
+  q: searchText.optional(),
   sort: z.enum(CHEMICAL_SORTS).default("name"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   onHold: z.enum(["true", "false"]).optional(),
@@ -178,8 +178,8 @@ export const containerListQuery = pageQuery.extend({
     .transform((s) => (s ? s.split(",").map((x) => x.trim()).filter(Boolean) : undefined))
     .pipe(z.array(containerStatus).optional()),
   kind: containerKind.optional(),
-  /** Chemical name, synonym or CAS number; a lot number or label token exactly. */
-  q: z.string().trim().max(100).optional(),
+  /** Part of a chemical name, synonym, CAS number or formula, a lot or a supplier; a label code or #number exactly. */
+  q: searchText.optional(),
   /** Include containers in the location's sub-locations too. */
   within: z.enum(["true", "false"]).optional(),
   sort: z.enum(CONTAINER_SORTS).default("chemical"),

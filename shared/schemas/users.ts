@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { role, passwordSchema } from "./auth";
-import { id, pageQuery } from "./common";
+import { id, pageQuery, searchText } from "./common";
 
 /** What the signed-in administrator may do to a person (the user policy's answer, per row). */
 export const userAbilities = z.object({
@@ -39,7 +39,7 @@ export const userAdminDto = z.object({
 export type UserAdminDto = z.infer<typeof userAdminDto>;
 
 export const userListQuery = pageQuery.extend({
-  q: z.string().trim().max(100).optional(),
+  q: searchText.optional(),
 });
 export type UserListQuery = z.infer<typeof userListQuery>;
 

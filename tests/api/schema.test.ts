@@ -24,7 +24,36 @@ describe("the migrations", () => {
   it("install the triggers that copy a booking's times onto its instruments", async () => {
     ds = await openDatabase(":memory:");
     const triggers = (await ds.query(`SELECT name FROM sqlite_master WHERE type = 'trigger' ORDER BY name`)).map((r: { name: string }) => r.name);
-    expect(triggers).toEqual(["booking_instruments_take_times", "bookings_times_follow"]);
+    expect(triggers.filter((t: string) => t.startsWith("booking"))).toEqual(["booking_instruments_take_times", "bookings_times_follow"]);
+  });
+
+  it("install the full-text indexes of chemicals, containers and people, and the triggers that keep them in step", async () => {
+    ds = await openDatabase(":memory:");
+    const triggers = (await ds.query(`SELECT name FROM sqlite_master WHERE type = 'trigger' ORDER BY name`)).map((r: { name: string }) => r.name);
+    expect(triggers).toEqual([
+      "booking_instruments_take_times",
+      "bookings_times_follow",
+      "chemical_text_delete",
+      "chemical_text_insert",
+      "chemical_text_update",
+      "container_text_delete",
+      "container_text_insert",
+      "container_text_update",
+      "user_text_delete",
+      "user_text_insert",
+      "user_text_update",
+    ]);
+    const fts = (await ds.query(`SELECT name, sql FROM sqlite_master WHERE type = 'table' AND sql LIKE 'CREATE VIRTUAL TABLE%' ORDER BY name`)) as { name: string; sql: string }[];
+    expect(fts.map((t) => t.name)).toEqual(["chemical_text", "container_text", "user_text"]);
+    for (const t of fts) expect(t.sql).toContain("trigram");
+    // In step: a chemical's synonyms are indexed one per line, and a change or a removal follows.
+    await ds.query(`INSERT INTO chemicals (id, name, synonyms, casNumber, createdAt) VALUES (7, 'Lithium chloride', '["LiCl","Chlorure de lithium"]', '7447-41-8', '2026-01-01')`);
+    const text = async () => ds!.query(`SELECT rowid, name, synonyms, casNumber, formula FROM chemical_text`);
+    expect(await text()).toEqual([{ rowid: 7, name: "Lithium chloride", synonyms: "LiCl\nChlorure de lithium", casNumber: "7447-41-8", formula: "" }]);
+    await ds.query(`UPDATE chemicals SET name = 'Lithium chloride, anhydrous', formula = 'ClLi' WHERE id = 7`);
+    expect((await text())[0]).toMatchObject({ name: "Lithium chloride, anhydrous", formula: "ClLi" });
+    await ds.query(`DELETE FROM chemicals WHERE id = 7`);
+    expect(await text()).toEqual([]);
   });
 
   it("undo one by one back to a database without tables of ours", async () => {

@@ -7,10 +7,10 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { AddressInfo } from "node:net";
-import type { Server } from "node:http";
+import { createServer, type Server } from "node:http";
 import type { DataSource } from "typeorm";
 import { openDatabase } from "../../server/db/data-source";
-import { createApp } from "../../server/app";
+import { createApp, MAX_HEADER_BYTES } from "../../server/app";
 import { loadConfig } from "../../server/config";
 import { fixedClock } from "../../server/clock";
 import type { Mailer, OutgoingMail } from "../../server/integrations/mailer";
@@ -66,7 +66,7 @@ export async function startTestApp(
     ...opts.deps,
   });
   const server: Server = await new Promise((resolve) => {
-    const s = app.listen(0, "127.0.0.1", () => resolve(s));
+    const s = createServer({ maxHeaderSize: MAX_HEADER_BYTES }, app).listen(0, "127.0.0.1", () => resolve(s));
   });
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   return {

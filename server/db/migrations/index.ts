@@ -12,6 +12,7 @@ import { StorageLimitsByClass1796233973566 } from "./1796233973566-storage-limit
 import { UsageExactCost1796235000000 } from "./1796235000000-usage-exact-cost";
 import { ChargeLineExactFigures1796238557056 } from "./1796238557056-charge-line-exact-figures";
 import { RunPlansAndReservations1796239193256 } from "./1796239193256-run-plans-and-reservations";
+import { TextSearch1796239235279 } from "./1796239235279-text-search";
 
 export const migrations = [
   InitialSchema1796173192009,
@@ -26,4 +27,5 @@ export const migrations = [
   UsageExactCost1796235000000,
   ChargeLineExactFigures1796238557056,
   RunPlansAndReservations1796239193256,
+  TextSearch1796239235279,
 ];

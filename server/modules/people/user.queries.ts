@@ -3,11 +3,12 @@
  * list, one person, and the organisations already known. Every SQL string that reads people for
  * the People area lives here.
  */
-import type { DataSource } from "typeorm";
+import { In, type DataSource } from "typeorm";
 import type { Role } from "@shared/schemas/auth";
 import type { UserListQuery } from "@shared/schemas/users";
 import { User } from "../../entities";
 import { prepared } from "../../db/prepared";
+import { matchingRowids, pageTotal, type BoundedTotal, type TextIndex } from "../../db/text-search";
 import type { AuthUser } from "../../middleware/auth";
 
 interface SignedInRow {
@@ -55,12 +56,22 @@ export function findUserByEmail(ds: DataSource, email: string): Promise<User | n
   return ds.getRepository(User).findOne({ where: { email: email.trim().toLowerCase() } });
 }
 
-/** The administrator's list: by name, filtered by name, e-mail or organisation. */
-export async function listUsers(ds: DataSource, q: UserListQuery): Promise<{ items: User[]; total: number }> {
-  const qb = ds.getRepository(User).createQueryBuilder("u").leftJoinAndSelect("u.roleRows", "r").orderBy("u.name", "ASC");
-  if (q.q) qb.where("(u.name LIKE :q OR u.email LIKE :q OR u.organisation LIKE :q)", { q: `%${q.q}%` });
-  const [items, total] = await qb.skip(q.offset).take(q.limit).getManyAndCount();
-  return { items, total };
+/** People's searchable text (name, e-mail, organisation), kept by the TextSearch migration's triggers. */
+export const USER_TEXT: TextIndex = { table: "user_text", columns: ["name", "email", "organisation"] };
+
+/**
+ * The administrator's list: by name, filtered by part of a name, e-mail or organisation (the
+ * people's full-text index), with a total that stops counting at the bound of
+ * server/db/text-search.ts.
+ */
+export async function listUsers(ds: DataSource, q: UserListQuery): Promise<{ items: User[] } & BoundedTotal> {
+  const where = q.q ? `WHERE u.id IN (SELECT value FROM json_each(?))` : "";
+  const args = q.q ? [JSON.stringify(matchingRowids(ds, USER_TEXT, q.q, Number.MAX_SAFE_INTEGER))] : [];
+  const ids = (prepared(ds, `SELECT u.id FROM users u ${where} ORDER BY u.name, u.id LIMIT ? OFFSET ?`).all(...args, q.limit, q.offset) as { id: number }[]).map((r) => r.id);
+  const total = pageTotal(ids.length, q.offset, q.limit, (upTo) => (prepared(ds, `SELECT COUNT(*) AS n FROM (SELECT 1 FROM users u ${where} LIMIT ?)`).get(...args, upTo) as { n: number }).n);
+  // The page's people with their roles, as entities for the presenter, in the page's order.
+  const found = new Map((ids.length ? await ds.getRepository(User).findBy({ id: In(ids) }) : []).map((u) => [u.id, u]));
+  return { items: ids.map((id) => found.get(id)!), ...total };
 }
 
 /** External customers' organisations as written on their accounts and on their people, once each. */

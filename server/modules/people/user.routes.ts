@@ -4,7 +4,7 @@
  * carries the administrator's abilities on it.
  */
 import { z } from "zod";
-import { idParam, pageOf } from "@shared/schemas/common";
+import { boundedPageOf, idParam } from "@shared/schemas/common";
 import { createUserInput, organisationList, updateUserInput, userAdminDto, userListQuery } from "@shared/schemas/users";
 import { route, WRITTEN } from "../../http/route-table";
 import { toCsv, type CsvColumn } from "../../core/csv";
@@ -34,10 +34,11 @@ export const userRoutes = [
     summary: "People with an account, by name, filtered by name, e-mail or organisation",
     access: ADMINS,
     query: userListQuery,
-    output: pageOf(userAdminDto),
+    description: "The text is plain text: part of a name, e-mail or organisation. `total` is exact while `totalIsExact` is true; past 1,000 matches counting stops (more than `total` match).",
+    output: boundedPageOf(userAdminDto),
     handler: async ({ ctx, actor, query }) => {
       const page = await listUsers(ctx.ds, query);
-      return { items: page.items.map((u) => presentUserAdmin(u, actor)), total: page.total };
+      return { items: page.items.map((u) => presentUserAdmin(u, actor)), total: page.total, totalIsExact: page.totalIsExact };
     },
   }),
   route({

@@ -3,6 +3,7 @@
  * the outbox; times are written in the facility's time zone, with the zone named.
  */
 import { DateTime } from "luxon";
+import { facilityZone } from "@shared/domain/zones";
 import type { MailMessage } from "../../core/outbox";
 
 export interface MailBooking {
@@ -18,8 +19,8 @@ export interface MailContext {
 }
 
 export function localRange(startIso: string, endIso: string, tz: string): string {
-  const s = DateTime.fromISO(startIso, { zone: tz });
-  const e = DateTime.fromISO(endIso, { zone: tz });
+  const s = DateTime.fromISO(startIso, { zone: facilityZone(tz) });
+  const e = DateTime.fromISO(endIso, { zone: facilityZone(tz) });
   const sameDay = s.hasSame(e, "day");
   return `${s.toFormat("ccc d LLL yyyy, HH:mm")}–${e.toFormat(sameDay ? "HH:mm" : "ccc d LLL yyyy, HH:mm")} (${tz})`;
 }

@@ -3,19 +3,31 @@ import type { DataSource } from "typeorm";
 import type { ChemicalListQuery } from "@shared/schemas/stock";
 import { Chemical } from "../../entities";
 import { NotFound } from "../../errors";
+import { prepared, readEntities } from "../../db/prepared";
+import { matchingRowids, pageTotal, type BoundedTotal } from "../../db/text-search";
+import { CHEMICAL_TEXT } from "./container-search";
 
-export async function listChemicals(ds: DataSource, q: ChemicalListQuery): Promise<{ items: Chemical[]; total: number }> {
-  const qb = ds.getRepository(Chemical).createQueryBuilder("ch");
+const SORT_COLUMNS: Record<ChemicalListQuery["sort"], string> = { name: "ch.name", casNumber: "ch.casNumber", flashPointC: "ch.flashPointC", createdAt: "ch.createdAt" };
+
+/**
+ * One page of chemicals: the text (part of a name, synonym, CAS number or formula) found through
+ * the chemicals' full-text index, the hold filter, a sort, and a total that stops counting at the
+ * bound of server/db/text-search.ts.
+ */
+export function listChemicals(ds: DataSource, q: ChemicalListQuery): { items: Chemical[] } & BoundedTotal {
+  const where: string[] = [];
+  const args: unknown[] = [];
   if (q.q) {
-    const like = `%${q.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-    qb.where("(ch.name LIKE :like ESCAPE '\\' OR ch.casNumber LIKE :like ESCAPE '\\' OR ch.synonyms LIKE :like ESCAPE '\\' OR ch.formula LIKE :like ESCAPE '\\')", { like });
+    where.push(`ch.id IN (SELECT value FROM json_each(?))`);
+    args.push(JSON.stringify(matchingRowids(ds, CHEMICAL_TEXT, q.q, Number.MAX_SAFE_INTEGER)));
   }
-  if (q.onHold === "true") qb.andWhere("ch.onHoldReason IS NOT NULL");
-  if (q.onHold === "false") qb.andWhere("ch.onHoldReason IS NULL");
+  if (q.onHold === "true") where.push("ch.onHoldReason IS NOT NULL");
+  if (q.onHold === "false") where.push("ch.onHoldReason IS NULL");
+  const whereSql = where.length ? `WHERE ${where.join(" AND ")}` : "";
   const dir = q.dir === "desc" ? "DESC" : "ASC";
-  qb.orderBy(`ch.${q.sort}`, dir).addOrderBy("ch.id", "ASC").skip(q.offset).take(q.limit);
-  const [items, total] = await qb.getManyAndCount();
-  return { items, total };
+  const items = readEntities(ds, Chemical, `SELECT ch.* FROM chemicals ch ${whereSql} ORDER BY ${SORT_COLUMNS[q.sort]} ${dir}, ch.id ASC LIMIT ? OFFSET ?`, ...args, q.limit, q.offset);
+  const total = pageTotal(items.length, q.offset, q.limit, (upTo) => (prepared(ds, `SELECT COUNT(*) AS n FROM (SELECT 1 FROM chemicals ch ${whereSql} LIMIT ?)`).get(...args, upTo) as { n: number }).n);
+  return { items, ...total };
 }
 
 export async function getChemical(ds: DataSource, id: number): Promise<Chemical> {

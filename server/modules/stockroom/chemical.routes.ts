@@ -3,7 +3,7 @@
  * (which stop usage of every container of the chemical), and CSV import and export.
  */
 import { z } from "zod";
-import { idParam, pageOf } from "@shared/schemas/common";
+import { boundedPageOf, idParam } from "@shared/schemas/common";
 import { chemicalDto, chemicalInput, chemicalListQuery, chemicalUpdate, holdInput } from "@shared/schemas/stock";
 import { route, WRITTEN } from "../../http/route-table";
 import { createChemical, holdChemical, releaseChemical, updateChemical } from "./chemical.commands";
@@ -19,12 +19,14 @@ export const chemicalRoutes = [
     method: "get",
     path: "/chemicals",
     summary: "List chemicals with their hazard data and computed classes",
+    description:
+      "The text is plain text: part of a name, synonym, CAS number or formula. `total` is exact while `totalIsExact` is true; past 1,000 matches counting stops (more than `total` match).",
     access: "signed_in",
     query: chemicalListQuery,
-    output: pageOf(chemicalDto),
+    output: boundedPageOf(chemicalDto),
     handler: async ({ ctx, query }) => {
-      const page = await listChemicals(ctx.ds, query);
-      return { items: page.items.map(presentChemical), total: page.total };
+      const page = listChemicals(ctx.ds, query);
+      return { items: page.items.map(presentChemical), total: page.total, totalIsExact: page.totalIsExact };
     },
   }),
   route({

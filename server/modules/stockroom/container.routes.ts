@@ -7,7 +7,7 @@
 import express from "express";
 import { z } from "zod";
 import { BENCH_ROLES } from "@shared/schemas/auth";
-import { idParam, pageOf } from "@shared/schemas/common";
+import { boundedPageOf, idParam } from "@shared/schemas/common";
 import { containerDetailDto, containerDto, containerListQuery, disposeInput, holdInput, moveInput, receiveInput, usageInput, wasteAddInput } from "@shared/schemas/stock";
 import { route, WRITTEN } from "../../http/route-table";
 import { UnsupportedMedia } from "../../errors";
@@ -31,7 +31,8 @@ const one = z.object({ container: containerDto });
 export const importResult = z.object({ imported: z.number().int(), ids: z.array(z.number().int()) });
 
 /** A CSV body sent as text/csv (or text/plain), or JSON { csv } from a form. */
-export const csvBody = express.text({ type: ["text/csv", "text/plain"], limit: "5mb" });
+/** 10 MB: a file of 20,000 containers with long location paths and names (~250 bytes a row) fits. */
+export const csvBody = express.text({ type: ["text/csv", "text/plain"], limit: "10mb" });
 export function csvText(body: unknown): string {
   if (typeof body === "string") return body;
   const b = body as { csv?: unknown } | undefined;
@@ -44,12 +45,15 @@ export const containerRoutes = [
     method: "get",
     path: "/containers",
     summary: "Search containers (text, chemical, place, state) one page at a time",
+    description:
+      "The text is plain text (never query syntax): part of a chemical's name, synonym, CAS number or formula, or of a lot or supplier; a label code or #number exactly. " +
+      "`total` is exact while `totalIsExact` is true; past 1,000 matches (or the end of the page asked for) counting stops and `total` is that bound: more than `total` match.",
     access: "signed_in",
     query: containerListQuery,
-    output: pageOf(containerDto),
+    output: boundedPageOf(containerDto),
     handler: async ({ ctx, actor, query }) => {
       const page = await listContainers(ctx.ds, query);
-      return { items: page.items.map((c) => presentContainer(c, actor)), total: page.total };
+      return { items: page.items.map((c) => presentContainer(c, actor)), total: page.total, totalIsExact: page.totalIsExact };
     },
   }),
   route({

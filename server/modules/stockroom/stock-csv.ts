@@ -12,15 +12,17 @@ import { chemicalInput, CONTAINER_STATUS_LABELS, type ChemicalDto, type Containe
 import { Chemical, Container, Location } from "../../entities";
 import { RuleBroken, type FieldError } from "../../errors";
 import { serialTransaction } from "../../db/serial";
+import { prepared, refreshPlannerStatistics } from "../../db/prepared";
 import { audit } from "../../core/audit";
 import { toCsv, type CsvColumn } from "../../core/csv";
 import { newToken } from "../../core/tokens";
 import type { Deps } from "../../core/deps";
 import { checkChemicalInput, insertChemical } from "./chemical.commands";
-import { recordMovement } from "./container.commands";
 import { locationPaths } from "./stock.presenter";
 
 export const IMPORT_MAX_ROWS = 20_000;
+/** Containers per INSERT statement of an import (15 values each, far below SQLite's limit). */
+const IMPORT_CHUNK = 500;
 
 export interface BadRow {
   line: number;
@@ -113,6 +115,7 @@ export async function importChemicals({ ds, now }: Deps, actorId: number, text: 
     await audit(em, now(), actorId, "chemicals.imported", "chemical", null, { count: out.length });
     return out;
   });
+  refreshPlannerStatistics(ds);
   return { imported: ids.length, ids };
 }
 
@@ -121,10 +124,14 @@ export async function importContainers({ ds, now }: Deps, actorId: number, text:
   const { rows, bad } = parseCsv(text);
   if (rows.length === 0 && bad.length === 0) bad.push({ line: 2, field: null, reason: "The file has no data rows." });
   const chemicals = await ds.getRepository(Chemical).find();
+  const byCas = new Map<string, Chemical[]>();
+  for (const c of chemicals) byCas.set(c.casNumber, [...(byCas.get(c.casNumber) ?? []), c]);
+  const locationIds = new Set<number>();
   const locations = await ds.getRepository(Location).find();
   const paths = locationPaths(locations);
   const byPath = new Map<string, number>();
   for (const l of locations) {
+    locationIds.add(l.id);
     byPath.set((paths.get(l.id) ?? l.name).toLowerCase(), l.id);
     if (!byPath.has(l.name.toLowerCase())) byPath.set(l.name.toLowerCase(), l.id);
   }
@@ -140,7 +147,7 @@ export async function importContainers({ ds, now }: Deps, actorId: number, text:
       if (!parsed.ok) errs.push({ line, field: "casNumber", reason: parsed.message });
       else {
         const name = cell(row, "chemicalName").toLowerCase();
-        const matches = chemicals.filter((c) => c.casNumber === parsed.cas && (!name || c.name.toLowerCase() === name));
+        const matches = (byCas.get(parsed.cas) ?? []).filter((c) => !name || c.name.toLowerCase() === name);
         if (matches.length === 0) errs.push({ line, field: "casNumber", reason: `No chemical on record has CAS ${parsed.cas}${name ? ` and the name "${cell(row, "chemicalName")}"` : ""}; import the chemical first.` });
         else if (matches.length > 1) errs.push({ line, field: "chemicalName", reason: `Several chemicals have CAS ${parsed.cas}; add the chemicalName column to choose.` });
         else chemicalId = matches[0].id;
@@ -158,7 +165,7 @@ export async function importContainers({ ds, now }: Deps, actorId: number, text:
     let locationId: number | null = null;
     const loc = cell(row, "location");
     if (loc) {
-      const id = /^\d+$/.test(loc) ? (locations.some((l) => l.id === Number(loc)) ? Number(loc) : undefined) : byPath.get(loc.toLowerCase());
+      const id = /^\d+$/.test(loc) ? (locationIds.has(Number(loc)) ? Number(loc) : undefined) : byPath.get(loc.toLowerCase());
       if (id === undefined) errs.push({ line, field: "location", reason: `There is no location "${loc}" (give its id, name or full path).` });
       else locationId = id;
     }
@@ -193,18 +200,34 @@ export async function importContainers({ ds, now }: Deps, actorId: number, text:
     });
   });
   if (bad.length) refuse(bad, "containers");
+  // A file may hold 20,000 rows: multi-row inserts of IMPORT_CHUNK rows on the transaction's
+  // connection (the full-text index, filled by trigger, writes once per statement rather than once
+  // per row), then every new container's "received" movement in one statement. The write queue
+  // is ours, so the new containers are exactly those above the highest id before.
   const ids = await serialTransaction(ds, async (em) => {
-    const out: number[] = [];
     const at = now().toISOString();
-    for (const c of good) {
-      const res = await em.insert(Container, { ...c, groupId: null, organisation: null, labelToken: newToken(18), concentrationMolPerL: null, holdReason: null, createdAt: at });
-      const id = res.identifiers[0].id as number;
-      out.push(id);
-      await recordMovement(em, now(), { containerId: id, from: null, to: c.locationId ?? null, userId: actorId, kind: "received", note: "CSV import" });
+    const { last } = prepared(em.connection, `SELECT COALESCE(MAX(id), 0) AS last FROM containers`).get() as { last: number };
+    const COLUMNS = `chemicalId, kind, quantity, initialQuantity, unit, locationId, status, openedAt, expiresAt, retestAt, labelToken, supplier, lot, priceCents, createdAt`;
+    const row = `(${COLUMNS.split(",").map(() => "?").join(", ")})`;
+    for (let i = 0; i < good.length; i += IMPORT_CHUNK) {
+      const chunk = good.slice(i, i + IMPORT_CHUNK);
+      const values = chunk.flatMap((c) => [
+        c.chemicalId, c.kind, c.quantity, c.initialQuantity, c.unit, c.locationId ?? null, c.status, c.openedAt ?? null, c.expiresAt ?? null, c.retestAt ?? null,
+        newToken(18), c.supplier, c.lot, c.priceCents ?? null, at,
+      ]);
+      prepared(em.connection, `INSERT INTO containers (${COLUMNS}) VALUES ${chunk.map(() => row).join(", ")}`).run(...values);
     }
+    prepared(
+      em.connection,
+      `INSERT INTO container_movements (containerId, fromLocationId, toLocationId, userId, kind, note, at)
+       SELECT id, NULL, locationId, ?, 'received', 'CSV import', ? FROM containers WHERE id > ? ORDER BY id`,
+    ).run(actorId, at, last);
+    const out = (prepared(em.connection, `SELECT id FROM containers WHERE id > ? ORDER BY id`).all(last) as { id: number }[]).map((r) => r.id);
     await audit(em, now(), actorId, "containers.imported", "container", null, { count: out.length });
     return out;
   });
+  // Many new rows at once: let SQLite refresh the statistics its query planner reads.
+  refreshPlannerStatistics(ds);
   return { imported: ids.length, ids };
 }
 

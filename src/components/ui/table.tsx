@@ -109,16 +109,36 @@ export function HeaderRows<T>({ table, isSortable }: { table: DataTable<T>; isSo
   );
 }
 
-/** "51–100 of 420" with Previous and Next, for a table paged on the server. */
-export function Pager({ page, pageSize, total, onPage, nothing }: { page: number; pageSize: number; total: number; onPage: (page: number) => void; nothing: string }) {
+/**
+ * "51–100 of 420" with Previous and Next, for a table paged on the server. A list that stopped
+ * counting (`totalIsExact` false) reads "51–100 of more than 1,000" and always offers Next.
+ */
+export function Pager({
+  page,
+  pageSize,
+  total,
+  totalIsExact = true,
+  onPage,
+  nothing,
+}: {
+  page: number;
+  pageSize: number;
+  total: number;
+  totalIsExact?: boolean;
+  onPage: (page: number) => void;
+  nothing: string;
+}) {
+  const first = page * pageSize + 1;
+  const label =
+    total === 0 ? nothing : totalIsExact ? `${first.toLocaleString("en")}–${Math.min(total, (page + 1) * pageSize).toLocaleString("en")} of ${total.toLocaleString("en")}` : `${first.toLocaleString("en")}–${((page + 1) * pageSize).toLocaleString("en")} of more than ${total.toLocaleString("en")}`;
   return (
     <div className="flex items-center justify-between text-xs text-grey-600">
-      <span aria-live="polite">{total === 0 ? nothing : `${page * pageSize + 1}–${Math.min(total, (page + 1) * pageSize)} of ${total}`}</span>
+      <span aria-live="polite" data-testid="pager-range">{label}</span>
       <div className="flex gap-2">
         <Button size="sm" disabled={page === 0} onClick={() => onPage(page - 1)}>
           Previous
         </Button>
-        <Button size="sm" disabled={(page + 1) * pageSize >= total} onClick={() => onPage(page + 1)}>
+        <Button size="sm" disabled={totalIsExact && (page + 1) * pageSize >= total} onClick={() => onPage(page + 1)}>
           Next
         </Button>
       </div>

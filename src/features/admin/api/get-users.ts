@@ -1,11 +1,12 @@
 /** GET /api/users: people for the administrator, filtered by name or e-mail on the server. */
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
-import { z } from "zod";
+import type { z } from "zod";
+import { boundedPageOf } from "@shared/schemas/common";
 import { userAdminDto, type UserListQuery } from "@shared/schemas/users";
 import { api, parseResponse } from "@/lib/api-client";
 import { adminKeys } from "./keys";
 
-const userPage = z.object({ items: z.array(userAdminDto), total: z.number() });
+const userPage = boundedPageOf(userAdminDto);
 export type UserPage = z.infer<typeof userPage>;
 
 export async function getUsers(q: Partial<UserListQuery>, signal?: AbortSignal): Promise<UserPage> {

@@ -153,9 +153,11 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
         <p className="flex h-8 items-center gap-2 text-xs text-grey-600" aria-live="polite">
           {users.isFetching && <Spinner size="sm" className="text-aqueous-600" />}
           {users.data &&
-            (users.data.total > users.data.items.length
-              ? `Showing ${users.data.items.length} of ${users.data.total}; narrow the filter to see the rest.`
-              : `${users.data.total} ${users.data.total === 1 ? "person" : "people"}`)}
+            (!users.data.totalIsExact
+              ? `Showing ${users.data.items.length} of more than ${users.data.total.toLocaleString("en")}; narrow the filter to see the rest.`
+              : users.data.total > users.data.items.length
+                ? `Showing ${users.data.items.length} of ${users.data.total}; narrow the filter to see the rest.`
+                : `${users.data.total} ${users.data.total === 1 ? "person" : "people"}`)}
         </p>
         <a href="/api/users/export.csv" className="ml-auto flex h-8 items-center text-sm" download data-testid="people-csv">
           Export CSV

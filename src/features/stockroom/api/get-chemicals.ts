@@ -1,11 +1,11 @@
 /** GET /api/chemicals: chemicals with their computed hazard classes, paged and sorted on the server. */
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
-import { z } from "zod";
+import { boundedPageOf } from "@shared/schemas/common";
 import { chemicalDto } from "@shared/schemas/stock";
 import { api, parseResponse } from "@/lib/api-client";
 import { stockKeys, type ChemicalFilters } from "./keys";
 
-const chemicalPage = z.object({ items: z.array(chemicalDto), total: z.number() });
+const chemicalPage = boundedPageOf(chemicalDto);
 
 export async function getChemicals(q: ChemicalFilters, signal?: AbortSignal) {
   const data = await api.get<unknown>("/chemicals", { query: { ...q }, signal });

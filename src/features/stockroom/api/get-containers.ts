@@ -1,11 +1,12 @@
 /** GET /api/containers: the Stockroom search, paged, sorted and filtered on the server. */
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
-import { z } from "zod";
+import { boundedPageOf } from "@shared/schemas/common";
 import { CONTAINER_STATUSES, containerDto, type CONTAINER_SORTS } from "@shared/schemas/stock";
 import { api, parseResponse } from "@/lib/api-client";
 import { stockKeys, type ContainerFilters } from "./keys";
 
-const containerPage = z.object({ items: z.array(containerDto), total: z.number() });
+/** `totalIsExact: false`: counting stopped at `total`, more match. */
+const containerPage = boundedPageOf(containerDto);
 
 export async function getContainers(q: ContainerFilters, signal?: AbortSignal) {
   const data = await api.get<unknown>("/containers", { query: { ...q }, signal });

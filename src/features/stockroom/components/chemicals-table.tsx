@@ -99,7 +99,7 @@ export function ChemicalsTable() {
           ))}
         </TBody>
       </Table>
-      <Pager page={page} pageSize={PAGE} total={total} onPage={setPage} nothing="No chemicals" />
+      <Pager page={page} pageSize={PAGE} total={total} totalIsExact={chemicals.data?.totalIsExact ?? true} onPage={setPage} nothing="No chemicals" />
     </div>
   );
 }

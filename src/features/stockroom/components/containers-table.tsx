@@ -158,7 +158,7 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
   return (
     <div className="flex flex-col gap-2">
       <div className="flex flex-wrap items-end gap-2">
-        <Input label="Search" placeholder="Chemical, CAS number, lot or label" value={text} onChange={(e) => {
+        <Input label="Search" placeholder="Chemical, CAS number, lot, supplier or label" value={text} onChange={(e) => {
           setText(e.target.value);
           setPage(0);
         }} fieldClassName="w-72" data-testid="container-search" />
@@ -203,7 +203,7 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
           ))}
         </TBody>
       </Table>
-      <Pager page={page} pageSize={PAGE} total={total} onPage={setPage} nothing="No containers" />
+      <Pager page={page} pageSize={PAGE} total={total} totalIsExact={containers.data?.totalIsExact ?? true} onPage={setPage} nothing="No containers" />
     </div>
   );
 }

@@ -24,7 +24,7 @@ const COLUMNS: Record<ImportTable, { required: string[]; optional: string[] }> =
   },
 };
 
-const MAX_FILE_BYTES = 5 * 1024 * 1024; // the server's text body limit
+const MAX_FILE_BYTES = 10 * 1024 * 1024; // the server's text body limit
 
 export function CsvImport({ table }: { table: ImportTable }) {
   const run = useImportCsv(table);
@@ -38,7 +38,7 @@ export function CsvImport({ table }: { table: ImportTable }) {
     e.preventDefault();
     run.reset();
     if (!file) return setFileError("Choose a CSV file.");
-    if (file.size > MAX_FILE_BYTES) return setFileError("The file is larger than 5 MB; split it.");
+    if (file.size > MAX_FILE_BYTES) return setFileError("The file is larger than 10 MB; split it.");
     setFileError(undefined);
     try {
       await run.mutateAsync(await file.text());
