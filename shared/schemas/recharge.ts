@@ -1,104 +1,25 @@
 /**
- * Recharge: rates, billing policy, accounts and who may charge them, billing runs, statements,
- * the rate review and the spend views. Inputs and DTOs shared by client and server: the server's
- * presenters return these types, the client parses every answer with these schemas.
+ * Recharge: accounts and who may charge them, billing runs, statements, the rate review and the
+ * spend views (rates and the billing policy are in rates.ts, re-exported here). Inputs and DTOs
+ * shared by client and server: the server's presenters return these types, the client parses
+ * every answer with these schemas.
  */
 import { z } from "zod";
 import { id, isoDate, pageOf, pageQuery } from "./common";
+import { amount, cents, customerClass } from "./rates";
 
-export const CUSTOMER_CLASSES = ["internal", "external_academic", "commercial"] as const;
-export const customerClass = z.enum(CUSTOMER_CLASSES);
-export type CustomerClassName = z.infer<typeof customerClass>;
-export const CUSTOMER_CLASS_LABELS: Record<CustomerClassName, string> = {
-  internal: "Internal",
-  external_academic: "External academic",
-  commercial: "Commercial",
-};
-
-export const INSTRUMENT_KINDS = ["potentiostat", "interface_cell", "support"] as const;
-export const instrumentKind = z.enum(INSTRUMENT_KINDS);
-
-const cents = (what: string) => z.number({ message: `Give ${what} in whole cents` }).int(`Give ${what} in whole cents`);
-const minutes = (what: string) => z.number({ message: `Give ${what} in whole minutes` }).int(`Give ${what} in whole minutes`).min(0).max(24 * 60);
+export * from "./rates";
 
 export const period = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Give the month as YYYY-MM");
 
 /** Answers of list routes: `{ items, total }`. */
 export { pageOf };
-/** Whole cents in an answer. */
-const amount = z.number().int();
 /**
  * An exact figure as text: a decimal ("1.5", "13.2", "-250") or, where no decimal is exact, a
  * reduced fraction ("1/6" h for ten minutes). Charge lines carry quantities and unit prices so,
  * because a JSON number could not hold them exactly.
  */
 export const exactFigure = z.string().regex(/^-?\d+(\.\d+)?$|^-?\d+\/\d+$/, "An exact decimal such as 1.25, or a fraction such as 1/6");
-
-// ---- rates ------------------------------------------------------------------------------------
-
-export const rateInput = z
-  .object({
-    instrumentId: id().nullable().optional(),
-    instrumentKind: instrumentKind.nullable().optional(),
-    customerClass,
-    hourlyRateCents: cents("the hourly rate").min(0),
-    effectiveFrom: isoDate,
-    effectiveTo: isoDate.nullable().optional(),
-    minimumMinutes: minutes("the minimum charge").nullable().optional(),
-    roundingIncrementMinutes: minutes("the rounding increment").min(1).max(240).nullable().optional(),
-    afterHoursFactor: z.number().min(1, "An after-hours factor is 1 or more").max(5).nullable().optional(),
-    note: z.string().max(500).optional(),
-  })
-  .refine((r) => (r.instrumentId == null) !== (r.instrumentKind == null), {
-    message: "Give either an instrument or an instrument kind",
-    path: ["instrumentId"],
-  });
-export type RateInput = z.infer<typeof rateInput>;
-
-export const rateUpdateInput = z.object({
-  hourlyRateCents: cents("the hourly rate").min(0).optional(),
-  effectiveFrom: isoDate.optional(),
-  effectiveTo: isoDate.nullable().optional(),
-  minimumMinutes: minutes("the minimum charge").nullable().optional(),
-  roundingIncrementMinutes: minutes("the rounding increment").min(1).max(240).nullable().optional(),
-  afterHoursFactor: z.number().min(1).max(5).nullable().optional(),
-  note: z.string().max(500).optional(),
-});
-export type RateUpdateInput = z.infer<typeof rateUpdateInput>;
-
-export const rateDto = z.object({
-  id: z.number().int(),
-  instrumentId: z.number().int().nullable(),
-  instrumentName: z.string().nullable(),
-  instrumentKind: instrumentKind.nullable(),
-  customerClass,
-  hourlyRateCents: amount,
-  effectiveFrom: z.string(),
-  effectiveTo: z.string().nullable(),
-  minimumMinutes: z.number().int().nullable(),
-  roundingIncrementMinutes: z.number().int().nullable(),
-  afterHoursFactor: z.number().nullable(),
-  note: z.string(),
-  inEffect: z.boolean(),
-});
-export type RateDto = z.infer<typeof rateDto>;
-export const ratePage = pageOf(rateDto);
-export const rateResponse = z.object({ rate: rateDto });
-
-export const rateListQuery = z.object({ at: isoDate.optional() });
-
-// ---- billing policy ---------------------------------------------------------------------------
-
-export const billingPolicyInput = z.object({
-  roundingIncrementMinutes: minutes("the rounding increment").min(1).max(240),
-  minimumMinutes: minutes("the minimum charge"),
-  noShowShare: z.number().min(0, "Give a share between 0 and 1").max(1, "Give a share between 0 and 1"),
-  lateCancelShare: z.number().min(0, "Give a share between 0 and 1").max(1, "Give a share between 0 and 1"),
-  cancellationWindowMinutes: z.number().int().min(0).max(14 * 24 * 60),
-  consumableMarkupPercent: z.number().min(0).max(500),
-});
-export type BillingPolicyDto = z.infer<typeof billingPolicyInput>;
-export const policyResponse = z.object({ policy: billingPolicyInput });
 
 // ---- accounts -----------------------------------------------------------------------------------
 

@@ -5,8 +5,8 @@
  * booking, record that a cell was cleaned, report a fault. The server decides who may do what;
  * this page only hides what the person could not do anyway.
  */
-import { useState, type ReactNode } from "react";
-import { Link, useNavigate } from "react-router-dom";
+import { useState } from "react";
+import { Link } from "react-router-dom";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
@@ -31,15 +31,14 @@ import { applyServerFieldErrors, describeError } from "@/lib/forms";
 import { formatDate, formatDateTime, formatSpan, humanize } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
 import { Badge, type BadgeTone } from "@/components/ui/badge";
-import { Button, buttonClasses } from "@/components/ui/button";
+import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Input, Select } from "@/components/ui/input";
-import { useScanAction, useReissueLabel } from "../api/scan-actions";
+import { useScanAction } from "../api/scan-actions";
 import { useLocationChoices } from "../api/get-locations";
-import { labelsPdfHref } from "../api/get-label-stocks";
 import { NoteActionForm } from "./note-action-form";
-import { useConfirm } from "@/components/ui/confirm-dialog";
-import { reissueQuestion } from "./reissue-label-button";
+import { Section } from "./scan-section";
+import { LabelTools } from "./scan-label-tools";
 import { BENCH_ROLES } from "@shared/schemas/auth";
 
 type ContainerScan = Extract<ScanResultDto, { type: "container" }>;
@@ -60,15 +59,6 @@ const STATUS_TONE: Record<string, BadgeTone> = {
 function actionError(e: unknown, what: string): string {
   if (isApiError(e, 404) && e.code === "no_such_route") return `${what} is not available on this server yet.`;
   return describeError(e);
-}
-
-function Section({ title, children, testId }: { title: string; children: ReactNode; testId?: string }) {
-  return (
-    <details className="group rounded-md border border-grey-200 bg-white" data-testid={testId}>
-      <summary className="cursor-pointer select-none px-3 py-2.5 text-sm font-medium text-grey-900">{title}</summary>
-      <div className="border-t border-grey-200 p-3">{children}</div>
-    </details>
-  );
 }
 
 export function ScannedRecord({ scan, token, user }: { scan: ScanResultDto; token: string; user: UserDto }) {
@@ -407,46 +397,5 @@ function InstrumentView({ scan }: { scan: InstrumentScan }) {
         </Section>
       )}
     </>
-  );
-}
-
-// --- labels --------------------------------------------------------------------------------------
-
-function LabelTools({ scan, token }: { scan: ScanResultDto; token: string }) {
-  const reissue = useReissueLabel();
-  const navigate = useNavigate();
-  const [reason, setReason] = useState("");
-  const [error, setError] = useState<string | null>(null);
-  const href = labelsPdfHref(scan.type === "container" ? { containerIds: [scan.id] } : { instrumentIds: [scan.id] });
-  const [confirmation, confirm] = useConfirm();
-  const doReissue = async () => {
-    setError(null);
-    if (!(await confirm(reissueQuestion(scan.type)))) return;
-    try {
-      const r = await reissue.mutateAsync({ type: scan.type, id: scan.id, reason });
-      navigate(paths.scanToken.getHref(r.token), { replace: true, state: { reissued: true } });
-    } catch (e) {
-      setError(describeError(e));
-    }
-  };
-  return (
-    <Section title="Label" testId="scan-label-tools">
-      <div className="flex flex-col gap-2">
-        {confirmation}
-        <a className={buttonClasses("secondary", "md", "self-start")} href={href} target="_blank" rel="noopener" data-testid="scan-print-label">
-          Print this label (PDF)
-        </a>
-        <p className="text-xs text-grey-600">
-          Label code <span className="font-mono break-all">{token}</span>
-        </p>
-        {error && <Alert tone="danger">{error}</Alert>}
-        <Input label="Reason for a new label (optional)" value={reason} onChange={(e) => setReason(e.target.value)} maxLength={300} />
-        <div>
-          <Button variant="danger" onClick={doReissue} loading={reissue.isPending} data-testid="scan-reissue">
-            Issue a new label
-          </Button>
-        </div>
-      </div>
-    </Section>
   );
 }
