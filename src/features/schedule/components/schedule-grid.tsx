@@ -18,22 +18,29 @@ import type { CalendarApi, DateSelectArg, DatesSetArg, EventChangeArg, EventClic
 import type { BookingListItem } from "@shared/schemas/bookings";
 import { formatSpan } from "@/lib/format";
 
+function element(tag: string, className: string, text?: string): HTMLElement {
+  const node = document.createElement(tag);
+  node.className = className;
+  if (text !== undefined) node.textContent = text;
+  return node;
+}
+
 /**
  * A block's content: its time and title as the library shows them, then (for screen readers)
- * the full date and time, so its name says the state, instruments, person and when.
+ * the full date and time, so its name says the state, instruments, person and when. Built as
+ * plain elements the calendar inserts itself: a React tree per block would cost a render of its
+ * own for every block of the week.
  */
-function BlockContent({ arg, zone }: { arg: EventContentArg; zone: string }) {
+function blockContent(arg: EventContentArg, zone: string) {
   // The range being selected is drawn as a block too (the "mirror"), with no booking behind it.
   const b = arg.event.extendedProps.booking as BookingListItem | undefined;
-  return (
-    <div className="fc-event-main-frame">
-      {arg.timeText && <div className="fc-event-time">{arg.timeText}</div>}
-      <div className="fc-event-title-container">
-        <div className="fc-event-title fc-sticky">{arg.event.title}</div>
-      </div>
-      {b && <span className="sr-only">, {formatSpan(b.start, b.end, zone)}</span>}
-    </div>
-  );
+  const frame = element("div", "fc-event-main-frame");
+  if (arg.timeText) frame.append(element("div", "fc-event-time", arg.timeText));
+  const title = element("div", "fc-event-title-container");
+  title.append(element("div", "fc-event-title fc-sticky", arg.event.title));
+  frame.append(title);
+  if (b) frame.append(element("span", "sr-only", `, ${formatSpan(b.start, b.end, zone)}`));
+  return { domNodes: [frame] };
 }
 
 // The library draws a block as an <a> without href; as a button (Enter or Space opens it) it is reachable and named by its content.
@@ -77,7 +84,7 @@ export function ScheduleGrid({ apiRef, zone, events, ...handlers }: ScheduleGrid
     }),
     [],
   );
-  const content = useCallback((arg: EventContentArg) => <BlockContent arg={arg} zone={zone} />, [zone]);
+  const content = useCallback((arg: EventContentArg) => blockContent(arg, zone), [zone]);
   const ref = useCallback(
     (calendar: FullCalendar | null) => {
       apiRef.current = calendar?.getApi() ?? null;
