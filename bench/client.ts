@@ -14,9 +14,10 @@
  * README's figures when nothing else runs (the load average is printed before and after).
  *
  * Optional, for working on one page: `BENCH_PAGES=Schedule,Stockroom` measures only those pages,
- * `BENCH_RUNS=3` measures each page that many times and prints the median run (by performance),
- * and `BENCH_REPORTS=<folder>` keeps each run's full Lighthouse report there as JSON, for its
- * diagnostics (the critical request chain, unused JavaScript, the LCP element and its phases).
+ * `BENCH_RUNS=3` measures each page that many times and prints the median run by performance (the
+ * better of two), and `BENCH_REPORTS=<folder>` (`.bench-reports/` is ignored by git) keeps each
+ * run's full Lighthouse report there as JSON, for its diagnostics (the critical request chain,
+ * unused JavaScript, main-thread time by script, the network requests and their timing).
  */
 import fs from "node:fs";
 import os from "node:os";
