@@ -12,9 +12,16 @@
  * Chromium is Debian's (`CHROME_PATH`, default /usr/bin/chromium), started by chrome-launcher.
  * Needs `npm run build` first. Speed figures only mean something on a quiet machine: take the
  * README's figures when nothing else runs (the load average is printed before and after).
+ *
+ * Optional, for working on one page: `BENCH_PAGES=Schedule,Stockroom` measures only those pages,
+ * `BENCH_RUNS=3` measures each page that many times and prints the median run by performance (the
+ * better of two), and `BENCH_REPORTS=<folder>` (`.bench-reports/` is ignored by git) keeps each
+ * run's full Lighthouse report there as JSON, for its diagnostics (the critical request chain,
+ * unused JavaScript, main-thread time by script, the network requests and their timing).
  */
 import fs from "node:fs";
 import os from "node:os";
+import path from "node:path";
 import * as chromeLauncher from "chrome-launcher";
 import lighthouse from "lighthouse";
 import { startServer, DEMO_PASSWORD, type RunningServer } from "../tests/support/e2e";
@@ -57,7 +64,11 @@ interface NetworkRecord {
   transferSize?: number;
 }
 
-async function measure(port: number, base: string, page: Page, cookie: string): Promise<Measured> {
+const ONLY = (process.env.BENCH_PAGES ?? "").split(",").map((n) => n.trim().toLowerCase()).filter(Boolean);
+const RUNS = Math.max(1, Number(process.env.BENCH_RUNS ?? 1) || 1);
+const REPORTS = process.env.BENCH_REPORTS;
+
+async function measure(port: number, base: string, page: Page, cookie: string, run: number): Promise<Measured> {
   const result = await lighthouse(
     base + page.path,
     {
@@ -71,6 +82,11 @@ async function measure(port: number, base: string, page: Page, cookie: string): 
   if (!result) throw new Error(`Lighthouse gave no result for ${page.path}`);
   const { lhr } = result;
   if (lhr.runtimeError) throw new Error(`Lighthouse could not load ${page.path}: ${lhr.runtimeError.message}`);
+  if (REPORTS) {
+    fs.mkdirSync(REPORTS, { recursive: true });
+    const file = `${page.name.toLowerCase().replace(/\W+/g, "-")}-${run + 1}.json`;
+    fs.writeFileSync(path.join(REPORTS, file), JSON.stringify(lhr));
+  }
   const audit = (id: string) => lhr.audits[id];
   const records = ((audit("network-requests")?.details as { items?: NetworkRecord[] } | undefined)?.items ?? []) as NetworkRecord[];
   const scriptBytes = records.filter((r) => r.resourceType === "Script").reduce((sum, r) => sum + (r.transferSize ?? 0), 0);
@@ -135,16 +151,22 @@ async function main() {
     if (login.status !== 200) throw new Error(`Signing in as ${SIGNED_IN_AS} failed (${login.status})`);
     chrome = await chromeLauncher.launch({ chromePath: CHROME_PATH, chromeFlags: FLAGS });
     const results: Measured[] = [];
-    for (const page of PAGES) {
-      process.stdout.write(`Lighthouse: ${page.name} (${page.path})…\n`);
-      // Lighthouse sometimes loses the trace of a run on a loaded machine; one more try, then give up.
-      const once = () => measure(chrome!.port, server!.url, page, manager.cookieHeader);
-      const r = await once().catch(async (error: unknown) => {
-        process.stdout.write(`  ${error instanceof Error ? error.message : String(error)}; trying once more\n`);
-        return once();
-      });
-      process.stdout.write(`  performance ${r.performance}, accessibility ${r.accessibility}\n`);
-      results.push(r);
+    const pages = ONLY.length ? PAGES.filter((p) => ONLY.includes(p.name.toLowerCase())) : PAGES;
+    for (const page of pages) {
+      const runs: Measured[] = [];
+      for (let run = 0; run < RUNS; run++) {
+        process.stdout.write(`Lighthouse: ${page.name} (${page.path})${RUNS > 1 ? `, run ${run + 1} of ${RUNS}` : ""}…\n`);
+        // Lighthouse sometimes loses the trace of a run on a loaded machine; one more try, then give up.
+        const once = () => measure(chrome!.port, server!.url, page, manager.cookieHeader, run);
+        const r = await once().catch(async (error: unknown) => {
+          process.stdout.write(`  ${error instanceof Error ? error.message : String(error)}; trying once more\n`);
+          return once();
+        });
+        process.stdout.write(`  performance ${r.performance}, accessibility ${r.accessibility}\n`);
+        runs.push(r);
+      }
+      runs.sort((a, b) => a.performance - b.performance);
+      results.push(runs[Math.floor(runs.length / 2)]!);
     }
     console.log(`\n${table(results)}\n`);
     for (const r of results) if (r.failedAudits.length) console.log(`${r.page.name}: accessibility audits failed: ${r.failedAudits.join(", ")}`);

@@ -27,6 +27,7 @@ type Data = () => Promise<ScreenLoader>;
 const schedule = () => import("./loaders/schedule-data");
 const stockroom = () => import("./loaders/stockroom-data");
 const areas = () => import("./loaders/areas-data");
+const safety = () => import("./loaders/safety-data");
 
 export function createAppRouter(qc: QueryClient) {
   /** One screen: its code, its data (optional), the section error page; `roles` as its guard. */
@@ -101,8 +102,8 @@ export function createAppRouter(qc: QueryClient) {
         ]),
         restricted(AREA_ROLES.recharge, [[paths.recharge.path, () => import("./routes/recharge").then((m) => m.RechargeRoute)]]),
         restricted(AREA_ROLES.safety, [
-          [paths.safety.path, () => import("./routes/safety").then((m) => m.SafetyRoute), () => areas().then((m) => m.safety)],
-          [paths.safetyLocations.path, () => import("./routes/safety").then((m) => m.SafetyLocationsRoute), () => areas().then((m) => m.safetyLocations)],
+          [paths.safety.path, () => import("./routes/safety").then((m) => m.SafetyRoute), () => safety().then((m) => m.safety)],
+          [paths.safetyLocations.path, () => import("./routes/safety").then((m) => m.SafetyLocationsRoute), () => safety().then((m) => m.safetyLocations)],
           [paths.receive.path, () => import("./routes/stockroom-receive").then((m) => m.ReceiveRoute), () => stockroom().then((m) => m.receive)],
           [paths.stockImport.path, () => import("./routes/stockroom-import").then((m) => m.StockImportRoute)],
         ]),

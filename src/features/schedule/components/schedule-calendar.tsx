@@ -6,19 +6,18 @@
  * luxon plugin gives FullCalendar named zones), so someone abroad sees and selects the same local
  * hours the instruments are bookable; the route passes the zone and the instruments in.
  *
+ * The grid is the client's heaviest code (schedule-grid.tsx, a chunk of its own). The Schedule
+ * first paints its filters, the legend and the opening week's bookings as a plain list (the data
+ * the route's loader fetched), then loads the grid and swaps it in for the list.
+ *
  * Without a mouse: "Book a slot" opens the same booking form with the next half hour filled in,
  * and every block is a button (Enter or Space) named by its state, instruments, time and person,
  * which opens its details. The toolbar and the blocks are Phasebook's own (schedule-toolbar.tsx,
  * schedule-calendar.css), not the library's defaults.
  */
-import { useMemo, useRef, useState } from "react";
+import { lazy, Suspense, useEffect, useMemo, useRef, useState } from "react";
 import { Link } from "react-router-dom";
-import FullCalendar from "@fullcalendar/react";
-import timeGridPlugin from "@fullcalendar/timegrid";
-import dayGridPlugin from "@fullcalendar/daygrid";
-import interactionPlugin from "@fullcalendar/interaction";
-import luxonPlugin from "@fullcalendar/luxon3";
-import type { DateSelectArg, DatesSetArg, EventChangeArg, EventClickArg, EventContentArg, EventInput, EventMountArg } from "@fullcalendar/core";
+import type { CalendarApi, DatesSetArg, EventChangeArg, EventInput } from "@fullcalendar/core";
 import { BOOKING_STATUS_LABELS, type BookingListItem } from "@shared/schemas/bookings";
 import { INSTRUMENT_KIND_LABELS, INSTRUMENT_KINDS, type InstrumentDto, type InstrumentKind } from "@shared/schemas/instruments";
 import { zoneShortName } from "@shared/domain/facility-time";
@@ -32,11 +31,13 @@ import { Dialog } from "@/components/ui/dialog";
 import { useBookings } from "../api/get-bookings";
 import { useMoveBooking } from "../api/booking-actions";
 import { useSetups } from "../api/get-schedule-data";
-import { scheduleQuery, windowOfView, type ScheduleWindow } from "../api/schedule-window";
+import { openingWeek, scheduleQuery, windowOfView, type ScheduleWindow } from "../api/schedule-window";
 import { BookingForm } from "./booking-form";
 import { StatusBadge, StatusLegend } from "./booking-status";
 import { ScheduleToolbar, type ScheduleView } from "./schedule-toolbar";
 import "./schedule-calendar.css";
+
+const ScheduleGrid = lazy(() => import("./schedule-grid").then((m) => ({ default: m.ScheduleGrid })));
 
 const HALF_HOUR = 30 * 60_000;
 
@@ -57,19 +58,23 @@ function eventFor(b: BookingListItem, names: Map<number, string>): EventInput {
 }
 
 /**
- * A block's content: its time and title as the library shows them, then (for screen readers)
- * the full date and time, so its name says the state, instruments, person and when.
+ * What the Schedule shows until its grid has arrived: the shown week's bookings as a list, each
+ * with its state, instruments, person and time, in the order they start.
  */
-function BlockContent({ arg, zone }: { arg: EventContentArg; zone: string }) {
-  // The range being selected is drawn as a block too (the "mirror"), with no booking behind it.
-  const b = arg.event.extendedProps.booking as BookingListItem | undefined;
+function WeekList({ events, zone, loading }: { events: EventInput[]; zone: string; loading: boolean }) {
+  const blocks = [...events].sort((a, b) => String(a.start).localeCompare(String(b.start)));
   return (
-    <div className="fc-event-main-frame">
-      {arg.timeText && <div className="fc-event-time">{arg.timeText}</div>}
-      <div className="fc-event-title-container">
-        <div className="fc-event-title fc-sticky">{arg.event.title}</div>
-      </div>
-      {b && <span className="sr-only">, {formatSpan(b.start, b.end, zone)}</span>}
+    <div className="flex min-h-96 flex-col gap-2 p-1" data-testid="schedule-week-list">
+      <p className="text-xs text-grey-600">{loading ? "Loading the bookings…" : "Loading the calendar…"}</p>
+      {blocks.length > 0 && (
+        <ul className="flex flex-col gap-1" aria-label="Bookings shown">
+          {blocks.map((e) => (
+            <li key={e.id} className={`pb-week-item ${(e.classNames as string[]).join(" ")}`}>
+              <span className="font-mono text-xs">{formatSpan(String(e.start), String(e.end), zone)}</span> {e.title}
+            </li>
+          ))}
+        </ul>
+      )}
     </div>
   );
 }
@@ -118,8 +123,10 @@ function BookingDetails({ booking, names, zone }: { booking: BookingListItem; na
 export function ScheduleCalendar({ instruments: all, zone }: { instruments: InstrumentDto[]; zone: string }) {
   const setups = useSetups();
   const move = useMoveBooking();
-  const calendar = useRef<FullCalendar>(null);
-  const [range, setRange] = useState<ScheduleWindow | null>(null);
+  const calendar = useRef<CalendarApi | null>(null);
+  // The opening week until the grid says what it shows: the same query the route's loader sent.
+  const [range, setRange] = useState<ScheduleWindow>(() => openingWeek(zone));
+  const [gridWanted, setGridWanted] = useState(false);
   const [title, setTitle] = useState("");
   const [view, setView] = useState<ScheduleView>("timeGridWeek");
   const [opened, setOpened] = useState<BookingListItem | null>(null);
@@ -140,38 +147,40 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   }, [all, kind, setup, instrumentId]);
 
   const bookings = useBookings(
-    scheduleQuery(range ?? { from: "", to: "" }, instrumentId ? Number(instrumentId) : undefined),
-    range !== null,
+    scheduleQuery(range, instrumentId ? Number(instrumentId) : undefined),
   );
-  const api = () => calendar.current?.getApi();
+  const api = () => calendar.current;
+
+  // The grid's code is asked for once the list has been painted (a frame, then a task), so the
+  // page's first paint never waits for the grid's code or its first layout.
+  useEffect(() => {
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const frame = requestAnimationFrame(() => (timer = setTimeout(() => setGridWanted(true))));
+    return () => {
+      cancelAnimationFrame(frame);
+      clearTimeout(timer);
+    };
+  }, []);
 
   const onDates = (arg: DatesSetArg) => {
-    setRange(windowOfView(arg.view));
+    const shown = windowOfView(arg.view);
+    setRange((now) => (now.from === shown.from && now.to === shown.to ? now : shown));
     setTitle(arg.view.title);
     setView(arg.view.type as ScheduleView);
   };
 
-  // The library draws a block as an <a> without href; as a button (Enter or Space opens it) it is reachable and named by its content.
-  const onMount = (arg: EventMountArg) => {
-    if (arg.event.extendedProps.booking) arg.el.setAttribute("role", "button");
-  };
-
-  const onClick = (arg: EventClickArg) => {
-    arg.jsEvent.preventDefault();
-    const booking = arg.event.extendedProps.booking as BookingListItem | undefined;
-    if (booking) setOpened(booking);
-  };
   const events = useMemo(
     () => (bookings.data?.items ?? []).filter((b) => b.instrumentIds.some((id) => visibleIds.has(id))).map((b) => eventFor(b, names)),
     [bookings.data, visibleIds, names],
   );
 
+  const list = <WeekList events={events} zone={zone} loading={bookings.isPending} />;
+
   const preselected = instrumentId ? [Number(instrumentId)] : setup ? setup.instrumentIds : [];
 
-  const onSelect = (arg: DateSelectArg) => {
+  const onSelect = (range: { start: Date; end: Date }) => {
     setNotice(null);
-    setSelection({ start: arg.start, end: arg.end });
-    arg.view.calendar.unselect();
+    setSelection(range);
   };
 
   const onChange = async (arg: EventChangeArg) => {
@@ -233,40 +242,23 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
       {notice && <Alert tone={notice.tone}>{notice.text}</Alert>}
       {bookings.isError && <Alert tone="danger">{describeError(bookings.error)}</Alert>}
       <div className="pb-calendar flex flex-col gap-2 rounded-lg border border-grey-200 bg-white p-2 text-sm" data-testid="schedule-calendar" aria-busy={bookings.isFetching || undefined}>
-        <ScheduleToolbar
-          title={title}
-          view={view}
-          onPrev={() => api()?.prev()}
-          onToday={() => api()?.today()}
-          onNext={() => api()?.next()}
-          onView={(v) => api()?.changeView(v)}
-        />
-        <FullCalendar
-          ref={calendar}
-          plugins={[timeGridPlugin, dayGridPlugin, interactionPlugin, luxonPlugin]}
-          timeZone={zone}
-          initialView="timeGridWeek"
-          headerToolbar={false}
-          firstDay={1}
-          allDaySlot={false}
-          slotMinTime="06:00:00"
-          slotMaxTime="22:00:00"
-          slotDuration="00:30:00"
-          scrollTime="08:00:00"
-          height="auto"
-          nowIndicator
-          selectable
-          selectMirror
-          events={events}
-          datesSet={onDates}
-          eventDidMount={onMount}
-          eventContent={(arg) => <BlockContent arg={arg} zone={zone} />}
-          eventClick={onClick}
-          select={onSelect}
-          eventChange={onChange}
-          eventTimeFormat={{ hour: "2-digit", minute: "2-digit", hour12: false }}
-          slotLabelFormat={{ hour: "2-digit", minute: "2-digit", hour12: false }}
-        />
+        {title && (
+          <ScheduleToolbar
+            title={title}
+            view={view}
+            onPrev={() => api()?.prev()}
+            onToday={() => api()?.today()}
+            onNext={() => api()?.next()}
+            onView={(v) => api()?.changeView(v)}
+          />
+        )}
+        {gridWanted ? (
+          <Suspense fallback={list}>
+            <ScheduleGrid apiRef={calendar} zone={zone} events={events} onDates={onDates} onOpen={setOpened} onSelect={onSelect} onChange={onChange} />
+          </Suspense>
+        ) : (
+          list
+        )}
       </div>
       <Dialog open={opened !== null} onClose={() => setOpened(null)} title="Booking">
         {opened && (
