@@ -31,6 +31,9 @@ export function statementWorkerFile(): { file: string; execArgv: string[] } | nu
   return null;
 }
 
+/** Each thread holds its own copy of pdfkit and its fonts; a month's mailing gains little past four. */
+const MAX_THREADS = 4;
+
 export interface StatementPdfRenderer {
   /** The statement's PDF, from a worker thread or, failing that, in-process. */
   render(input: StatementPdfInput): Promise<Buffer>;
@@ -42,7 +45,7 @@ export interface StatementPdfRenderer {
 }
 
 export interface PoolOptions {
-  /** Threads at most; by default the machine's cores. */
+  /** Threads at most; by default the machine's cores, up to MAX_THREADS. */
   threads?: number;
   /** The worker to run; by default statementWorkerFile(). null renders in-process. */
   worker?: { file: string; execArgv: string[] } | null;
@@ -53,7 +56,7 @@ export interface PoolOptions {
 export function createStatementPdfPool(opts: PoolOptions = {}): StatementPdfRenderer {
   const log = opts.log ?? ((m: string) => console.error(m));
   const worker = opts.worker === undefined ? statementWorkerFile() : opts.worker;
-  const threads = Math.max(1, opts.threads ?? os.availableParallelism());
+  const threads = Math.max(1, opts.threads ?? Math.min(MAX_THREADS, os.availableParallelism()));
   let pool: Piscina | null = null;
   let broken = worker === null || !fs.existsSync(worker.file);
   // Settles (rejected) when a thread fails outside any task, e.g. while loading the worker file:
