@@ -2,7 +2,8 @@
  * Benchmark scenario for Recharge: seeds one month with 10,000 bookings and 50,000 container
  * usages into a migrated data source, then times one finalising billing run (statements, lines,
  * PDFs mailed through the outbox) and samples its memory. Goal on the reference machine: under
- * 5 s and 300 MB. Run alone with `npx tsx bench/recharge.ts`; bench/run.ts may import
+ * 5 s and 300 MB. Run alone with `npx tsx --expose-gc bench/recharge.ts` (BENCH_SCALE=10 for ten
+ * times the month, BENCH_PROFILE=dir for a CPU profile of the run); bench/run.ts imports
  * `benchRechargeRun`.
  */
 import fs from "node:fs";
@@ -23,8 +24,8 @@ export interface RechargeBenchOptions {
   bookings?: number;
   usages?: number;
   accounts?: number;
-  /** BENCH_PROFILE: a CPU profile of the finalising run alone. */
-  profile?: { start(): Promise<() => Promise<object>>; write(profile: object): void };
+  /** BENCH_PROFILE: CPU profiles of the finalising run and of the mailing, each alone. */
+  profile?: { start(): Promise<() => Promise<object>>; write(part: "run" | "mail", profile: object): void };
 }
 
 export interface RechargeBenchResult {
@@ -183,12 +184,14 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   const start = performance.now();
   const run = await finaliseRun(deps, { id: 1, email: "bench@kestrelbay.example", name: "Bench", roles: ["manager"], groupId: null, leadOf: [], organisation: null }, opts.period);
   const runMs = performance.now() - start;
-  if (stopProfile) profile!.write(await stopProfile());
+  if (stopProfile) profile!.write("run", await stopProfile());
   sample();
   const runPeakRss = peakRss;
+  const stopMailProfile = profile ? await profile.start() : null;
   const mailStart = performance.now();
   await mailDueStatements(ds, now, { runId: run.id, limit: 10_000 });
   const mailMs = performance.now() - mailStart;
+  if (stopMailProfile) profile!.write("mail", await stopMailProfile());
   clearInterval(timer);
   sample();
 
@@ -214,16 +217,35 @@ export async function benchRechargeRun(ds: DataSource, options: RechargeBenchOpt
   };
 }
 
+/** The billing figures alone, as bench/run.ts measures them at one scale. */
 async function main(): Promise<void> {
   const { openDatabase } = await import("../server/db/data-source");
+  const scale = Number(process.env.BENCH_SCALE ?? 1);
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-bench-recharge-"));
   const ds = await openDatabase(path.join(dir, "bench.sqlite"));
   try {
-    console.log(JSON.stringify(await benchRechargeRun(ds), null, 2));
+    const profile = process.env.BENCH_PROFILE ? { start: startProfiler, write: (part: string, p: object) => writeProfile(process.env.BENCH_PROFILE!, `recharge-${part}-${scale}x`, p) } : undefined;
+    console.log(JSON.stringify(await benchRechargeRun(ds, { bookings: 10_000 * scale, usages: 50_000 * scale, accounts: 60 * scale, profile }), null, 2));
   } finally {
     await ds.destroy();
     fs.rmSync(dir, { recursive: true, force: true });
   }
+}
+
+/** Starts V8's CPU profiler in this process; the returned function stops it and gives the profile. */
+export async function startProfiler(): Promise<() => Promise<object>> {
+  const { Session } = await import("node:inspector/promises");
+  const session = new Session();
+  session.connect();
+  await session.post("Profiler.enable");
+  await session.post("Profiler.start");
+  return async () => (await session.post("Profiler.stop")).profile;
+}
+
+export function writeProfile(dir: string, name: string, profile: object): void {
+  const out = path.resolve(dir, `${name}-${Date.now()}.cpuprofile`);
+  fs.mkdirSync(path.dirname(out), { recursive: true });
+  fs.writeFileSync(out, JSON.stringify(profile));
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) await main();

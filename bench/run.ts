@@ -17,7 +17,7 @@
  *
  * BENCH_SECONDS (default 5) sets the time per load run; BENCH_ONLY=word,word runs only the
  * scenarios whose names contain one of the words (the bare route and the baseline always run);
- * BENCH_PROFILE=dir writes V8 CPU profiles there: the server's requests, and the billing run.
+ * BENCH_PROFILE=dir writes V8 CPU profiles there: the server's requests, the billing run and the mailing of its statements.
  */
 import fs from "node:fs";
 import os from "node:os";
@@ -192,7 +192,7 @@ async function recharge(scale: number): Promise<void> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-bench-recharge-"));
   const ds = await openDatabase(path.join(dir, "bench.sqlite"));
   try {
-    const profile = process.env.BENCH_PROFILE ? { start: startProfiler, write: (p: object) => writeProfile(`recharge-${scale}x`, p) } : undefined;
+    const profile = process.env.BENCH_PROFILE ? { start: startProfiler, write: (part: string, p: object) => writeProfile(`recharge-${part}-${scale}x`, p) } : undefined;
     const result = await benchRechargeRun(ds, { bookings: 10_000 * scale, usages: 50_000 * scale, accounts: 60 * scale, profile });
     process.send!({ result });
   } catch (e) {

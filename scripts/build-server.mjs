@@ -15,6 +15,9 @@ const result = await esbuild.build({
     "cli/backup": "server/cli/backup.ts",
     "cli/restore": "server/cli/restore.ts",
     "cli/migrate": "server/cli/migrate.ts",
+    "cli/statement-pdf": "server/cli/statement-pdf.ts",
+    // The statement PDF pool's worker thread, found at run time beside main.js (statement-pdf-pool.ts).
+    "statement-pdf-worker": "server/modules/recharge/statement-pdf.worker.ts",
   },
   outdir: OUT,
   bundle: true,

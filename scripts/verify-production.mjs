@@ -3,7 +3,8 @@
 // deployment would: copies this checkout (after `npm run build`) to a temporary folder, runs
 // `npm ci --omit=dev` there, starts `npm run start:prod` with DEMO_SEED=1 on a free port and a
 // new data folder, and fetches /, /api/health, /api/facility, a hashed asset and a missing
-// asset; then creates a person and takes a backup with the compiled command-line tools.
+// asset; then creates a person, takes a backup and renders a statement PDF (through the worker
+// pool) with the compiled command-line tools.
 // Slow (npm ci compiles better-sqlite3): `npm run verify:production`, not part of `npm test`.
 import fs from "node:fs";
 import os from "node:os";
@@ -126,6 +127,14 @@ try {
   execFileSync(npm, ["run", "--silent", "backup", "--", backupDir], { cwd: app, env, stdio: ["ignore", "ignore", "inherit"] });
   const manifest = JSON.parse(fs.readFileSync(path.join(backupDir, "manifest.json"), "utf8"));
   check(manifest.tables.users >= 8, `npm run backup wrote a backup of the running server (${manifest.tables.users} people)`);
+
+  // The demo's billed month has statements; the bundle's worker thread (dist-server/statement-pdf-worker.js) renders them.
+  const pdfFile = path.join(root, "statement-1.pdf");
+  const wrote = execFileSync(npm, ["run", "--silent", "statement:pdf", "--", "1", pdfFile], { cwd: app, env, encoding: "utf8" });
+  check(
+    /rendered in a worker thread/.test(wrote) && fs.readFileSync(pdfFile).subarray(0, 5).toString() === "%PDF-",
+    "npm run statement:pdf renders a statement of the demo's billed month in the statement PDF pool's worker thread",
+  );
 
   console.log("The built checkout runs in production with the runtime dependencies only.");
 } catch (e) {

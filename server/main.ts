@@ -27,6 +27,7 @@ import { busyPorts, isAddressInUse, portsInUseSentence, type WantedPort } from "
 import { accountsWithDemoPassword, demoPasswordRefusal } from "./ops/demo-passwords";
 import { writePidFile } from "./ops/pid-file";
 import { Refusal } from "./ops/cli";
+import { closeStatementPdfPool } from "./modules/recharge";
 
 /** Fake ports as fakes/start.ts reads them; 0 lets the system choose. */
 function fakePort(name: string, fallback: number): number {
@@ -87,6 +88,7 @@ async function main(): Promise<void> {
   const closeAll = async () => {
     await fakes?.close();
     await checkpointer.stop();
+    await closeStatementPdfPool();
     await ds.destroy();
   };
   let seeded = false;

@@ -29,10 +29,21 @@ export function pdfTable(doc: PDFKit.PDFDocument, columns: readonly PdfColumn[],
   // A cell that fits on one line is one line high and drawn as one run of text; only longer
   // ones go through pdfkit's line wrapper, which costs far more (a statement has thousands of
   // short cells). Widths are measured in the row's font.
+  // Widths of the table's strings in each font: dates, units, prices and amounts repeat on many rows.
+  const widthsIn = { regular: new Map<string, number>(), bold: new Map<string, number>() };
+  const widthOf = (c: string, bold: boolean) => {
+    const known = bold ? widthsIn.bold : widthsIn.regular;
+    let w = known.get(c);
+    if (w === undefined) {
+      w = doc.widthOfString(c);
+      known.set(c, w);
+    }
+    return w;
+  };
   const measure = (cells: readonly string[], bold: boolean) => {
     doc.font(bold ? "Helvetica-Bold" : "Helvetica").fontSize(size);
     const line = doc.currentLineHeight(true);
-    const widths = cells.map((c) => (c.includes("\n") ? Infinity : doc.widthOfString(c)));
+    const widths = cells.map((c) => (c.includes("\n") ? Infinity : widthOf(c, bold)));
     const fits = widths.map((w, i) => w < columns[i].width - 2 * PAD);
     const height = Math.max(...cells.map((c, i) => (fits[i] ? line : doc.heightOfString(c || " ", { width: columns[i].width - 2 * PAD })))) + 2 * PAD;
     return { height, widths, fits };

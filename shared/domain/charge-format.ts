@@ -5,6 +5,7 @@
  * as many decimals as it needs, never rounded ("$0.0216"). Amounts stay whole cents (money.ts).
  */
 import { divide, exact, fraction, terminatingPlaces, toNumber } from "./exact";
+import { currencyFormat } from "./money";
 
 /** Most decimals a unit price is printed with; a longer one is printed in cents as its exact text. */
 const MAX_PLACES = 8;
@@ -23,7 +24,7 @@ export function formatUnitPrice(unitPriceCents: string, currency = "CAD", locale
   const places = terminatingPlaces(units);
   if (places === null || places > MAX_PLACES) return `${unitPriceCents} ¢`;
   const digits = Math.max(2, places);
-  return new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(toNumber(units));
+  return currencyFormat(locale, currency, digits).format(toNumber(units));
 }
 
 /** "$35.00/h", "$0.0216/g", "$12.34" for one item. */

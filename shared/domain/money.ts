@@ -98,7 +98,23 @@ export function allocateProportionally(totalCents: Cents, weights: readonly numb
 /** "$1,234.56" style text for screens and statements (en-CA conventions unless told). */
 export function formatMoney(cents: Cents, currency = "CAD", locale = "en-CA"): string {
   assertCents(cents, "cents");
-  return new Intl.NumberFormat(locale, { style: "currency", currency }).format(cents / 100);
+  return currencyFormat(locale, currency, null).format(cents / 100);
+}
+
+const formats = new Map<string, Intl.NumberFormat>();
+
+/**
+ * One Intl.NumberFormat per locale, currency and number of decimals (null: the currency's own),
+ * kept: making one costs far more than formatting with it, and a statement formats thousands.
+ */
+export function currencyFormat(locale: string, currency: string, digits: number | null): Intl.NumberFormat {
+  const key = `${locale}|${currency}|${digits ?? ""}`;
+  let f = formats.get(key);
+  if (!f) {
+    f = new Intl.NumberFormat(locale, digits === null ? { style: "currency", currency } : { style: "currency", currency, minimumFractionDigits: digits, maximumFractionDigits: digits });
+    formats.set(key, f);
+  }
+  return f;
 }
 
 /** "1234.56" / "-0.05": plain decimal text for journal files, with no symbol or grouping. */

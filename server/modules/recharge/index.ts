@@ -10,6 +10,8 @@ export { billingRunPolicy, billingPeriodPolicy, type BillingRunFacts, type Billi
 export { isChargeable } from "./account.queries";
 export { finaliseRun, voidRun } from "./billing-run.commands";
 export { mailDueStatements } from "./statement.commands";
+export { statementPdfInputById } from "./statement.queries";
+export { statementPdfPool, closeStatementPdfPool } from "./statement-pdf-pool";
 export { processDueInvoices } from "./invoice.commands";
 export { sendInvoicesJob, mailStatementsJob, type RechargeJob, type RechargeJobDeps } from "./jobs";
 export { readBillingSettings, type BillingSettings } from "./billing-settings";

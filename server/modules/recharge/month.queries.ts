@@ -29,7 +29,12 @@ export function otherFinalRuns(em: EntityManager, ownRun: number): Promise<{ per
 
 const BOOKING_COLUMNS = `b.id, b.userId, b.accountId, b.status, b.startsAt, b.endsAt, b.checkedInAt, b.checkedOutAt, b.cancelledAt, b.lateCancel, bi.instrumentId`;
 
-/** The next page of billable bookings starting in [startMs, endMs), after `after` in (startMs, id) order. */
+/**
+ * The next page of billable bookings starting in [startMs, endMs), after `after` in (startMs, id)
+ * order. The page starts its walk of the startMs index at `after` (not at the month's start, which
+ * made every page read all the pages before it), and the status test is kept off its own index
+ * (`+status`): that index would read every booking of every month with that status, then sort them.
+ */
 export function bookingIdPage(
   em: EntityManager,
   range: { startMs: number; endMs: number },
@@ -38,10 +43,10 @@ export function bookingIdPage(
 ): Promise<{ id: number; startMs: number }[]> {
   return em.query(
     `SELECT id, startMs FROM bookings
-     WHERE startMs >= ? AND startMs < ? AND status IN ('confirmed', 'in_progress', 'completed', 'no_show', 'cancelled')
-       ${after ? "AND (startMs > ? OR (startMs = ? AND id > ?))" : ""}
+     WHERE startMs >= ? AND startMs < ? AND +status IN ('confirmed', 'in_progress', 'completed', 'no_show', 'cancelled')
+       ${after ? "AND (startMs > ? OR id > ?)" : ""}
      ORDER BY startMs, id LIMIT ?`,
-    after ? [range.startMs, range.endMs, after.startMs, after.startMs, after.id, limit] : [range.startMs, range.endMs, limit],
+    after ? [after.startMs, range.endMs, after.startMs, after.id, limit] : [range.startMs, range.endMs, limit],
   );
 }
 
@@ -93,7 +98,11 @@ const USAGE_SQL = `SELECT u.id, u.userId, COALESCE(u.accountId, b.accountId) AS 
     FROM container_usages u LEFT JOIN bookings b ON b.id = u.bookingId
     JOIN containers c ON c.id = u.containerId JOIN chemicals ch ON ch.id = c.chemicalId`;
 
-/** The next page of usages logged in [startIso, endIso), after `after` in (at, id) order. */
+/**
+ * The next page of usages logged in [startIso, endIso), after `after` in (at, id) order: the walk of
+ * the `at` index (whose entries are in (at, id) order) starts at `after`, so each page reads its own
+ * rows only.
+ */
 export function usagePage(
   em: EntityManager,
   range: { startIso: string; endIso: string },
@@ -101,8 +110,8 @@ export function usagePage(
   limit: number,
 ): Promise<UsageRow[]> {
   return em.query(
-    `${USAGE_SQL} WHERE u.at >= ? AND u.at < ? ${after ? "AND (u.at > ? OR (u.at = ? AND u.id > ?))" : ""} ORDER BY u.at, u.id LIMIT ?`,
-    after ? [range.startIso, range.endIso, after.at, after.at, after.id, limit] : [range.startIso, range.endIso, limit],
+    `${USAGE_SQL} WHERE u.at >= ? AND u.at < ? ${after ? "AND (u.at > ? OR u.id > ?)" : ""} ORDER BY u.at, u.id LIMIT ?`,
+    after ? [after.at, range.endIso, after.at, after.id, limit] : [range.startIso, range.endIso, limit],
   );
 }
 

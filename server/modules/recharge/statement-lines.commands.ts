@@ -20,9 +20,6 @@ const LINE_COLUMNS = [
   "description", "quantity", "unit", "unitPriceCents", "amountCents", "at",
 ] as const;
 
-/** Rows per multi-row INSERT: 16 columns × 64 rows = 1,024 parameters, far below SQLite's limit. */
-const CHUNK = 64;
-
 function rawDb(em: EntityManager): RawDb {
   return (em.connection.driver as unknown as { databaseConnection: RawDb }).databaseConnection;
 }
@@ -40,8 +37,10 @@ export function createRunWriter(em: EntityManager, run: { id: number; period: st
   if (!db.inTransaction) throw new Error("createRunWriter must be used inside the run's transaction");
   const row = `(${LINE_COLUMNS.map(() => "?").join(", ")})`;
   const insert = `INSERT INTO charge_lines (${LINE_COLUMNS.map((c) => `"${c}"`).join(", ")}) VALUES `;
+  // One row per INSERT: SQLite keeps an undo journal of every page a multi-row INSERT changes (it
+  // may have to undo the rows before a failing one), written to a temporary file past 64 KiB; with
+  // the lines' five indexes that was a few pages per line, and more per line the larger the month.
   const one = db.prepare(insert + row);
-  const chunk = db.prepare(insert + Array.from({ length: CHUNK }, () => row).join(", "));
   // Totals and invoice state are set once the month is complete (closeStatements in billing-run.commands).
   const openStatement = db.prepare(
     `INSERT INTO statements (runId, accountId, period, totalCents, currency, invoiceStatus, invoiceAttempts, createdAt) VALUES (?, ?, ?, 0, ?, 'none', 0, ?)`,
@@ -65,15 +64,10 @@ export function createRunWriter(em: EntityManager, run: { id: number; period: st
 
   return {
     write(lines) {
-      let i = 0;
-      for (; i + CHUNK <= lines.length; i += CHUNK) {
-        const values: unknown[] = [];
-        for (let k = i; k < i + CHUNK; k++) params(lines[k], values);
-        chunk.run(...values);
-      }
-      for (; i < lines.length; i++) {
-        const values: unknown[] = [];
-        params(lines[i], values);
+      const values: unknown[] = [];
+      for (const l of lines) {
+        values.length = 0;
+        params(l, values);
         one.run(...values);
       }
     },

@@ -33,6 +33,11 @@ export interface StatementPdfLine {
 
 export interface StatementPdfInput {
   facility: string;
+  /**
+   * When the statement was made (ISO): the PDF's creation date, so the same statement always
+   * renders to the same bytes, wherever and whenever it is rendered.
+   */
+  createdAt: string;
   period: string;
   currency: string;
   account: { code: string; name: string; kind: string; organisation: string | null };
@@ -67,8 +72,13 @@ const COLUMNS = (currency: string): PdfColumn[] => [
   { header: `Amount (${currency})`, width: 82, align: "right" },
 ];
 
-export function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
-  const doc = new PDFDocument({ size: "A4", margin: 48, info: { Title: `Statement ${input.period} ${input.account.code}`, Author: "Phasebook" } });
+export async function renderStatementPdf(input: StatementPdfInput): Promise<Buffer> {
+  const doc = new PDFDocument({
+    size: "A4",
+    margin: 48,
+    // pdfkit would stamp the clock's time, and derive the file's identifier from it, otherwise.
+    info: { Title: `Statement ${input.period} ${input.account.code}`, Author: "Phasebook", CreationDate: new Date(input.createdAt) },
+  });
   const chunks: Buffer[] = [];
   doc.on("data", (c: Buffer) => chunks.push(c));
   const done = new Promise<Buffer>((resolve) => doc.on("end", () => resolve(Buffer.concat(chunks))));

@@ -9,7 +9,8 @@ import { Account, ChargeLine, Statement } from "../../entities";
 import { NotFound } from "../../errors";
 import { hasRole, type AuthUser } from "../../middleware/auth";
 import { statementPolicy, type StatementFacts } from "./statement.policy";
-import { CONSUMABLES_GROUP, OTHER_GROUP, groupOrder, renderStatementPdf } from "./statement-pdf";
+import { CONSUMABLES_GROUP, OTHER_GROUP, groupOrder, type StatementPdfInput } from "./statement-pdf";
+import { statementPdfPool } from "./statement-pdf-pool";
 import type { RechargeDeps } from "./recharge-deps";
 
 /** The statement as the policy sees it. */
@@ -102,18 +103,19 @@ const INVOICE_WORDS: Record<InvoiceStatusName, string> = {
 type PdfLineRow = Pick<ChargeLine, "at" | "description" | "quantity" | "unit" | "unitPriceCents" | "amountCents" | "userId" | "instrumentId" | "usageId">;
 
 /**
- * A statement's PDF: its lines with the person on each, grouped for their subtotals (per
- * instrument, consumables, adjustments and credits), its total and how it is settled.
+ * What a statement's PDF shows: its lines with the person on each, grouped for their subtotals
+ * (per instrument, consumables, adjustments and credits), its total and how it is settled.
  */
-export async function pdfFor(em: EntityManager, st: Statement, account: Account, lines: PdfLineRow[], opts: { tz?: string; facility: string }): Promise<Buffer> {
+export async function pdfInputFor(em: EntityManager, st: Statement, account: Account, lines: PdfLineRow[], opts: { tz?: string; facility: string }): Promise<StatementPdfInput> {
   const people = await namesOf(em, "users", distinctIds(lines.map((l) => l.userId)));
   const instruments = await namesOf(em, "instruments", distinctIds(lines.map((l) => (l.usageId == null ? l.instrumentId : null))));
   const groupOf = (l: PdfLineRow) =>
     l.usageId != null ? CONSUMABLES_GROUP : l.instrumentId != null ? (instruments.get(l.instrumentId) ?? `Instrument #${l.instrumentId}`) : OTHER_GROUP;
   // Lines come by date; a stable sort by group keeps each group's lines in date order.
   const grouped = lines.map((l) => ({ ...l, group: groupOf(l) })).sort((a, b) => groupOrder(a.group, b.group));
-  return renderStatementPdf({
+  return {
     facility: opts.facility,
+    createdAt: st.createdAt,
     period: st.period,
     currency: st.currency,
     account: { code: account.code, name: account.name, kind: account.kind, organisation: account.organisation },
@@ -132,7 +134,24 @@ export async function pdfFor(em: EntityManager, st: Statement, account: Account,
     invoiceNumber: st.invoiceNumber,
     paymentUrl: account.kind === "external" && st.invoiceStatus !== "paid" && st.invoiceStatus !== "void" ? st.invoiceUrl : null,
     tz: opts.tz,
-  });
+  };
+}
+
+/** A statement's lines in the order they print within their groups: by date. */
+export function statementLines(em: EntityManager, statementId: number): Promise<PdfLineRow[]> {
+  return em.query(
+    `SELECT at, description, quantity, unit, unitPriceCents, amountCents, userId, instrumentId, usageId FROM charge_lines WHERE statementId = ? ORDER BY at, id`,
+    [statementId],
+  );
+}
+
+/** What one statement's PDF shows and its file name, by id (for operators' tools, which hold the database itself). */
+export async function statementPdfInputById(em: EntityManager, statementId: number, opts: { tz?: string; facility: string }): Promise<{ input: StatementPdfInput; filename: string } | null> {
+  const st = await em.findOneBy(Statement, { id: statementId });
+  const account = st ? await em.findOneBy(Account, { id: st.accountId }) : null;
+  if (!st || !account) return null;
+  const input = await pdfInputFor(em, st, account, await statementLines(em, statementId), opts);
+  return { input, filename: `statement-${st.period}-${account.code}.pdf` };
 }
 
 /** GET /api/billing/statements/:id/statement.pdf, for those the statement policy lets download it (404 for anyone else). */
@@ -144,7 +163,9 @@ export async function statementPdf(deps: RechargeDeps, actor: AuthUser, statemen
   const [{ status }]: { status: "final" | "voided" }[] = await em.query(`SELECT status FROM billing_runs WHERE id = ?`, [st.runId]);
   const member = (await memberAccountIds(em, actor.id)).has(account.id);
   statementPolicy.authorize(actor, "download", statementFacts(st, account, status, member));
-  const lines = await em.find(ChargeLine, { where: { statementId }, order: { at: "ASC", id: "ASC" } });
-  const pdf = await pdfFor(em, st, account, lines, { tz: deps.config.FACILITY_TZ, facility: deps.config.FACILITY_NAME });
+  const lines = await statementLines(em, statementId);
+  const input = await pdfInputFor(em, st, account, lines, { tz: deps.config.FACILITY_TZ, facility: deps.config.FACILITY_NAME });
+  // Drawn in a worker thread, so other requests go on meanwhile.
+  const pdf = await statementPdfPool().render(input);
   return { pdf, filename: `statement-${st.period}-${account.code}.pdf` };
 }
