@@ -189,16 +189,19 @@ function walk(ds: DataSource, q: ContainerListQuery, segments: Iterable<Segment>
  * By chemical (or location): in name order, then id (containers without a location first
  * ascending, as SQLite sorts NULL). At most groupingPassMax matches are counted and sorted in
  * one read; more are walked one group (segment) at a time in name order through the name index,
- * each counted only as far as needed. The group's own column stays indexed, so a group is read in
- * id order from its index.
+ * each counted only as far as needed; a group of many matches is read in id order from the table.
  */
 function byGroup(ds: DataSource, q: ContainerListQuery, filters: Cond, text: TextMatch | null, dir: "ASC" | "DESC"): ContainerPage {
   const byChemical = q.sort === "chemical";
-  const key = byChemical ? "c.chemicalId" : "c.locationId";
+  const column = byChemical ? "chemicalId" : "locationId";
   const table = byChemical ? "chemicals" : "locations";
-  const inGroup = (id: number | null): Where => (id === null ? { sql: [`${key} IS NULL`], args: [] } : { sql: [`${key} = ?`], args: [id] });
+  // The group's column follows the read like the filters: indexed for a few matches, and for many
+  // unindexed too, so the group is read in id order from the table itself and the read stops
+  // after the page (its (chemicalId, locationId, status) index would give another order, and
+  // SQLite would sort the whole group for one page).
+  const inGroup = (id: number | null, ref: Ref): Where => (id === null ? { sql: [`${ref(column)} IS NULL`], args: [] } : { sql: [`${ref(column)} = ?`], args: [id] });
   const all = text ? both(filters, text.row) : filters;
-  let within = (id: number | null): Cond => (ref) => and(inGroup(id), all(ref));
+  let within = (id: number | null): Cond => (ref) => and(inGroup(id, ref), all(ref));
   /** The matches as disjoint parts (each can use its own index). */
   let parts: Where[] = [all(INDEXED)];
   /** The groups that can hold a match, when known without reading containers; null for every one. */
@@ -214,7 +217,7 @@ function byGroup(ds: DataSource, q: ContainerListQuery, filters: Cond, text: Tex
       chemicalId: number;
     }[];
     for (const r of owned) if (!found.has(r.chemicalId)) own.set(r.chemicalId, [...(own.get(r.chemicalId) ?? []), r.id]);
-    within = (id) => (ref) => and(inGroup(id), filters(ref), found.has(id!) ? NOTHING : inList(ref("id"), own.get(id!) ?? []));
+    within = (id) => (ref) => and(inGroup(id, ref), filters(ref), found.has(id!) ? NOTHING : inList(ref("id"), own.get(id!) ?? []));
     parts = [];
     if (found.size) parts.push(and(filters(INDEXED), inList("c.chemicalId", [...found])));
     const ownIds = [...own.values()].flat();
