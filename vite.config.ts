@@ -37,6 +37,29 @@ function preloadFonts(pattern: RegExp): Plugin {
   };
 }
 
+/**
+ * Marks the chunks every first screen runs with V8's explicit compile hint
+ * (`//# allFunctionsCalledOnLoad`, Chrome 136 and later; other engines read a comment): their
+ * functions are compiled while the file streams in, on a background thread, instead of one by
+ * one on the main thread the first time each is called, which is where a slow phone spends much
+ * of its start-up. Only for chunks whose functions nearly all run on load (React, the router,
+ * zod and the schemas being built); hinting everything would compile code that never runs.
+ */
+function compileHints(chunks: RegExp): Plugin {
+  return {
+    name: "phasebook-compile-hints",
+    apply: "build",
+    // After minification (which drops comments); the source map moves down the one added line.
+    generateBundle(_options, bundle) {
+      for (const chunk of Object.values(bundle)) {
+        if (chunk.type !== "chunk" || !chunks.test(chunk.name)) continue;
+        chunk.code = `//# allFunctionsCalledOnLoad\n${chunk.code}`;
+        if (chunk.map) chunk.map.mappings = `;${chunk.map.mappings}`;
+      }
+    },
+  };
+}
+
 const DATA_MODULES = /node_modules[\\/](zod|luxon)[\\/]|[\\/]shared[\\/]schemas[\\/]|[\\/]src[\\/](features[\\/][\w-]+[\\/]api|app[\\/]loaders[\\/][\w-]+-data\.ts$)|[\\/]src[\\/]lib[\\/]format\.ts$/;
 const SHELL_MODULES = /[\\/]src[\\/](components[\\/](ui|brand|errors)[\\/](?!table\.tsx)|lib[\\/](?!format\.ts)|config[\\/]|hooks[\\/]|layouts[\\/](auth-layout|public-demo-banner)\.tsx|app[\\/]loaders[\\/]load\.ts)/;
 
@@ -52,40 +75,15 @@ const DATA_AREAS: [string, RegExp][] = [
   ["data-office", DATA_MODULES],
 ];
 
-/**
- * Modulepreloads the sign-in screen's chunk and what it imports (the form library, which most
- * signed-in screens load too), so they arrive with the first scripts instead of a round trip
- * after them: the sign-in page is the first page of everyone who is not signed in.
- */
-function preloadSignIn(screen: RegExp): Plugin {
-  return {
-    name: "phasebook-preload-sign-in",
-    apply: "build",
-    transformIndexHtml: {
-      order: "post",
-      handler: (_html, ctx) => {
-        const bundle = ctx.bundle ?? {};
-        const entry = ctx.chunk;
-        const chunk = Object.values(bundle).find((c) => c.type === "chunk" && c.facadeModuleId !== null && screen.test(c.facadeModuleId));
-        if (!entry || !chunk || chunk.type !== "chunk") return [];
-        const already = new Set([entry.fileName, ...entry.imports]);
-        return [chunk.fileName, ...chunk.imports]
-          .filter((file) => !already.has(file))
-          .map((file) => ({ tag: "link", attrs: { rel: "modulepreload", crossorigin: "", href: `/${file}` }, injectTo: "head" as const }));
-      },
-    },
-  };
-}
-
 export default defineConfig({
   plugins: [
     react(),
     tailwindcss(),
+    compileHints(/^(framework|data|data-schedule|data-stock|shell)$/),
     preloadFonts(/ibm-plex-sans-latin-400-normal-[\w-]+\.woff2$/),
-    preloadSignIn(/[\\/]src[\\/]app[\\/]routes[\\/]sign-in\.tsx$/),
     // Brotli and gzip copies of every script, style sheet and SVG beside it, served by
     // express-static-gzip with the matching Content-Encoding (server/app.ts).
-    compression({ algorithms: ["brotliCompress", "gzip"], include: /\.(js|mjs|css|svg|json)$/, exclude: /\.map$/, threshold: 1024 }),
+    compression({ algorithms: ["brotliCompress", "gzip"], include: /\.(js|mjs|css|svg|json)$/, exclude: [/\.map$/, /\.vite[\\/]/], threshold: 1024 }),
   ],
   resolve: { alias },
   server: {
@@ -95,6 +93,9 @@ export default defineConfig({
   build: {
     outDir: "dist",
     sourcemap: true,
+    // dist/.vite/manifest.json: which chunks each screen needs. The server preloads the first
+    // screen's chunks into each page load (server/http/page-boot.ts); it is never served.
+    manifest: true,
     chunkSizeWarningLimit: 1500,
     rolldownOptions: {
       output: {

@@ -22,6 +22,8 @@ import { createCsrf } from "./http/csrf";
 import { apiDescriptionTable, docsAssets } from "./http/api-description";
 import type { RouteTable } from "./http/route-table";
 import { ROUTE_TABLES } from "./modules";
+import { facilitySettings } from "./modules/system";
+import { createPageBoot } from "./http/page-boot";
 
 /**
  * The request line and headers a server takes, in bytes: 64 KiB instead of Node's 16 KiB, so a
@@ -170,12 +172,17 @@ export function createApp(deps: AppDeps): CreatedApp {
   app.use("/api", apiNotFound);
 
   if (staticDir && clientBuilt) {
-    // The build's other files, and index.html for page loads only (revalidated on every load).
+    // The build's other files, and index.html for page loads only, with this load's session,
+    // facility and first screen's code written into it (page-boot.ts). It names the person, so
+    // it is private to this browser and asked for again on every load.
+    const pageBoot = createPageBoot(staticDir);
+    const facility = facilitySettings(deps.config);
     app.use(express.static(staticDir, { index: false, maxAge: "1h" }));
     app.get("/{*splat}", (req, res, next) => {
       if (!isNavigation(req)) return next();
-      res.setHeader("Cache-Control", "no-cache");
-      res.sendFile(path.join(staticDir, "index.html"));
+      res.setHeader("Cache-Control", "private, no-cache");
+      res.setHeader("Vary", "Cookie, Accept-Encoding");
+      res.type("html").send(pageBoot.html(req.path, { user: req.user ?? null, facility }));
     });
   }
   app.use((req, res) => sendProblem(res, 404, "not_found", `There is no page or file at ${req.originalUrl.split("?")[0]}.`));

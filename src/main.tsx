@@ -1,17 +1,30 @@
-/** Phasebook's client entry: mount the providers and the router into #root. */
-import { StrictMode } from "react";
+/**
+ * Phasebook's client entry. The router starts on the first address before React renders, so the
+ * first paint is the first screen itself (its code loaded, the session known from the page), not
+ * a spinner in front of it; until then the page shows the waiting line index.html carries. The
+ * first render runs as a transition: React renders it in slices and leaves the main thread free
+ * between them, instead of one long block on a slow phone.
+ */
+import { StrictMode, startTransition } from "react";
 import { createRoot } from "react-dom/client";
-import { AppProvider } from "./app/provider";
-import { AppRouter } from "./app/router";
+import { AppProvider, createAppQueryClient } from "./app/provider";
+import { AppRouter, createAppRouter, routerReady } from "./app/router";
 import "./styles/index.css";
 
 const root = document.getElementById("root");
 if (!root) throw new Error("index.html has no #root element");
 
-createRoot(root).render(
-  <StrictMode>
-    <AppProvider>
-      <AppRouter />
-    </AppProvider>
-  </StrictMode>,
+const queryClient = createAppQueryClient();
+const router = createAppRouter(queryClient);
+
+void routerReady(router).then(() =>
+  startTransition(() =>
+    createRoot(root).render(
+      <StrictMode>
+        <AppProvider client={queryClient}>
+          <AppRouter router={router} />
+        </AppProvider>
+      </StrictMode>,
+    ),
+  ),
 );

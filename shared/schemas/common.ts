@@ -39,6 +39,8 @@ export const boundedPageOf = <T extends z.ZodType>(item: T) => z.object({ items:
 
 /** The longest search text a list route takes; longer is 400. */
 export const SEARCH_MAX = 10_000;
+/** "10,000", written out: formatting the number with Intl would load locale data whenever the schemas load. */
+const SEARCH_MAX_TEXT = "10,000";
 
 /**
  * What a person types into a list's search box: any characters (quotes, operators, emoji), taken
@@ -47,7 +49,7 @@ export const SEARCH_MAX = 10_000;
  */
 export const searchText = z
   .string()
-  .max(SEARCH_MAX, `Search for at most ${SEARCH_MAX.toLocaleString("en")} characters`)
+  .max(SEARCH_MAX, `Search for at most ${SEARCH_MAX_TEXT} characters`)
   // eslint-disable-next-line no-control-regex
   .transform((s) => s.replace(/[\u0000-\u001f\u007f]+/g, " ").trim());
 

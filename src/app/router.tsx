@@ -30,6 +30,9 @@ const areas = () => import("./loaders/areas-data");
 const safety = () => import("./loaders/safety-data");
 
 export function createAppRouter(qc: QueryClient) {
+  // Until the router has shown its first screen, loaders do not wait for data (loaders/load.ts).
+  let opened = false;
+
   /** One screen: its code, its data (optional), the section error page; `roles` as its guard. */
   const screen = (path: string | undefined, code: Code, data?: Data, roles?: readonly Role[]): RouteObject => ({
     ...(path === undefined ? { index: true as const } : { path }),
@@ -39,7 +42,7 @@ export function createAppRouter(qc: QueryClient) {
       ...(data && {
         loader: async () => {
           const load = await data();
-          return (args: LoaderFunctionArgs) => runLoader(qc, args, load, roles);
+          return (args: LoaderFunctionArgs) => runLoader(qc, args, load, roles, !opened);
         },
       }),
     },
@@ -67,7 +70,7 @@ export function createAppRouter(qc: QueryClient) {
     hydrateFallbackElement: <FullPageSpinner />,
   });
 
-  return createBrowserRouter([
+  const router = createBrowserRouter([
     signedOut(paths.signIn.path, () => import("./routes/sign-in").then((m) => m.SignInRoute)),
     signedOut(paths.forgot.path, () => import("./routes/forgot-password").then((m) => m.ForgotPasswordRoute)),
     signedOut(paths.reset.path, () => import("./routes/reset-password").then((m) => m.ResetPasswordRoute)),
@@ -115,12 +118,31 @@ export function createAppRouter(qc: QueryClient) {
       ],
     },
   ]);
+  void routerReady(router).then(() => (opened = true));
+  return router;
 }
 
-export function AppRouter() {
+export type AppRouterInstance = ReturnType<typeof createAppRouter>;
+
+/** Resolves once the router has matched the first address, run its loaders and loaded its screen's code. */
+export function routerReady(router: AppRouterInstance): Promise<void> {
+  if (router.state.initialized) return Promise.resolve();
+  return new Promise((resolve) => {
+    const stop = router.subscribe((state) => {
+      if (!state.initialized) return;
+      stop();
+      resolve();
+    });
+  });
+}
+
+/**
+ * The router, created once per mounted app (main.tsx makes it before the first render, so the
+ * first screen is ready when React first paints; without one, as in tests, it is made here).
+ */
+export function AppRouter({ router: given }: { router?: AppRouterInstance }) {
   const qc = useQueryClient();
-  // Created once per mounted app, not at import time, so tests or a remount get a fresh history listener.
-  const [router] = useState(() => createAppRouter(qc));
+  const [router] = useState(() => given ?? createAppRouter(qc));
   useEffect(() => warmLinksOnIntent(router.routes), [router]);
   return <RouterProvider router={router} />;
 }

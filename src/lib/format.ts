@@ -8,9 +8,19 @@ import { zoneShortName } from "@shared/domain/facility-time";
 
 const DATE_TIME_OPTIONS: Intl.DateTimeFormatOptions = { weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" };
 const TIME_OPTIONS: Intl.DateTimeFormatOptions = { hour: "2-digit", minute: "2-digit" };
-const dateTime = new Intl.DateTimeFormat(undefined, DATE_TIME_OPTIONS);
-const time = new Intl.DateTimeFormat(undefined, TIME_OPTIONS);
-const dateOnly = new Intl.DateTimeFormat(undefined, { day: "numeric", month: "short", year: "numeric" });
+/**
+ * A formatter made on first use, not when the module loads: building the first Intl formatter
+ * loads the browser's locale data, a cost better paid by the screen that shows a date than by
+ * every page's start-up.
+ */
+function onFirstUse(options: Intl.DateTimeFormatOptions): { format(date: Date): string } {
+  let made: Intl.DateTimeFormat | undefined;
+  return { format: (date) => (made ??= new Intl.DateTimeFormat(undefined, options)).format(date) };
+}
+
+const dateTime = onFirstUse(DATE_TIME_OPTIONS);
+const time = onFirstUse(TIME_OPTIONS);
+const dateOnly = onFirstUse({ day: "numeric", month: "short", year: "numeric" });
 
 function sameDay(a: Date, b: Date): boolean {
   return a.getFullYear() === b.getFullYear() && a.getMonth() === b.getMonth() && a.getDate() === b.getDate();

@@ -15,7 +15,12 @@ import { startTestApp, type TestApp } from "../support/test-app";
 let t: TestApp;
 let dist: string;
 const BIG = `export const rows = ${JSON.stringify(Array.from({ length: 400 }, (_, i) => ({ container: i, solvent: "1,2-dichloroethane" })))};\n`;
-const PAGE = '<!doctype html><html><body><div id="root"></div><script type="module" src="/assets/index-Ab12Cd34.js"></script></body></html>';
+const PAGE = '<!doctype html><html><head><title>Phasebook</title></head><body><div id="root"></div><script type="module" src="/assets/index-Ab12Cd34.js"></script></body></html>';
+/** The page as a load by someone not signed in gets it: the session block written into its head (server/http/page-boot.ts). */
+const SIGNED_OUT_PAGE = PAGE.replace(
+  "</head>",
+  '<script type="application/json" id="phasebook-boot">{"facility":{"name":"Liquid Interfaces Core","timeZone":"America/Halifax","currency":"CAD","publicDemo":false},"user":null}</script></head>',
+);
 
 beforeAll(async () => {
   dist = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-dist-"));
@@ -62,15 +67,16 @@ describe("the built client", () => {
       const r = await get(p, BROWSER_PAGE);
       expect(r.status, p).toBe(200);
       expect(r.headers.get("content-type")).toMatch(/text\/html/);
-      expect(r.headers.get("cache-control")).toBe("no-cache");
-      expect(await r.text()).toBe(PAGE);
+      expect(r.headers.get("cache-control")).toBe("private, no-cache");
+      expect(r.headers.get("vary")).toMatch(/Cookie/);
+      expect(await r.text()).toBe(SIGNED_OUT_PAGE);
     }
   });
 
   it("gives the page to a request with no preference for a path without an extension, as curl sends", async () => {
     const r = await get("/schedule", "*/*");
     expect(r.status).toBe(200);
-    expect(await r.text()).toBe(PAGE);
+    expect(await r.text()).toBe(SIGNED_OUT_PAGE);
   });
 
   it("answers 404 to a missing image, script or JSON file outside /assets", async () => {
@@ -158,9 +164,9 @@ describe("compressed answers", () => {
   it("compresses index.html for a page load and keeps it revalidated", async () => {
     const r = await rawGet("/schedule", { accept: BROWSER_PAGE, "accept-encoding": "gzip" });
     expect(r.status).toBe(200);
-    expect(r.headers["cache-control"]).toBe("no-cache");
-    // Smaller than the 1 kB threshold here, so it may go plain; either way the page is intact.
+    expect(r.headers["cache-control"]).toBe("private, no-cache");
+    // Near the 1 kB threshold here, so it may go plain; either way the page is intact.
     const body = r.headers["content-encoding"] === "gzip" ? zlib.gunzipSync(r.body).toString() : r.body.toString();
-    expect(body).toBe(PAGE);
+    expect(body).toBe(SIGNED_OUT_PAGE);
   });
 });

@@ -59,6 +59,39 @@ describe("the client's delivery", () => {
     await page.context().close();
   });
 
+  it("opens a signed-in first load with its screen's code preloaded and the session known from the page", async () => {
+    const page = await newPage();
+    await signIn(page, server.url, MANAGER, DEMO_PASSWORD);
+    await page.locator('[data-testid="nav-home"]').waitFor();
+    const asked: string[] = [];
+    page.on("request", (r) => asked.push(new URL(r.url()).pathname));
+    const response = await page.goto(`${server.url}/stockroom`);
+    const html = (await response!.text()) ?? "";
+    expect(response!.headers()["cache-control"]).toBe("private, no-cache");
+    // The screen's own chunk and the signed-in frame come with the first scripts (server/http/page-boot.ts).
+    expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/stockroom-[A-Za-z0-9_-]{8}\.js">/);
+    expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/signed-in-frame-[A-Za-z0-9_-]{8}\.js">/);
+    expect(html).not.toMatch(/sign-in-[A-Za-z0-9_-]{8}\.js/);
+    expect(html).toContain('"email":"manager@kestrelbay.example"');
+    await page.locator("h1", { hasText: "Stockroom" }).waitFor();
+    await page.waitForLoadState("networkidle");
+    // Nobody asked who is signed in or where the facility is: the page said so.
+    expect(asked.filter((p) => p === "/api/auth/me" || p === "/api/facility")).toEqual([]);
+    expect(await page.locator("#phasebook-boot").count()).toBe(0);
+    await page.context().close();
+  });
+
+  it("sends a signed-out first load of a signed-in page the sign-in screen's code, and the sign-in page", async () => {
+    const page = await newPage();
+    const response = await page.goto(`${server.url}/schedule`);
+    const html = (await response!.text()) ?? "";
+    expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/sign-in-[A-Za-z0-9_-]{8}\.js">/);
+    expect(html).not.toMatch(/"email"/);
+    await page.waitForURL((u) => u.pathname === "/sign-in" && u.searchParams.get("next") === "/schedule", { timeout: 20_000 });
+    await page.locator('input[name="email"]').waitFor();
+    await page.context().close();
+  });
+
   for (const screen of [
     { nav: "stockroom", chunk: "stockroom", api: /\/api\/containers\?/ },
     { nav: "schedule", chunk: "schedule", api: /\/api\/bookings\?/ },

@@ -309,4 +309,26 @@ describe("the manager's training screens", () => {
     expect(records.some((r) => r.revokedAt !== null && r.notes === "Left the group")).toBe(true);
     await page.context().close();
   });
+
+  it("shows a phone the week as a list, books from it, and draws the calendar when asked", async () => {
+    const context = await browser.newContext({ viewport: { width: 412, height: 915 }, isMobile: true, hasTouch: true, timezoneId: FACILITY_TZ, locale: "en-GB" });
+    const page = await context.newPage();
+    const asked: string[] = [];
+    page.on("request", (r) => asked.push(new URL(r.url()).pathname));
+    await signIn(page, server.url, MEMBER);
+    await page.goto(`${server.url}/schedule`);
+    const show = page.locator('[data-testid="show-grid"]');
+    await show.waitFor({ timeout: 20_000 });
+    expect(await page.locator('[data-testid="schedule-week-list"]').count()).toBe(1);
+    expect(await page.locator(".fc").count()).toBe(0);
+    expect(asked.some((p) => /\/assets\/schedule-grid-/.test(p))).toBe(false);
+    // "Book a slot" works without the grid.
+    await page.locator('[data-testid="book-slot"]').click();
+    await page.getByRole("dialog", { name: "Book this slot" }).waitFor();
+    await page.keyboard.press("Escape");
+    await show.click();
+    await page.locator(".fc").first().waitFor({ timeout: 20_000 });
+    expect(await page.locator('[data-testid="schedule-week-list"]').count()).toBe(0);
+    await context.close();
+  });
 });

@@ -7,7 +7,7 @@ import { route, type RouteTable } from "../../http/route-table";
 import { hasRole } from "../../middleware/auth";
 import { NotFound } from "../../errors";
 import { dashboardFor } from "./dashboard.queries";
-import { auditPage, databaseAnswers, systemStatus } from "./system.queries";
+import { auditPage, databaseAnswers, facilitySettings, systemStatus } from "./system.queries";
 
 export const systemTable: RouteTable = {
   module: "system",
@@ -31,12 +31,7 @@ export const systemTable: RouteTable = {
       summary: "The facility's name, time zone and currency (the client shows local times in the facility's zone)",
       access: "public",
       output: facilityDto,
-      handler: ({ ctx }) => ({
-        name: ctx.config.FACILITY_NAME,
-        timeZone: ctx.config.FACILITY_TZ,
-        currency: ctx.config.CURRENCY,
-        publicDemo: ctx.config.publicDemo,
-      }),
+      handler: ({ ctx }) => facilitySettings(ctx.config),
     }),
     route({
       method: "get",

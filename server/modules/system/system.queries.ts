@@ -4,7 +4,14 @@ import { AuditEntry } from "../../entities";
 import { prepared } from "../../db/prepared";
 import type { Ctx } from "../../context";
 import type { SystemStatusDto } from "@shared/schemas/system";
+import type { FacilityDto } from "@shared/schemas/facility";
+import type { Config } from "../../config";
 import { readBackupStatus } from "../../ops/nightly-backup";
+
+/** The facility's name, zone and currency (GET /api/facility, and every page load's boot block). */
+export function facilitySettings(config: Config): FacilityDto {
+  return { name: config.FACILITY_NAME, timeZone: config.FACILITY_TZ, currency: config.CURRENCY, publicDemo: config.publicDemo };
+}
 
 /** True when the database answers a trivial query. */
 export function databaseAnswers(ds: DataSource): boolean {

@@ -1,0 +1,85 @@
+/**
+ * The page boot (server/http/page-boot.ts): its table of screens follows the client's route table,
+ * and the page it writes carries the session block and the first screen's preloads, read from a
+ * build manifest (a small one written here, shaped as Vite writes it).
+ */
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { createPageBoot, PAGE_MODULES } from "../../server/http/page-boot";
+import { searchText, SEARCH_MAX } from "../../shared/schemas/common";
+
+const facility = { name: "Liquid Interfaces Core", timeZone: "America/Halifax", currency: "CAD", publicDemo: false };
+const member: Express.User = { id: 7, email: "member@example.org", name: "A. Member", roles: ["member"], groupId: 2, leadOf: [], organisation: null };
+
+describe("the page boot's table of screens", () => {
+  const router = fs.readFileSync("src/app/router.tsx", "utf8");
+  const routed = new Set([...router.matchAll(/import\("\.\/(routes\/[\w/-]+|loaders\/[\w-]+)"\)/g)].map((m) => `src/app/${m[1]}`));
+  const listed = new Set(PAGE_MODULES.flatMap((p) => p.modules).map((m) => m.replace(/\.tsx?$/, "")));
+
+  it("names every screen and loader module the client's routes load, and only those", () => {
+    routed.delete("src/app/routes/signed-in-frame");
+    expect([...listed].sort()).toEqual([...routed].sort());
+    for (const m of PAGE_MODULES.flatMap((p) => p.modules)) expect(fs.existsSync(m), m).toBe(true);
+  });
+
+  it("has one entry per address the client's paths name", () => {
+    const paths = fs.readFileSync("src/config/paths.ts", "utf8");
+    const declared = [...paths.matchAll(/path: "([^"]+)"/g)].map((m) => m[1]!);
+    expect(PAGE_MODULES.map((p) => p.path).sort()).toEqual([...new Set(declared)].sort());
+  });
+});
+
+describe("the page a load gets", () => {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-page-boot-"));
+  afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
+  fs.mkdirSync(path.join(dir, ".vite"));
+  fs.writeFileSync(path.join(dir, "index.html"), '<html><head><script type="module" src="/assets/index-A.js"></script></head><body><div id="root"></div></body></html>');
+  fs.writeFileSync(
+    path.join(dir, ".vite", "manifest.json"),
+    JSON.stringify({
+      "index.html": { file: "assets/index-A.js", isEntry: true, imports: ["_framework-F.js"] },
+      "_framework-F.js": { file: "assets/framework-F.js" },
+      "_data-D.js": { file: "assets/data-D.js", imports: ["_framework-F.js"] },
+      "src/app/routes/signed-in-frame.tsx": { file: "assets/signed-in-frame-S.js", imports: ["_framework-F.js"] },
+      "src/app/routes/stockroom.tsx": { file: "assets/stockroom-R.js", imports: ["_data-D.js", "_framework-F.js"] },
+      "src/app/loaders/stockroom-data.ts": { file: "assets/stockroom-data-L.js", imports: ["_data-D.js"] },
+      "src/app/routes/sign-in.tsx": { file: "assets/sign-in-I.js", imports: ["_framework-F.js"] },
+    }),
+  );
+  const boot = createPageBoot(dir);
+  const block = (html: string) => JSON.parse(/<script type="application\/json" id="phasebook-boot">(.*?)<\/script>/.exec(html)![1]!) as unknown;
+  const preloads = (html: string) => [...html.matchAll(/rel="modulepreload" crossorigin href="\/([^"]+)"/g)].map((m) => m[1]);
+
+  it("preloads the signed-in person's screen, its loader and the frame, not what the entry loads already", () => {
+    const html = boot.html("/stockroom", { user: member, facility });
+    expect(preloads(html).sort()).toEqual(["assets/data-D.js", "assets/signed-in-frame-S.js", "assets/stockroom-R.js", "assets/stockroom-data-L.js"]);
+    expect(block(html)).toEqual({ facility, user: member });
+  });
+
+  it("sends a visitor who is not signed in the sign-in screen's code, whatever the address", () => {
+    const html = boot.html("/stockroom/", { user: null, facility });
+    expect(preloads(html)).toEqual(["assets/sign-in-I.js"]);
+    expect(block(html)).toEqual({ facility, user: null });
+  });
+
+  it("writes the person's data so that no text in it can end the script element", () => {
+    const html = boot.html("/", { user: { ...member, name: "</script><script>alert(1)</script>" }, facility });
+    expect(html.match(/<\/script>/g)).toHaveLength(2); // the entry's and the block's own
+    expect((block(html) as { user: { name: string } }).user.name).toBe("</script><script>alert(1)</script>");
+  });
+
+  it("leaves the session to GET /api/auth/me when the person does not fit the session schema", () => {
+    const html = boot.html("/", { user: { ...member, roles: "member" } as unknown as Express.User, facility });
+    expect(block(html)).toEqual({ facility });
+  });
+});
+
+describe("the search text's limit", () => {
+  it("is worded with the limit's own figure (written out so the schemas load without Intl)", () => {
+    const result = searchText.safeParse("x".repeat(SEARCH_MAX + 1));
+    expect(result.success).toBe(false);
+    expect(result.error?.issues[0]?.message).toBe(`Search for at most ${SEARCH_MAX.toLocaleString("en")} characters`);
+  });
+});
