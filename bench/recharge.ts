@@ -17,6 +17,7 @@ import { DateTime } from "luxon";
 import { finaliseRun } from "../server/modules/recharge/billing-run.commands";
 import { mailDueStatements } from "../server/modules/recharge/statement.commands";
 import type { RechargeDeps } from "../server/modules/recharge/recharge-deps";
+import { startProfiler, writeProfile } from "./support";
 
 export interface RechargeBenchOptions {
   period?: string;
@@ -230,22 +231,6 @@ async function main(): Promise<void> {
     await ds.destroy();
     fs.rmSync(dir, { recursive: true, force: true });
   }
-}
-
-/** Starts V8's CPU profiler in this process; the returned function stops it and gives the profile. */
-export async function startProfiler(): Promise<() => Promise<object>> {
-  const { Session } = await import("node:inspector/promises");
-  const session = new Session();
-  session.connect();
-  await session.post("Profiler.enable");
-  await session.post("Profiler.start");
-  return async () => (await session.post("Profiler.stop")).profile;
-}
-
-export function writeProfile(dir: string, name: string, profile: object): void {
-  const out = path.resolve(dir, `${name}-${Date.now()}.cpuprofile`);
-  fs.mkdirSync(path.dirname(out), { recursive: true });
-  fs.writeFileSync(out, JSON.stringify(profile));
 }
 
 if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) await main();

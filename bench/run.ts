@@ -28,6 +28,7 @@ import type { AddressInfo } from "node:net";
 import autocannon from "autocannon";
 import type { BenchScenario } from "./stockroom";
 import type { RechargeBenchResult } from "./recharge";
+import { benchSignIn, startProfiler, writeProfile, type BenchSession } from "./support";
 import { createRequests, INSTRUMENTS, weekRequests, YEARS, type ScheduleSeed } from "./schedule";
 import { fmt, printScaled, printSingle, type Figure } from "./report";
 
@@ -42,10 +43,7 @@ interface Ports {
   stockroom: { signIn: { email: string; password: string }; containerCount: number; scenarios: BenchScenario[] };
 }
 
-interface Session {
-  cookie: string;
-  csrf: string;
-}
+type Session = BenchSession;
 
 interface Scenario {
   id: string;
@@ -162,27 +160,11 @@ async function serve(scale: number): Promise<void> {
   process.send!({ ports });
   process.on("disconnect", () => {
     void (async () => {
-      if (profiler) writeProfile(`server-${scale}x`, await profiler());
+      if (profiler) writeProfile(process.env.BENCH_PROFILE!, `server-${scale}x`, await profiler());
       fs.rmSync(dir, { recursive: true, force: true });
       process.exit(0);
     })();
   });
-}
-
-/** Starts V8's CPU profiler in this process; the returned function stops it and gives the profile. */
-async function startProfiler(): Promise<() => Promise<object>> {
-  const { Session } = await import("node:inspector/promises");
-  const session = new Session();
-  session.connect();
-  await session.post("Profiler.enable");
-  await session.post("Profiler.start");
-  return async () => (await session.post("Profiler.stop")).profile;
-}
-
-function writeProfile(name: string, profile: object): void {
-  const out = path.resolve(process.env.BENCH_PROFILE!, `${name}-${Date.now()}.cpuprofile`);
-  fs.mkdirSync(path.dirname(out), { recursive: true });
-  fs.writeFileSync(out, JSON.stringify(profile));
 }
 
 /** The Recharge billing run, alone in this process and its own database. */
@@ -192,7 +174,7 @@ async function recharge(scale: number): Promise<void> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-bench-recharge-"));
   const ds = await openDatabase(path.join(dir, "bench.sqlite"));
   try {
-    const profile = process.env.BENCH_PROFILE ? { start: startProfiler, write: (part: string, p: object) => writeProfile(`recharge-${part}-${scale}x`, p) } : undefined;
+    const profile = process.env.BENCH_PROFILE ? { start: startProfiler, write: (part: string, p: object) => writeProfile(process.env.BENCH_PROFILE!, `recharge-${part}-${scale}x`, p) } : undefined;
     const result = await benchRechargeRun(ds, { bookings: 10_000 * scale, usages: 50_000 * scale, accounts: 60 * scale, profile });
     process.send!({ result });
   } catch (e) {
@@ -205,28 +187,6 @@ async function recharge(scale: number): Promise<void> {
 }
 
 // --- load generator ----------------------------------------------------------------------------
-
-async function signIn(base: string, who: { email: string; password: string }): Promise<Session> {
-  const cookies = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const i = pair.indexOf("=");
-      cookies.set(pair.slice(0, i), pair.slice(i + 1));
-    }
-  };
-  const header = () => [...cookies].map(([k, v]) => `${k}=${v}`).join("; ");
-  let r = await fetch(`${base}/api/auth/csrf`);
-  keep(r);
-  let csrf = ((await r.json()) as { token: string }).token;
-  r = await fetch(`${base}/api/auth/login`, { method: "POST", headers: { "content-type": "application/json", "x-csrf-token": csrf, cookie: header() }, body: JSON.stringify(who) });
-  if (r.status !== 200) throw new Error(`bench sign-in failed: ${r.status} ${await r.text()}`);
-  keep(r);
-  r = await fetch(`${base}/api/auth/csrf`, { headers: { cookie: header() } });
-  keep(r);
-  csrf = ((await r.json()) as { token: string }).token;
-  return { cookie: header(), csrf };
-}
 
 async function load(url: string, connections: number, requests: autocannon.Request[]) {
   const result = await autocannon({ url, connections, duration: SECONDS, requests, pipelining: 1 });
@@ -257,8 +217,8 @@ async function runAt(scale: number): Promise<Figure[]> {
   );
   const ctx = {
     ports,
-    session: await signIn(ports.app, { email: "bench@kestrelbay.example", password: "bench-password-1" }),
-    stockSession: await signIn(ports.app, ports.stockroom.signIn),
+    session: await benchSignIn(ports.app, "bench@kestrelbay.example", "bench-password-1"),
+    stockSession: await benchSignIn(ports.app, ports.stockroom.signIn.email, ports.stockroom.signIn.password),
   };
   const figures: Figure[] = [];
   const rps: Record<string, number> = {};

@@ -13,39 +13,13 @@ import os from "node:os";
 import path from "node:path";
 import type { AddressInfo } from "node:net";
 import { performance } from "node:perf_hooks";
+import { benchSignIn } from "./support";
 
 const FILES = 10;
 const ROWS = 20_000;
 const RUNS = 7;
 const GOAL_MS = 50;
 const GOAL_GROWTH = 2.5;
-
-interface Searcher {
-  cookie: string;
-}
-
-async function signIn(base: string, email: string, password: string): Promise<Searcher & { csrf: string }> {
-  const jar = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(";");
-      const at = pair.indexOf("=");
-      jar.set(pair.slice(0, at), pair.slice(at + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const t = await fetch(`${base}/api/auth/csrf`);
-  keep(t);
-  const { token } = (await t.json()) as { token: string };
-  const r = await fetch(`${base}/api/auth/login`, {
-    method: "POST",
-    headers: { "content-type": "application/json", "x-csrf-token": token, cookie: cookie() },
-    body: JSON.stringify({ email, password }),
-  });
-  if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`);
-  keep(r);
-  return { cookie: cookie(), csrf: token };
-}
 
 function csvFile(file: number, chemicals: { casNumber: string; name: string }[], locationId: number): string {
   const suppliers = ["Kestrel Chemicals Supply", "Bayside Reagents", "Northshore Solvents"];
@@ -75,7 +49,7 @@ async function main() {
     const server = app.listen(0, "127.0.0.1");
     await new Promise((resolve) => server.once("listening", resolve));
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-    const officer = await signIn(base, "safety@kestrelbay.example", DEMO_PASSWORD);
+    const officer = await benchSignIn(base, "safety@kestrelbay.example", DEMO_PASSWORD);
 
     // Liquids the demo keeps (by CAS), received into its flammables cabinet.
     const chemicals = (await ds.query(
