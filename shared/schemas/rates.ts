@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { id, isoDate, pageOf } from "./common";
+import { INSTRUMENT_KINDS, instrumentKind } from "./instruments";
 
 export const CUSTOMER_CLASSES = ["internal", "external_academic", "commercial"] as const;
 export const customerClass = z.enum(CUSTOMER_CLASSES);
@@ -15,8 +16,8 @@ export const CUSTOMER_CLASS_LABELS: Record<CustomerClassName, string> = {
   commercial: "Commercial",
 };
 
-export const INSTRUMENT_KINDS = ["potentiostat", "interface_cell", "support"] as const;
-export const instrumentKind = z.enum(INSTRUMENT_KINDS);
+// Rates are set per instrument kind: the kinds the instruments' own schema defines.
+export { INSTRUMENT_KINDS, instrumentKind };
 
 
 /** Whole cents in an input, with the field's name in the message. */
