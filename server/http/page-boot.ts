@@ -73,7 +73,7 @@ interface ManifestChunk {
 }
 type Manifest = Record<string, ManifestChunk>;
 
-/** Every file a manifest entry needs (its own and its static imports', depth first), once each. */
+/** Every file a manifest entry needs (its own and its static imports', depth first), skipping entries in `seen`. */
 function filesOf(manifest: Manifest, key: string, seen = new Set<string>()): string[] {
   const chunk = manifest[key];
   if (!chunk || seen.has(key)) return [];
@@ -108,7 +108,7 @@ export function createPageBoot(staticDir: string): PageBoot {
   const inTemplate = new Set(entryKey ? filesOf(manifest, entryKey) : []);
   const preloadsFor = (modules: string[]) => {
     const seen = new Set<string>();
-    const files = [...new Set(modules.flatMap((m) => filesOf(manifest, m, seen)))].filter((file) => !inTemplate.has(file));
+    const files = modules.flatMap((m) => filesOf(manifest, m, seen)).filter((file) => !inTemplate.has(file));
     return files.map((file) => `<link rel="modulepreload" crossorigin href="/${file}">`).join("");
   };
   const cache = new Map<string, string>();

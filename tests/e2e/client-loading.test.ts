@@ -66,7 +66,7 @@ describe("the client's delivery", () => {
     const asked: string[] = [];
     page.on("request", (r) => asked.push(new URL(r.url()).pathname));
     const response = await page.goto(`${server.url}/stockroom`);
-    const html = (await response!.text()) ?? "";
+    const html = await response!.text();
     expect(response!.headers()["cache-control"]).toBe("private, no-cache");
     // The screen's own chunk and the signed-in frame come with the first scripts (server/http/page-boot.ts).
     expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/stockroom-[A-Za-z0-9_-]{8}\.js">/);
@@ -84,7 +84,7 @@ describe("the client's delivery", () => {
   it("sends a signed-out first load of a signed-in page the sign-in screen's code, and the sign-in page", async () => {
     const page = await newPage();
     const response = await page.goto(`${server.url}/schedule`);
-    const html = (await response!.text()) ?? "";
+    const html = await response!.text();
     expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/sign-in-[A-Za-z0-9_-]{8}\.js">/);
     expect(html).not.toMatch(/"email"/);
     await page.waitForURL((u) => u.pathname === "/sign-in" && u.searchParams.get("next") === "/schedule", { timeout: 20_000 });

@@ -141,7 +141,7 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   // The opening week until the grid says what it shows: the same query the route's loader sent.
   const [range, setRange] = useState<ScheduleWindow>(() => openingWeek(zone));
   const [gridWanted, setGridWanted] = useState(false);
-  const [gridOnRequest, setGridOnRequest] = useState(false);
+  const [phone] = useState(() => window.matchMedia?.(PHONE_WIDTH).matches ?? false);
   const [title, setTitle] = useState("");
   const [view, setView] = useState<ScheduleView>("timeGridWeek");
   const [opened, setOpened] = useState<BookingListItem | null>(null);
@@ -172,17 +172,14 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   // there, the list reads better, "Book a slot" books without the grid, and the phone is spared
   // the grid's code and layout, the heaviest work of any screen.
   useEffect(() => {
-    if (window.matchMedia?.(PHONE_WIDTH).matches) {
-      setGridOnRequest(true);
-      return;
-    }
+    if (phone) return;
     let timer: ReturnType<typeof setTimeout> | undefined;
     const frame = requestAnimationFrame(() => (timer = setTimeout(() => setGridWanted(true))));
     return () => {
       cancelAnimationFrame(frame);
       clearTimeout(timer);
     };
-  }, []);
+  }, [phone]);
 
   const onDates = (arg: DatesSetArg) => {
     const shown = windowOfView(arg.view);
@@ -196,7 +193,7 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
     [bookings.data, visibleIds, names],
   );
 
-  const list = <WeekList events={events} zone={zone} loading={bookings.isPending} onShowGrid={gridOnRequest && !gridWanted ? () => setGridWanted(true) : undefined} />;
+  const list = <WeekList events={events} zone={zone} loading={bookings.isPending} onShowGrid={phone ? () => setGridWanted(true) : undefined} />;
 
   const preselected = instrumentId ? [Number(instrumentId)] : setup ? setup.instrumentIds : [];
 
