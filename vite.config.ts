@@ -60,7 +60,7 @@ function compileHints(chunks: RegExp): Plugin {
   };
 }
 
-const DATA_MODULES = /node_modules[\\/](zod|luxon)[\\/]|[\\/]shared[\\/]schemas[\\/]|[\\/]src[\\/](features[\\/][\w-]+[\\/]api|app[\\/]loaders[\\/][\w-]+-data\.ts$)|[\\/]src[\\/]lib[\\/]format\.ts$/;
+const DATA_MODULES = /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/]|[\\/]src[\\/](features[\\/][\w-]+[\\/]api|app[\\/]loaders[\\/][\w-]+-data\.ts$)|[\\/]src[\\/]lib[\\/]format\.ts$/;
 const SHELL_MODULES = /[\\/]src[\\/](components[\\/](ui|brand|errors)[\\/](?!table\.tsx)|lib[\\/](?!format\.ts)|config[\\/]|hooks[\\/]|layouts[\\/](auth-layout|public-demo-banner)\.tsx|app[\\/]loaders[\\/]load\.ts)/;
 
 /**
@@ -69,8 +69,8 @@ const SHELL_MODULES = /[\\/]src[\\/](components[\\/](ui|brand|errors)[\\/](?!tab
  * first queries can start. Earlier groups take a module first (with what it imports).
  */
 const DATA_AREAS: [string, RegExp][] = [
-  ["data", /node_modules[\\/](zod|luxon)[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility|bookings)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$/],
-  ["data-schedule", /[\\/]shared[\\/]schemas[\\/](instruments|setups|training|reports)\.ts$|[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
+  ["data", /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility|bookings|instruments)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$/],
+  ["data-schedule", /[\\/]shared[\\/]schemas[\\/](setups|training|reports)\.ts$|[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
   ["data-stock", /[\\/]shared[\\/]schemas[\\/](stock|storage|safety|labels|ion-table|run-plans|run-plan-records)\.ts$|[\\/]features[\\/](stockroom|safety|labels|run-plans)[\\/]api[\\/]|[\\/]loaders[\\/](stockroom|safety)-data\.ts$/],
   ["data-office", DATA_MODULES],
 ];
@@ -104,6 +104,9 @@ export default defineConfig({
         codeSplitting: {
           groups: [
             { name: "framework", test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom|@tanstack[\\/](react-query|query-core))[\\/]/, priority: 30 },
+            // The date library, only for the screens that do arithmetic on the facility's clock
+            // (the Schedule, booking and training forms); showing times needs only Intl.
+            { name: "luxon", test: /node_modules[\\/]luxon[\\/]/, priority: 25 },
             // What the signed-in screens' data needs: zod, the shared schemas, each feature's
             // queries and the route loaders, and the facility's clock (luxon). One chunk instead of
             // a dozen small ones: on a slow link each request costs a round trip of its own.

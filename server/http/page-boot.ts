@@ -11,9 +11,12 @@
  *   instead of after them. A visitor who is not signed in gets the sign-in screen's code
  *   whatever the address: that is where the client sends them.
  *
- * PAGE_MODULES follows the client's route table (src/app/router.tsx): each screen's code and
- * loader module. tests/unit/page-boot.test.ts checks that both name the same screens, and the
- * browser suite checks the built manifest holds every module named here.
+ * PAGE_MODULES follows the client's route table (src/app/router.tsx): each address's screen
+ * module. The route loaders need no line: the build puts them in their area's data chunk
+ * (vite.config.ts), which the screen's own code imports, so they come with its preloads.
+ * tests/unit/page-boot.test.ts checks that the table and the router name the same screens and
+ * every address of src/config/paths.ts; tests/e2e/client-loading.test.ts checks that the built
+ * manifest holds every screen named here.
  */
 import fs from "node:fs";
 import path from "node:path";
@@ -23,40 +26,39 @@ import type { FacilityDto } from "@shared/schemas/facility";
 const FRAME = "src/app/routes/signed-in-frame.tsx";
 const SIGN_IN = "src/app/routes/sign-in.tsx";
 const routes = (name: string) => `src/app/routes/${name}.tsx`;
-const loaders = (name: string) => `src/app/loaders/${name}-data.ts`;
 
-/** Address pattern → the modules its screen loads first; `public` pages need no sign-in. */
-export const PAGE_MODULES: { path: string; modules: string[]; public?: true }[] = [
-  { path: "/sign-in", modules: [SIGN_IN], public: true },
-  { path: "/forgot-password", modules: [routes("forgot-password")], public: true },
-  { path: "/reset-password/:token", modules: [routes("reset-password")], public: true },
-  { path: "/", modules: [routes("home"), loaders("areas")] },
-  { path: "/schedule", modules: [routes("schedule"), loaders("schedule")] },
-  { path: "/schedule/approvals", modules: [routes("approvals"), loaders("schedule")] },
-  { path: "/schedule/utilisation", modules: [routes("utilisation")] },
-  { path: "/schedule/settings", modules: [routes("schedule-settings"), loaders("schedule")] },
-  { path: "/bookings", modules: [routes("my-bookings"), loaders("schedule")] },
-  { path: "/instruments", modules: [routes("instruments"), loaders("schedule")] },
-  { path: "/instruments/:id", modules: [routes("instrument"), loaders("schedule")] },
-  { path: "/training", modules: [routes("training"), loaders("schedule")] },
-  { path: "/stockroom", modules: [routes("stockroom"), loaders("stockroom")] },
-  { path: "/stockroom/chemicals", modules: [routes("stockroom"), loaders("stockroom")] },
-  { path: "/stockroom/chemicals/:id", modules: [routes("stockroom-chemical"), loaders("stockroom")] },
-  { path: "/stockroom/containers/:id", modules: [routes("stockroom-container"), loaders("stockroom")] },
-  { path: "/stockroom/receive", modules: [routes("stockroom-receive"), loaders("stockroom")] },
-  { path: "/stockroom/prepare", modules: [routes("stockroom-prepare"), loaders("stockroom")] },
-  { path: "/stockroom/import", modules: [routes("stockroom-import")] },
-  { path: "/run-plans/new", modules: [routes("run-plan-new")] },
-  { path: "/run-plans/:id", modules: [routes("run-plan")] },
-  { path: "/scan", modules: [routes("scan")] },
-  { path: "/s/:token", modules: [routes("scan-token"), loaders("stockroom")] },
-  { path: "/recharge", modules: [routes("recharge")] },
-  { path: "/charges", modules: [routes("my-charges")] },
-  { path: "/safety", modules: [routes("safety"), loaders("safety")] },
-  { path: "/safety/locations", modules: [routes("safety"), loaders("safety")] },
-  { path: "/admin/people", modules: [routes("admin/people"), loaders("areas")] },
-  { path: "/admin/mailbox", modules: [routes("admin/mailbox"), loaders("areas")] },
-  { path: "/profile", modules: [routes("profile")] },
+/** Address pattern → its screen's module; `public` pages need no sign-in. */
+export const PAGE_MODULES: { path: string; screen: string; public?: true }[] = [
+  { path: "/sign-in", screen: SIGN_IN, public: true },
+  { path: "/forgot-password", screen: routes("forgot-password"), public: true },
+  { path: "/reset-password/:token", screen: routes("reset-password"), public: true },
+  { path: "/", screen: routes("home") },
+  { path: "/schedule", screen: routes("schedule") },
+  { path: "/schedule/approvals", screen: routes("approvals") },
+  { path: "/schedule/utilisation", screen: routes("utilisation") },
+  { path: "/schedule/settings", screen: routes("schedule-settings") },
+  { path: "/bookings", screen: routes("my-bookings") },
+  { path: "/instruments", screen: routes("instruments") },
+  { path: "/instruments/:id", screen: routes("instrument") },
+  { path: "/training", screen: routes("training") },
+  { path: "/stockroom", screen: routes("stockroom") },
+  { path: "/stockroom/chemicals", screen: routes("stockroom") },
+  { path: "/stockroom/chemicals/:id", screen: routes("stockroom-chemical") },
+  { path: "/stockroom/containers/:id", screen: routes("stockroom-container") },
+  { path: "/stockroom/receive", screen: routes("stockroom-receive") },
+  { path: "/stockroom/prepare", screen: routes("stockroom-prepare") },
+  { path: "/stockroom/import", screen: routes("stockroom-import") },
+  { path: "/run-plans/new", screen: routes("run-plan-new") },
+  { path: "/run-plans/:id", screen: routes("run-plan") },
+  { path: "/scan", screen: routes("scan") },
+  { path: "/s/:token", screen: routes("scan-token") },
+  { path: "/recharge", screen: routes("recharge") },
+  { path: "/charges", screen: routes("my-charges") },
+  { path: "/safety", screen: routes("safety") },
+  { path: "/safety/locations", screen: routes("safety") },
+  { path: "/admin/people", screen: routes("admin/people") },
+  { path: "/admin/mailbox", screen: routes("admin/mailbox") },
+  { path: "/profile", screen: routes("profile") },
 ];
 
 /** Whether `pathname` is an address of `pattern` (":name" stands for any one non-empty segment). */
@@ -124,8 +126,8 @@ export function createPageBoot(staticDir: string): PageBoot {
       const page = PAGE_MODULES.find((p) => matches(p.path, pathname));
       const signedIn = facts.user !== null;
       let modules: string[] = [];
-      if (!signedIn) modules = page?.public ? page.modules : [SIGN_IN];
-      else if (page && !page.public) modules = [FRAME, ...page.modules];
+      if (!signedIn) modules = [page?.public ? page.screen : SIGN_IN];
+      else if (page && !page.public) modules = [FRAME, page.screen];
       // A person the session schema does not describe is left to GET /api/auth/me to explain.
       const session = signedIn ? sessionDto.safeParse({ user: facts.user }) : null;
       const boot = { facility: facts.facility, ...(session === null ? { user: null } : session.success ? { user: session.data.user } : {}) };

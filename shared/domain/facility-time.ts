@@ -139,10 +139,7 @@ export function resolveWallClock(value: string, zone: string): WallClockResoluti
   };
 }
 
-/** The zone's short name at that instant ("AST" in winter, "ADT" in summer for Halifax), for labels. */
-export function zoneShortName(at: Instant, zone: string, locale = "en-US"): string {
-  return DateTime.fromMillis(typeof at === "number" ? at : at.getTime(), { zone }).setLocale(locale).offsetNameShort ?? zone;
-}
+export { zoneShortName } from "./zone-labels";
 
 export type ZonedIsoCheck = { ok: true } | { ok: false; code: "skipped_time"; message: string };
 

@@ -16,6 +16,7 @@
 import { DateTime } from "luxon";
 import { facilityZone } from "./zones";
 import { type Instant, toMs } from "./intervals";
+import { MAX_WEEKLY_OCCURRENCES } from "./recurrence-limits";
 
 export interface Occurrence {
   /** 0 for the first session. */
@@ -32,8 +33,7 @@ export interface WeeklyInput {
   tz: string;
 }
 
-/** The longest campaign a single request may create (two years of weekly sessions). */
-export const MAX_WEEKLY_OCCURRENCES = 104;
+export { MAX_WEEKLY_OCCURRENCES };
 
 export function weeklyOccurrences({ start, end, weeks, tz }: WeeklyInput): Occurrence[] {
   const startMs = toMs(start);

@@ -1,7 +1,7 @@
 /** Bookings on the Schedule: inputs, queries and DTOs shared by the booking form and the API. */
 import { z } from "zod";
 import { isoDateTime, pageQuery, id as idSchema, wholeNumber } from "./common";
-import { MAX_WEEKLY_OCCURRENCES } from "../domain/recurrence";
+import { MAX_WEEKLY_OCCURRENCES } from "../domain/recurrence-limits";
 
 export const BOOKING_STATUSES = ["requested", "confirmed", "declined", "cancelled", "in_progress", "completed", "no_show"] as const;
 export const bookingStatus = z.enum(BOOKING_STATUSES);

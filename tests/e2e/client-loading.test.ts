@@ -6,7 +6,9 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page, Route } from "playwright-core";
+import fs from "node:fs";
 import { DEMO_PASSWORD, launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
+import { PAGE_MODULES } from "../../server/http/page-boot";
 
 let server: RunningServer;
 let browser: Browser;
@@ -57,6 +59,12 @@ describe("the client's delivery", () => {
     await expect.poll(() => page.getByText("Enter your e-mail address").count(), { timeout: 10_000 }).toBeGreaterThan(0);
     expect(scripts.some((s) => /\/zod-/.test(s.url))).toBe(true);
     await page.context().close();
+  });
+
+  it("finds every screen the page boot names in the build's manifest, so each address gets its preloads", () => {
+    const manifest = JSON.parse(fs.readFileSync("dist/.vite/manifest.json", "utf8")) as Record<string, { file: string }>;
+    const missing = [...new Set(PAGE_MODULES.map((p) => p.screen)), "src/app/routes/signed-in-frame.tsx"].filter((m) => !manifest[m]);
+    expect(missing).toEqual([]);
   });
 
   it("opens a signed-in first load with its screen's code preloaded and the session known from the page", async () => {

@@ -15,13 +15,13 @@ const member: Express.User = { id: 7, email: "member@example.org", name: "A. Mem
 
 describe("the page boot's table of screens", () => {
   const router = fs.readFileSync("src/app/router.tsx", "utf8");
-  const routed = new Set([...router.matchAll(/import\("\.\/(routes\/[\w/-]+|loaders\/[\w-]+)"\)/g)].map((m) => `src/app/${m[1]}`));
-  const listed = new Set(PAGE_MODULES.flatMap((p) => p.modules).map((m) => m.replace(/\.tsx?$/, "")));
+  const routed = new Set([...router.matchAll(/import\("\.\/(routes\/[\w/-]+)"\)/g)].map((m) => `src/app/${m[1]}`));
+  const listed = new Set(PAGE_MODULES.map((p) => p.screen.replace(/\.tsx$/, "")));
 
-  it("names every screen and loader module the client's routes load, and only those", () => {
+  it("names every screen module the client's routes load, and only those", () => {
     routed.delete("src/app/routes/signed-in-frame");
     expect([...listed].sort()).toEqual([...routed].sort());
-    for (const m of PAGE_MODULES.flatMap((p) => p.modules)) expect(fs.existsSync(m), m).toBe(true);
+    for (const { screen } of PAGE_MODULES) expect(fs.existsSync(screen), screen).toBe(true);
   });
 
   it("has one entry per address the client's paths name", () => {
@@ -44,7 +44,6 @@ describe("the page a load gets", () => {
       "_data-D.js": { file: "assets/data-D.js", imports: ["_framework-F.js"] },
       "src/app/routes/signed-in-frame.tsx": { file: "assets/signed-in-frame-S.js", imports: ["_framework-F.js"] },
       "src/app/routes/stockroom.tsx": { file: "assets/stockroom-R.js", imports: ["_data-D.js", "_framework-F.js"] },
-      "src/app/loaders/stockroom-data.ts": { file: "assets/stockroom-data-L.js", imports: ["_data-D.js"] },
       "src/app/routes/sign-in.tsx": { file: "assets/sign-in-I.js", imports: ["_framework-F.js"] },
     }),
   );
@@ -52,9 +51,9 @@ describe("the page a load gets", () => {
   const block = (html: string) => JSON.parse(/<script type="application\/json" id="phasebook-boot">(.*?)<\/script>/.exec(html)![1]!) as unknown;
   const preloads = (html: string) => [...html.matchAll(/rel="modulepreload" crossorigin href="\/([^"]+)"/g)].map((m) => m[1]);
 
-  it("preloads the signed-in person's screen, its loader and the frame, not what the entry loads already", () => {
+  it("preloads the signed-in person's screen, what it imports and the frame, not what the entry loads already", () => {
     const html = boot.html("/stockroom", { user: member, facility });
-    expect(preloads(html).sort()).toEqual(["assets/data-D.js", "assets/signed-in-frame-S.js", "assets/stockroom-R.js", "assets/stockroom-data-L.js"]);
+    expect(preloads(html)).toEqual(["assets/signed-in-frame-S.js", "assets/stockroom-R.js", "assets/data-D.js"]);
     expect(block(html)).toEqual({ facility, user: member });
   });
 
