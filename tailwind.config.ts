@@ -130,7 +130,8 @@ const colours = Object.fromEntries(
 );
 
 const config: Config = {
-  content: ["./index.html", "./src/**/*.{ts,tsx}"],
+  // The server writes the frame's outline into signed-in page loads (server/http/page-boot.ts).
+  content: ["./index.html", "./src/**/*.{ts,tsx}", "./server/http/page-boot.ts"],
   theme: {
     extend: {
       colors: { ...colours, white: "var(--pb-white)" },

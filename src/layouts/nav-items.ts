@@ -3,6 +3,7 @@
  * roles add their areas. This only shapes the menu: the server checks every request itself.
  */
 import type { Role } from "@shared/schemas/auth";
+import { AREA_ROLES } from "@shared/screens";
 import { paths } from "@/config/paths";
 import { hasRole } from "@/lib/auth";
 import type { NavIconName } from "./nav-icons";
@@ -26,13 +27,8 @@ export const NAV_GROUP_LABELS: Record<NavGroup, string> = {
   admin: "Administration",
 };
 
-/** The route guard for each area uses the same roles as its menu entry. */
-export const AREA_ROLES = {
-  training: ["manager"],
-  recharge: ["manager", "group_lead"],
-  safety: ["manager", "safety_officer"],
-  admin: ["admin"],
-} as const satisfies Record<string, readonly Role[]>;
+/** The route guard for each area uses the same roles as its menu entry (the server's page boot too). */
+export { AREA_ROLES };
 
 export const NAV_ITEMS: readonly NavItem[] = [
   { slug: "home", label: "Home", to: paths.home.getHref(), icon: "home", group: "work" },

@@ -8,7 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page, Route } from "playwright-core";
 import fs from "node:fs";
 import { DEMO_PASSWORD, launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
-import { PAGE_MODULES } from "../../server/http/page-boot";
+import { INTL_WARM_UP, PAGE_MODULES } from "../../server/http/page-boot";
+import { SCREEN_HEADS } from "../../shared/screens";
 
 let server: RunningServer;
 let browser: Browser;
@@ -73,6 +74,10 @@ describe("the client's delivery", () => {
     await page.locator('[data-testid="nav-home"]').waitFor();
     const asked: string[] = [];
     page.on("request", (r) => asked.push(new URL(r.url()).pathname));
+    const refused: string[] = [];
+    page.on("console", (m) => {
+      if (/Content Security Policy/i.test(m.text())) refused.push(m.text());
+    });
     const response = await page.goto(`${server.url}/stockroom`);
     const html = await response!.text();
     expect(response!.headers()["cache-control"]).toBe("private, no-cache");
@@ -81,8 +86,16 @@ describe("the client's delivery", () => {
     expect(html).toMatch(/<link rel="modulepreload" crossorigin href="\/assets\/signed-in-frame-[A-Za-z0-9_-]{8}\.js">/);
     expect(html).not.toMatch(/sign-in-[A-Za-z0-9_-]{8}\.js/);
     expect(html).toContain('"email":"manager@kestrelbay.example"');
-    await page.locator("h1", { hasText: "Stockroom" }).waitFor();
+    // The page says what it is before its code arrives: the Stockroom's head, as the screen draws it.
+    const { title, description } = SCREEN_HEADS.stockroom;
+    expect(html).toContain(`>${title}</h1><p class="mt-0.5 max-w-3xl text-grey-600">${description}</p>`);
+    expect(html).toContain(`<script>${INTL_WARM_UP}</script>`);
+    await page.locator('[data-testid="nav-stockroom"]').waitFor();
+    await expect.poll(() => page.locator("h1").allTextContents()).toEqual([title]);
+    expect(await page.locator("h1 + p").first().textContent()).toBe(description);
     await page.waitForLoadState("networkidle");
+    // The locale line runs under the page's Content-Security-Policy (its hash is allowed).
+    expect(refused).toEqual([]);
     // Nobody asked who is signed in or where the facility is: the page said so.
     expect(asked.filter((p) => p === "/api/auth/me" || p === "/api/facility")).toEqual([]);
     expect(await page.locator("#phasebook-boot").count()).toBe(0);

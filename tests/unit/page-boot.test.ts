@@ -7,7 +7,9 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { createPageBoot, PAGE_MODULES } from "../../server/http/page-boot";
+import { createPageBoot, INTL_WARM_UP, PAGE_MODULES } from "../../server/http/page-boot";
+import { paths } from "../../src/config/paths";
+import { SCREEN_HEADS } from "../../shared/screens";
 import { searchText, SEARCH_MAX } from "../../shared/schemas/common";
 
 const facility = { name: "Liquid Interfaces Core", timeZone: "America/Halifax", currency: "CAD", publicDemo: false };
@@ -24,6 +26,23 @@ describe("the page boot's table of screens", () => {
     for (const { screen } of PAGE_MODULES) expect(fs.existsSync(screen), screen).toBe(true);
   });
 
+  it("gives each address the area whose roles guard its route, and no area to the others", () => {
+    // "admin.people" → paths.admin.people.path
+    const pathOf = (ref: string) => (ref.split(".").reduce<unknown>((o, k) => (o as Record<string, unknown>)[k], paths) as { path: string }).path;
+    const guarded = new Map<string, string>();
+    for (const block of router.matchAll(/restricted\(AREA_ROLES\.(\w+), \[([\s\S]*?)\]\),\n/g))
+      for (const ref of block[2]!.matchAll(/\[paths\.([\w.]+)\.path,/g)) guarded.set(pathOf(ref[1]!), block[1]!);
+    expect(guarded.size).toBeGreaterThan(8);
+    for (const page of PAGE_MODULES) expect(page.area, page.path).toBe(guarded.get(page.path));
+  });
+
+  it("names for each head the screen that shows it: the screen's module uses those words", () => {
+    const shown = (screen: string) => fs.readFileSync(screen, "utf8") + (screen.endsWith("recharge.tsx") ? fs.readFileSync("src/features/recharge/components/recharge-page.tsx", "utf8") : "");
+    for (const page of PAGE_MODULES.filter((p) => p.head)) expect(shown(page.screen), page.path).toContain(`SCREEN_HEADS.${page.head}`);
+    // Every head is written for some address.
+    expect(new Set(PAGE_MODULES.map((p) => p.head).filter(Boolean))).toEqual(new Set(Object.keys(SCREEN_HEADS)));
+  });
+
   it("has one entry per address the client's paths name", () => {
     const paths = fs.readFileSync("src/config/paths.ts", "utf8");
     const declared = [...paths.matchAll(/path: "([^"]+)"/g)].map((m) => m[1]!);
@@ -35,7 +54,10 @@ describe("the page a load gets", () => {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "phasebook-page-boot-"));
   afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
   fs.mkdirSync(path.join(dir, ".vite"));
-  fs.writeFileSync(path.join(dir, "index.html"), '<html><head><script type="module" src="/assets/index-A.js"></script></head><body><div id="root"></div></body></html>');
+  fs.writeFileSync(
+    path.join(dir, "index.html"),
+    '<html><head><title>Phasebook</title><script type="module" src="/assets/index-A.js"></script></head><body><div id="root"><div role="status">Loading Phasebook…</div></div>\n<noscript>JavaScript, please.</noscript></body></html>',
+  );
   fs.writeFileSync(
     path.join(dir, ".vite", "manifest.json"),
     JSON.stringify({
@@ -65,8 +87,34 @@ describe("the page a load gets", () => {
 
   it("writes the person's data so that no text in it can end the script element", () => {
     const html = boot.html("/", { user: { ...member, name: "</script><script>alert(1)</script>" }, facility });
-    expect(html.match(/<\/script>/g)).toHaveLength(2); // the entry's and the block's own
+    expect(html.match(/<\/script>/g)).toHaveLength(3); // the entry's, the locale line's and the block's own
     expect((block(html) as { user: { name: string } }).user.name).toBe("</script><script>alert(1)</script>");
+  });
+
+  const rootOf = (html: string) => /<div id="root">([\s\S]*)<\/div>\n<noscript>/.exec(html)![1]!;
+
+  it("writes a signed-in screen's title and description into its page, above the waiting line, with the locale line", () => {
+    const html = boot.html("/stockroom", { user: member, facility });
+    expect(html).toContain("<title>Stockroom · Phasebook</title>");
+    const root = rootOf(html);
+    expect(root).toContain('<h1 class="text-lg font-semibold tracking-tight text-grey-900">Stockroom</h1>');
+    // "container's": words are written as they are, with only &, <, > and " escaped.
+    expect(root).toContain(`<p class="mt-0.5 max-w-3xl text-grey-600">${SCREEN_HEADS.stockroom.description}</p>`);
+    expect(root).toMatch(/<\/p><\/div><\/div><div role="status">Loading Phasebook…<\/div>/);
+    expect(html).toContain(`<script>${INTL_WARM_UP}</script><title>`);
+  });
+
+  it("writes no head the person may not open, none for a record's page, and nothing but the waiting line when signed out", () => {
+    for (const address of ["/safety", "/admin/people", "/stockroom/chemicals/12"]) {
+      const html = boot.html(address, { user: member, facility });
+      expect(rootOf(html), address).toBe('<div role="status">Loading Phasebook…</div>');
+      expect(html).toContain("<title>Phasebook</title>");
+    }
+    const officer = { ...member, roles: ["safety_officer" as const] };
+    expect(rootOf(boot.html("/safety", { user: officer, facility }))).toContain(">Safety review</h1>");
+    const signedOut = boot.html("/stockroom", { user: null, facility });
+    expect(rootOf(signedOut)).toBe('<div role="status">Loading Phasebook…</div>');
+    expect(signedOut).not.toContain(INTL_WARM_UP);
   });
 
   it("leaves the session to GET /api/auth/me when the person does not fit the session schema", () => {

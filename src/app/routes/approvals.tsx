@@ -2,6 +2,7 @@
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { LoadingLine } from "@/components/ui/spinner";
 import { ApprovalQueue } from "@/features/schedule/components/approval-queue";
 import { useScheduleContext } from "@/app/use-schedule-context";
@@ -10,7 +11,7 @@ export function ApprovalsRoute() {
   const ctx = useScheduleContext();
   return (
     <>
-      <PageHeader title="Approval queue" description="Requests on instruments that need your approval. Approving checks the Schedule again." />
+      <PageHeader {...SCREEN_HEADS.approvals} />
       {ctx.error ? (
         <Alert tone="danger">{describeError(ctx.error)}</Alert>
       ) : ctx.loading || !ctx.zone ? (

@@ -5,6 +5,7 @@ import { paths } from "@/config/paths";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { hasRole, useUser } from "@/lib/auth";
 import { InstrumentsTable } from "@/features/instruments/components/instruments-table";
 import { useInstruments } from "@/features/instruments/api/get-instruments";
@@ -21,8 +22,7 @@ export function InstrumentsRoute() {
   return (
     <>
       <PageHeader
-        title="Instruments"
-        description="Potentiostats, interface cells and support equipment, with their status and booking rules. A run usually books a potentiostat and a cell together."
+        {...SCREEN_HEADS.instruments}
         actions={
           <div className="flex gap-2">
             {manager && (

@@ -2,6 +2,7 @@
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { LoadingLine } from "@/components/ui/spinner";
 import { MyBookings } from "@/features/schedule/components/my-bookings";
 import { useScheduleContext } from "@/app/use-schedule-context";
@@ -12,7 +13,7 @@ export function MyBookingsRoute() {
   const plans = useRunPlansByBooking();
   return (
     <>
-      <PageHeader title="My bookings" description="Check in when you start and out when you finish: billing uses those times. Cancel in good time so others can use the instrument." />
+      <PageHeader {...SCREEN_HEADS.myBookings} />
       {ctx.error ? (
         <Alert tone="danger">{describeError(ctx.error)}</Alert>
       ) : ctx.loading || !ctx.zone ? (

@@ -2,6 +2,7 @@
 import { ROLE_LABELS } from "@shared/schemas/auth";
 import { useUser } from "@/lib/auth";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { Card } from "@/components/ui/card";
 import { Badge } from "@/components/ui/badge";
 import { ChangePasswordForm } from "@/features/auth/components/change-password-form";
@@ -11,7 +12,7 @@ export function ProfileRoute() {
   if (!user) return null;
   return (
     <>
-      <PageHeader title="Profile" description="Your account. Your name and roles are changed by an administrator." />
+      <PageHeader {...SCREEN_HEADS.profile} />
       <div className="grid items-start gap-4 lg:grid-cols-2">
         <Card title="Account">
           <dl className="grid grid-cols-[8rem_1fr] gap-y-2 text-sm">

@@ -2,6 +2,7 @@
 import { useNavigate } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { RunPlanForm } from "@/features/run-plans/components/run-plan-form";
 import { RunPlanConventions } from "@/features/run-plans/components/conventions";
 
@@ -9,7 +10,7 @@ export function NewRunPlanRoute() {
   const navigate = useNavigate();
   return (
     <>
-      <PageHeader title="Plan a run" description="Choose the two phases' electrolytes and the ions you want to see; Phasebook shows the window, where each ion transfers, its current, and what to weigh." />
+      <PageHeader {...SCREEN_HEADS.runPlanNew} />
       <RunPlanConventions />
       <RunPlanForm onSaved={(plan) => navigate(paths.runPlan.getHref(plan.id))} />
     </>

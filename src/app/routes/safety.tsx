@@ -3,19 +3,16 @@ import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { LocationTotals } from "@/features/safety/components/location-totals";
 import { ReviewLists } from "@/features/safety/components/review-lists";
 import { LocationsAdmin } from "@/features/safety/components/locations-admin";
-
-const PRECEDENCE =
-  "Storage limits and handling rules are those set by the local fire code, the institution's safety office and the safety data sheet, which take precedence over anything Phasebook computes.";
 
 export function SafetyRoute() {
   return (
     <>
       <PageHeader
-        title="Safety review"
-        description={PRECEDENCE}
+        {...SCREEN_HEADS.safety}
         actions={
           <>
             <a href="/api/safety/report.pdf" className={buttonClasses("secondary")} target="_blank" rel="noreferrer">Printable report (PDF)</a>
@@ -35,7 +32,7 @@ export function SafetyRoute() {
 export function SafetyLocationsRoute() {
   return (
     <>
-      <PageHeader title="Locations and limits" description="Buildings, rooms, cabinets and shelves, with the flammable-liquid limits the safety office sets." />
+      <PageHeader {...SCREEN_HEADS.safetyLocations} />
       <LocationsAdmin />
     </>
   );

@@ -3,6 +3,7 @@ import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { Card } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { BookingSettingsForm } from "@/features/schedule/components/booking-settings-form";
 import { SetupsEditor } from "@/features/schedule/components/setups-editor";
 import { useInstruments } from "@/features/instruments/api/get-instruments";
@@ -13,8 +14,7 @@ export function ScheduleSettingsRoute() {
   return (
     <>
       <PageHeader
-        title="Setups and booking policy"
-        description="Rules for the whole facility. Each instrument's own rules (approval, lead time, cleaning buffer, bookable hours) are on its page."
+        {...SCREEN_HEADS.scheduleSettings}
         actions={<Link to={paths.schedule.getHref()}>Back to the Schedule</Link>}
       />
       <div className="flex flex-col gap-4">

@@ -3,6 +3,7 @@ import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { buttonClasses } from "@/components/ui/button";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
@@ -17,8 +18,7 @@ export function ScheduleRoute() {
   return (
     <>
       <PageHeader
-        title="Schedule"
-        description="Select a free range to book it. Book a potentiostat and an interface cell together; a cleaning buffer follows each session on the cells. Drag or stretch your own bookings that have not started to move them."
+        {...SCREEN_HEADS.schedule}
         actions={
           manager ? (
             <div className="flex gap-2">

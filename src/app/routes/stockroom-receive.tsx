@@ -1,6 +1,7 @@
 /** Receiving a delivery (manager, safety officer). */
 import { useSearchParams } from "react-router-dom";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { ReceiveForm } from "@/features/stockroom/components/receive-form";
 
 export function ReceiveRoute() {
@@ -8,7 +9,7 @@ export function ReceiveRoute() {
   const chemicalId = Number(params.get("chemicalId")) || undefined;
   return (
     <>
-      <PageHeader title="Receive a delivery" description="One line per delivery: Phasebook makes a container with its own label for each bottle." />
+      <PageHeader {...SCREEN_HEADS.receive} />
       <ReceiveForm chemicalId={chemicalId} />
     </>
   );

@@ -5,6 +5,7 @@ import { hasRole, useUser } from "@/lib/auth";
 import { cn } from "@/lib/cn";
 import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { ContainersTable, statusFromLink } from "@/features/stockroom/components/containers-table";
 import { ChemicalsTable } from "@/features/stockroom/components/chemicals-table";
 import { PrintLabelsButton } from "@/features/labels/components/print-labels-button";
@@ -17,8 +18,7 @@ function StockroomHeader() {
   return (
     <>
       <PageHeader
-        title="Stockroom"
-        description="Every container's quantity, place and state, and the chemicals with their hazard data."
+        {...SCREEN_HEADS.stockroom}
         actions={
           <>
             {hasRole(user, ...BENCH_ROLES) && (

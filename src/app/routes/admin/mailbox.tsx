@@ -4,13 +4,14 @@
  * /admin/mailbox, where the development mailbox has always been.)
  */
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { MailboxView } from "@/features/admin/components/mailbox-view";
 import { SystemStatusView } from "@/features/admin/components/system-status";
 
 export function MailboxRoute() {
   return (
     <>
-      <PageHeader title="System" description="Whether mail goes out, card invoices reach the payment service, and the nightly backup works." />
+      <PageHeader {...SCREEN_HEADS.system} />
       <SystemStatusView />
       <h2 className="mb-2 mt-6 text-base font-semibold text-grey-900">Development mailbox</h2>
       <MailboxView />

@@ -1,6 +1,7 @@
 /** Administration › People: accounts, roles, departments, and who may sign in. */
 import { useState } from "react";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { Button } from "@/components/ui/button";
 import { PeopleTable } from "@/features/admin/components/people-table";
 
@@ -9,8 +10,7 @@ export function PeopleRoute() {
   return (
     <>
       <PageHeader
-        title="People"
-        description="Everyone with a Phasebook account. Roles decide what each person sees; deactivated people cannot sign in."
+        {...SCREEN_HEADS.people}
         actions={
           <Button variant="primary" onClick={() => setAddOpen(true)} data-testid="add-person">
             Add person

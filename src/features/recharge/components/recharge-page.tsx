@@ -1,6 +1,7 @@
 /** Recharge: billing runs, rates, the rate review, accounts and spend; tabs by role (manager, group lead). */
 import { useState } from "react";
 import { PageHeader } from "@/components/ui/page-header";
+import { SCREEN_HEADS } from "@shared/screens";
 import { hasRole, useUser } from "@/lib/auth";
 import { cn } from "@/lib/cn";
 import { AccountsPanel } from "./accounts-panel";
@@ -19,7 +20,7 @@ export function RechargePage() {
   const [tab, setTab] = useState<Tab>(tabs[0]);
   return (
     <div>
-      <PageHeader title="Recharge" description="Rates per customer class, monthly statements, the finance journal and invoices for external customers." />
+      <PageHeader {...SCREEN_HEADS.recharge} />
       <div role="tablist" aria-label="Recharge sections" className="mb-4 flex flex-wrap gap-1 border-b border-grey-200">
         {tabs.map((t) => (
           <button

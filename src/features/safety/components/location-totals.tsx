@@ -3,6 +3,7 @@
  * finding is said in words ("Over limit by 1.75 L", "Cannot confirm: 1 container of unknown
  * volume"), not only by colour; limits carry their note (e.g. "Example only").
  */
+import { useDeferredValue } from "react";
 import { NFPA_CLASSES } from "@shared/domain/storage";
 import { LIMIT_FINDING_LABELS } from "@shared/schemas/storage";
 import type { LocationTotalsDto } from "@shared/schemas/stock";
@@ -39,8 +40,10 @@ function Findings({ t }: { t: LocationTotalsDto }) {
 
 export function LocationTotals() {
   const totals = useLocationTotals();
+  // An arriving answer renders as a transition, in slices, not in one long task.
+  const data = useDeferredValue(totals.data);
   if (totals.isError) return <Alert tone="danger">{describeError(totals.error)}</Alert>;
-  const rows = (totals.data ?? []).filter((t) => t.containerCount > 0 || t.limits.length > 0);
+  const rows = (data ?? []).filter((t) => t.containerCount > 0 || t.limits.length > 0);
   const over = rows.filter((t) => t.overLimit);
   const unsure = rows.filter((t) => t.cannotConfirm);
   return (
@@ -50,7 +53,7 @@ export function LocationTotals() {
           {over.length} location{over.length > 1 ? "s are" : " is"} over a limit: {over.map((t) => t.path).join("; ")}.
         </Alert>
       ) : (
-        totals.data && !unsure.length && <Alert tone="ok">No location is over its limits.</Alert>
+        data && !unsure.length && <Alert tone="ok">No location is over its limits.</Alert>
       )}
       {unsure.length > 0 && (
         <Alert tone="warning" srLabel="Finding">
@@ -72,7 +75,7 @@ export function LocationTotals() {
           </tr>
         </THead>
         <TBody>
-          {totals.isPending && <TableMessage colSpan={NFPA_CLASSES.length + 3}>Adding up…</TableMessage>}
+          {data === undefined && <TableMessage colSpan={NFPA_CLASSES.length + 3}>Adding up…</TableMessage>}
           {rows.map((t) => (
             <Tr key={t.id} data-testid={`location-total-${t.id}`} className={t.overLimit ? "bg-danger-50/60" : undefined}>
               <Td>

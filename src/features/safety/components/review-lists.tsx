@@ -1,5 +1,5 @@
 /** The Safety review's lists: hazardous substances and where, expired stock, no location, holds, halogenated waste, chemicals whose sheet is due, and each sheet past its review period. */
-import type { ReactNode } from "react";
+import { useDeferredValue, type ReactNode } from "react";
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
@@ -33,11 +33,12 @@ function List({ title, empty, children, count }: { title: string; empty: string;
 /** Each sheet on file that is past the review period, with its file, so the officer can open it and replace it. */
 function SheetsPastReview({ months }: { months: number }) {
   const q = useSdsDue();
-  if (q.isPending) return <LoadingLine label="Loading the sheets" />;
+  const sheets = useDeferredValue(q.data);
   if (q.isError) return <Alert tone="danger">{describeError(q.error)}</Alert>;
+  if (sheets === undefined) return <LoadingLine label="Loading the sheets" />;
   return (
-    <List title={`Sheets older than the review period (${months} months)`} empty="No sheet on file is past its review period." count={q.data.length}>
-      {q.data.map((s) => (
+    <List title={`Sheets older than the review period (${months} months)`} empty="No sheet on file is past its review period." count={sheets.length}>
+      {sheets.map((s) => (
         <li key={s.id} data-testid={`sds-due-${s.id}`}>
           <Link to={paths.chemical.getHref(s.chemicalId)}>{s.chemicalName ?? `Chemical #${s.chemicalId}`}</Link>:{" "}
           <a href={`/api/sds/${s.id}/file`}>{s.originalName}</a>, reviewed {formatDate(s.reviewedOn)}{s.supplier && ` (${s.supplier})`}
@@ -49,9 +50,10 @@ function SheetsPastReview({ months }: { months: number }) {
 
 export function ReviewLists() {
   const r = useReview();
-  if (r.isPending) return <LoadingLine label="Loading the review" />;
+  // An arriving review renders as a transition, in slices, not in one long task (as the lists below).
+  const d = useDeferredValue(r.data);
   if (r.isError) return <Alert tone="danger">{describeError(r.error)}</Alert>;
-  const d = r.data;
+  if (d === undefined) return <LoadingLine label="Loading the review" />;
   return (
     <div className="grid gap-4 lg:grid-cols-2">
       <List title="Carcinogens and acutely toxic substances" empty="None on record." count={d.hazardous.length}>

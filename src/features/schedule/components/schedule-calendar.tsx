@@ -15,7 +15,7 @@
  * which opens its details. The toolbar and the blocks are Phasebook's own (schedule-toolbar.tsx,
  * schedule-calendar.css), not the library's defaults.
  */
-import { lazy, Suspense, useEffect, useMemo, useRef, useState } from "react";
+import { lazy, Suspense, useDeferredValue, useEffect, useMemo, useRef, useState } from "react";
 import { Link } from "react-router-dom";
 import type { CalendarApi, DatesSetArg, EventChangeArg, EventInput } from "@fullcalendar/core";
 import { BOOKING_STATUS_LABELS, type BookingListItem } from "@shared/schemas/bookings";
@@ -193,7 +193,9 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
     [bookings.data, visibleIds, names],
   );
 
-  const list = <WeekList events={events} zone={zone} loading={bookings.isPending} onShowGrid={phone ? () => setGridWanted(true) : undefined} />;
+  // The list renders a new week's answer as a transition, in slices (the grid takes it at once).
+  const week = useDeferredValue(useMemo(() => ({ events, loading: bookings.isPending }), [events, bookings.isPending]));
+  const list = <WeekList events={week.events} zone={zone} loading={week.loading} onShowGrid={phone ? () => setGridWanted(true) : undefined} />;
 
   const preselected = instrumentId ? [Number(instrumentId)] : setup ? setup.instrumentIds : [];
 

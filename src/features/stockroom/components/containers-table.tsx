@@ -4,7 +4,7 @@
  * With `selectionActions` (the route passes label printing) a checkbox column appears; the
  * selection survives paging and filtering, so labels for several pages go out in one PDF.
  */
-import { useCallback, useMemo, useState, type ReactNode } from "react";
+import { useCallback, useDeferredValue, useMemo, useState, type ReactNode } from "react";
 import { useDebouncedValue } from "@/hooks/use-debounced-value";
 import { Link } from "react-router-dom";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
@@ -101,9 +101,12 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
     [q, status, locationId, chemicalId, sort, page],
   );
   const containers = useContainers(query);
-  const total = containers.data?.total ?? 0;
+  // A page of rows renders as a transition, in slices, so an arriving answer never holds the
+  // main thread for the whole table at once; until then the last rows (or the waiting line) stay.
+  const shown = useDeferredValue(containers.data);
+  const total = shown?.total ?? 0;
 
-  const pageIds = useMemo(() => (containers.data?.items ?? []).map((c) => c.id), [containers.data]);
+  const pageIds = useMemo(() => (shown?.items ?? []).map((c) => c.id), [shown]);
   const allOnPage = pageIds.length > 0 && pageIds.every((i) => selected.has(i));
   const someOnPage = pageIds.some((i) => selected.has(i));
   const shownColumns = useMemo(() => {
@@ -136,7 +139,7 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
   }, [selectionActions, allOnPage, someOnPage, pageIds, selected, toggle]);
 
   const table = useReactTable({
-    data: containers.data?.items ?? [],
+    data: shown?.items ?? [],
     columns: shownColumns,
     state: { sorting },
     onSortingChange: (u) => {
@@ -192,8 +195,8 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
           <HeaderRows table={table} isSortable={(id) => SORTABLE.has(id)} />
         </THead>
         <TBody>
-          {containers.isPending && <TableMessage colSpan={shownColumns.length}>Loading containers…</TableMessage>}
-          {containers.data?.items.length === 0 && <TableMessage colSpan={shownColumns.length}>No container matches these filters.</TableMessage>}
+          {shown === undefined && !containers.isError && <TableMessage colSpan={shownColumns.length}>Loading containers…</TableMessage>}
+          {shown?.items.length === 0 && <TableMessage colSpan={shownColumns.length}>No container matches these filters.</TableMessage>}
           {table.getRowModel().rows.map((row) => (
             <Tr key={row.id} data-testid={`container-row-${row.original.id}`}>
               {row.getVisibleCells().map((cell) => (
@@ -203,7 +206,7 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
           ))}
         </TBody>
       </Table>
-      <Pager page={page} pageSize={PAGE} total={total} totalIsExact={containers.data?.totalIsExact ?? true} onPage={setPage} nothing="No containers" />
+      <Pager page={page} pageSize={PAGE} total={total} totalIsExact={shown?.totalIsExact ?? true} onPage={setPage} nothing="No containers" />
     </div>
   );
 }
