@@ -8,6 +8,7 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Card } from "@/components/ui/card";
 import { LoadingLine } from "@/components/ui/spinner";
+import { useLocationTotals } from "../api/get-location-totals";
 import { useReview, type ReviewContainer } from "../api/get-review";
 import { useSdsDue } from "../api/get-sds-due";
 
@@ -50,8 +51,10 @@ function SheetsPastReview({ months }: { months: number }) {
 
 export function ReviewLists() {
   const r = useReview();
-  // An arriving review renders as a transition, in slices, not in one long task (as the lists below).
-  const d = useDeferredValue(r.data);
+  // The totals above come first: the lists wait for them, so totals arriving later never push the
+  // lists down the page. An arriving review renders as a transition, in slices, not in one long task.
+  const totalsPending = useLocationTotals().isPending;
+  const d = useDeferredValue(totalsPending ? undefined : r.data);
   if (r.isError) return <Alert tone="danger">{describeError(r.error)}</Alert>;
   if (d === undefined) return <LoadingLine label="Loading the review" />;
   return (

@@ -206,7 +206,8 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
           ))}
         </TBody>
       </Table>
-      <Pager page={page} pageSize={PAGE} total={total} totalIsExact={shown?.totalIsExact ?? true} onPage={setPage} nothing="No containers" />
+      {/* Under the rows once they are there: a pager drawn beside the waiting line would jump down when they come. */}
+      {shown !== undefined && <Pager page={page} pageSize={PAGE} total={total} totalIsExact={shown.totalIsExact} onPage={setPage} nothing="No containers" />}
     </div>
   );
 }
