@@ -49,12 +49,19 @@ function compileHints(chunks: RegExp): Plugin {
   return {
     name: "phasebook-compile-hints",
     apply: "build",
-    // After minification (which drops comments); the source map moves down the one added line.
+    // After minification (which drops comments); the source map moves down the one added line,
+    // in the chunk's map and in the .map file already written for it.
     generateBundle(_options, bundle) {
       for (const chunk of Object.values(bundle)) {
         if (chunk.type !== "chunk" || !chunks.test(chunk.name)) continue;
         chunk.code = `//# allFunctionsCalledOnLoad\n${chunk.code}`;
         if (chunk.map) chunk.map.mappings = `;${chunk.map.mappings}`;
+        const mapFile = bundle[`${chunk.fileName}.map`];
+        if (mapFile?.type === "asset") {
+          const map = JSON.parse(String(mapFile.source)) as { mappings: string };
+          map.mappings = `;${map.mappings}`;
+          mapFile.source = JSON.stringify(map);
+        }
       }
     },
   };

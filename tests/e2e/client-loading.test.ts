@@ -68,6 +68,16 @@ describe("the client's delivery", () => {
     expect(missing).toEqual([]);
   });
 
+  it("moves the source map of each chunk carrying the compile hint down by the hint's line", () => {
+    const hinted = fs.readdirSync("dist/assets").filter((f) => f.endsWith(".js") && fs.readFileSync(`dist/assets/${f}`, "utf8").startsWith("//# allFunctionsCalledOnLoad\n"));
+    expect(hinted.some((f) => f.startsWith("framework-"))).toBe(true);
+    for (const file of hinted) {
+      const map = JSON.parse(fs.readFileSync(`dist/assets/${file}.map`, "utf8")) as { mappings: string };
+      // The first line (the hint) maps to nothing; the code's first line is the map's second.
+      expect(map.mappings.startsWith(";"), file).toBe(true);
+    }
+  });
+
   it("opens a signed-in first load with its screen's code preloaded and the session known from the page", async () => {
     const page = await newPage();
     await signIn(page, server.url, MANAGER, DEMO_PASSWORD);
