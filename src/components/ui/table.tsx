@@ -3,7 +3,7 @@
  * compact cells, and a sortable header that tells screen readers its order (aria-sort).
  */
 import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
-import { flexRender, type Table as DataTable } from "@tanstack/react-table";
+import { flexRender, type Row, type Table as DataTable } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
 import { Button } from "./button";
 
@@ -104,6 +104,31 @@ export function HeaderRows<T>({ table, isSortable }: { table: DataTable<T>; isSo
             ),
           )}
         </tr>
+      ))}
+    </>
+  );
+}
+
+/** One body row: its own component, so React can pause between the rows of a long page. */
+function BodyRow<T>({ row, className, testId }: { row: Row<T>; className?: string; testId?: string }) {
+  return (
+    <Tr className={className} data-testid={testId}>
+      {row.getVisibleCells().map((cell) => (
+        <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
+      ))}
+    </Tr>
+  );
+}
+
+/**
+ * The body rows of a TanStack table, each row a component of its own: an arriving page renders
+ * row by row, in slices (with the answer deferred, as a transition), not as one long task.
+ */
+export function BodyRows<T>({ table, rowClassName, rowTestId }: { table: DataTable<T>; rowClassName?: (item: T) => string | undefined; rowTestId?: (item: T) => string }) {
+  return (
+    <>
+      {table.getRowModel().rows.map((row) => (
+        <BodyRow key={row.id} row={row} className={rowClassName?.(row.original)} testId={rowTestId?.(row.original)} />
       ))}
     </>
   );

@@ -6,7 +6,6 @@
 import { useMemo, useState } from "react";
 import {
   createColumnHelper,
-  flexRender,
   getCoreRowModel,
   getSortedRowModel,
   useReactTable,
@@ -25,7 +24,7 @@ import { Button } from "@/components/ui/button";
 import { Alert } from "@/components/ui/alert";
 import { Dialog } from "@/components/ui/dialog";
 import { Spinner } from "@/components/ui/spinner";
-import { HeaderRows, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
+import { BodyRows, HeaderRows, TBody, THead, Table, TableMessage } from "@/components/ui/table";
 import { AddPersonForm } from "./add-person-form";
 import { EditPersonForm } from "./edit-person-form";
 import { ActiveToggleDialog } from "./active-toggle-dialog";
@@ -191,13 +190,7 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
               {q ? `Nobody matches “${q}”.` : "No people yet. Add the first with “Add person”."}
             </TableMessage>
           )}
-          {table.getRowModel().rows.map((row) => (
-            <Tr key={row.id} className={row.original.active ? undefined : "text-grey-500"}>
-              {row.getVisibleCells().map((cell) => (
-                <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-              ))}
-            </Tr>
-          ))}
+          <BodyRows table={table} rowClassName={(p) => (p.active ? undefined : "text-grey-500")} />
         </TBody>
       </Table>
 

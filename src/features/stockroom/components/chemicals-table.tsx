@@ -2,14 +2,14 @@
 import { useState } from "react";
 import { useDebouncedValue } from "@/hooks/use-debounced-value";
 import { Link } from "react-router-dom";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { CHEMICAL_SORTS, type ChemicalDto } from "@shared/schemas/stock";
 import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Input } from "@/components/ui/input";
-import { HeaderRows, Pager, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
+import { BodyRows, HeaderRows, Pager, TBody, THead, Table, TableMessage } from "@/components/ui/table";
 import { CHEMICAL_PAGE as PAGE, useChemicals } from "../api/get-chemicals";
 
 const col = createColumnHelper<ChemicalDto>();
@@ -90,13 +90,7 @@ export function ChemicalsTable() {
         <TBody>
           {chemicals.isPending && <TableMessage colSpan={columns.length}>Loading chemicals…</TableMessage>}
           {chemicals.data?.items.length === 0 && <TableMessage colSpan={columns.length}>No chemical matches.</TableMessage>}
-          {table.getRowModel().rows.map((row) => (
-            <Tr key={row.id}>
-              {row.getVisibleCells().map((cell) => (
-                <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-              ))}
-            </Tr>
-          ))}
+          <BodyRows table={table} />
         </TBody>
       </Table>
       <Pager page={page} pageSize={PAGE} total={total} totalIsExact={chemicals.data?.totalIsExact ?? true} onPage={setPage} nothing="No chemicals" />

@@ -7,7 +7,7 @@
 import { useCallback, useDeferredValue, useMemo, useState, type ReactNode } from "react";
 import { useDebouncedValue } from "@/hooks/use-debounced-value";
 import { Link } from "react-router-dom";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { CONTAINER_SORTS, CONTAINER_STATUSES, CONTAINER_STATUS_LABELS, type ContainerDto } from "@shared/schemas/stock";
 import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
@@ -15,7 +15,7 @@ import { formatDate } from "@/lib/format";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/input";
-import { HeaderRows, Pager, TBody, THead, Table, TableMessage, Td, Tr } from "@/components/ui/table";
+import { BodyRows, HeaderRows, Pager, TBody, THead, Table, TableMessage } from "@/components/ui/table";
 import { CONTAINER_PAGE as PAGE, IN_STOCK, containerTableQuery, useContainers } from "../api/get-containers";
 import { useLocations } from "../api/get-locations";
 import { StatusBadge, formatQuantity } from "./stock-format";
@@ -197,13 +197,7 @@ export function ContainersTable({ chemicalId, selectionActions, initialStatus, i
         <TBody>
           {shown === undefined && !containers.isError && <TableMessage colSpan={shownColumns.length}>Loading containers…</TableMessage>}
           {shown?.items.length === 0 && <TableMessage colSpan={shownColumns.length}>No container matches these filters.</TableMessage>}
-          {table.getRowModel().rows.map((row) => (
-            <Tr key={row.id} data-testid={`container-row-${row.original.id}`}>
-              {row.getVisibleCells().map((cell) => (
-                <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
-              ))}
-            </Tr>
-          ))}
+          <BodyRows table={table} rowTestId={(c) => `container-row-${c.id}`} />
         </TBody>
       </Table>
       {/* Under the rows once they are there: a pager drawn beside the waiting line would jump down when they come. */}
