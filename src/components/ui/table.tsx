@@ -134,6 +134,9 @@ export function BodyRows<T>({ table, rowClassName, rowTestId }: { table: DataTab
   );
 }
 
+/** "1,000": one formatter, made on first use (`toLocaleString` with a locale makes one per call). */
+let counts: Intl.NumberFormat | undefined;
+
 /**
  * "51–100 of 420" with Previous and Next, for a table paged on the server. A list that stopped
  * counting (`totalIsExact` false) reads "51–100 of more than 1,000" and always offers Next.
@@ -154,8 +157,9 @@ export function Pager({
   nothing: string;
 }) {
   const first = page * pageSize + 1;
+  const n = (value: number) => (counts ??= new Intl.NumberFormat("en")).format(value);
   const label =
-    total === 0 ? nothing : totalIsExact ? `${first.toLocaleString("en")}–${Math.min(total, (page + 1) * pageSize).toLocaleString("en")} of ${total.toLocaleString("en")}` : `${first.toLocaleString("en")}–${((page + 1) * pageSize).toLocaleString("en")} of more than ${total.toLocaleString("en")}`;
+    total === 0 ? nothing : totalIsExact ? `${n(first)}–${n(Math.min(total, (page + 1) * pageSize))} of ${n(total)}` : `${n(first)}–${n((page + 1) * pageSize)} of more than ${n(total)}`;
   return (
     <div className="flex items-center justify-between text-xs text-grey-600">
       <span aria-live="polite" data-testid="pager-range">{label}</span>
