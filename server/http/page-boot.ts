@@ -66,7 +66,7 @@ export const PAGE_MODULES: { path: string; screen: string; public?: true; head?:
   { path: "/recharge", screen: routes("recharge"), head: "recharge", area: "recharge" },
   { path: "/charges", screen: routes("my-charges") },
   { path: "/safety", screen: routes("safety"), head: "safety", area: "safety" },
-  { path: "/safety/locations", screen: routes("safety"), head: "safetyLocations", area: "safety" },
+  { path: "/safety/locations", screen: routes("safety-locations"), head: "safetyLocations", area: "safety" },
   { path: "/admin/people", screen: routes("admin/people"), head: "people", area: "admin" },
   { path: "/admin/mailbox", screen: routes("admin/mailbox"), head: "system", area: "admin" },
   { path: "/profile", screen: routes("profile"), head: "profile" },

@@ -106,7 +106,7 @@ export function createAppRouter(qc: QueryClient) {
         restricted(AREA_ROLES.recharge, [[paths.recharge.path, () => import("./routes/recharge").then((m) => m.RechargeRoute)]]),
         restricted(AREA_ROLES.safety, [
           [paths.safety.path, () => import("./routes/safety").then((m) => m.SafetyRoute), () => safety().then((m) => m.safety)],
-          [paths.safetyLocations.path, () => import("./routes/safety").then((m) => m.SafetyLocationsRoute), () => safety().then((m) => m.safetyLocations)],
+          [paths.safetyLocations.path, () => import("./routes/safety-locations").then((m) => m.SafetyLocationsRoute), () => safety().then((m) => m.safetyLocations)],
           [paths.receive.path, () => import("./routes/stockroom-receive").then((m) => m.ReceiveRoute), () => stockroom().then((m) => m.receive)],
           [paths.stockImport.path, () => import("./routes/stockroom-import").then((m) => m.StockImportRoute)],
         ]),

@@ -1,4 +1,4 @@
-/** Safety review (safety officer, manager): totals against limits, the review lists, the printable report; and the locations' limits. */
+/** Safety review (safety officer, manager): totals against limits, the review lists, the printable report. The locations' limits are safety-locations.tsx (their forms stay off this page). */
 import { Link } from "react-router-dom";
 import { paths } from "@/config/paths";
 import { buttonClasses } from "@/components/ui/button";
@@ -6,7 +6,6 @@ import { PageHeader } from "@/components/ui/page-header";
 import { SCREEN_HEADS } from "@shared/screens";
 import { LocationTotals } from "@/features/safety/components/location-totals";
 import { ReviewLists } from "@/features/safety/components/review-lists";
-import { LocationsAdmin } from "@/features/safety/components/locations-admin";
 
 export function SafetyRoute() {
   return (
@@ -25,15 +24,6 @@ export function SafetyRoute() {
         <LocationTotals />
       </section>
       <ReviewLists />
-    </>
-  );
-}
-
-export function SafetyLocationsRoute() {
-  return (
-    <>
-      <PageHeader {...SCREEN_HEADS.safetyLocations} />
-      <LocationsAdmin />
     </>
   );
 }
