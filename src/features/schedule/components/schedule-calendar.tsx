@@ -60,6 +60,15 @@ function eventFor(b: BookingListItem, names: Map<number, string>): EventInput {
   };
 }
 
+/** One booking of the week list: a component of its own, so React can pause between bookings. */
+function WeekItem({ event: e, zone }: { event: EventInput; zone: string }) {
+  return (
+    <li className={`pb-week-item ${(e.classNames as string[]).join(" ")}`}>
+      <span className="font-mono text-xs">{formatSpan(String(e.start), String(e.end), zone)}</span> {e.title}
+    </li>
+  );
+}
+
 /**
  * What the Schedule shows until its grid has arrived: the shown week's bookings as a list, each
  * with its state, instruments, person and time, in the order they start.
@@ -83,9 +92,7 @@ function WeekList({ events, zone, loading, onShowGrid }: { events: EventInput[];
       {blocks.length > 0 && (
         <ul className="flex flex-col gap-1" aria-label="Bookings shown">
           {blocks.map((e) => (
-            <li key={e.id} className={`pb-week-item ${(e.classNames as string[]).join(" ")}`}>
-              <span className="font-mono text-xs">{formatSpan(String(e.start), String(e.end), zone)}</span> {e.title}
-            </li>
+            <WeekItem key={e.id} event={e} zone={zone} />
           ))}
         </ul>
       )}
