@@ -76,7 +76,8 @@ const SHELL_MODULES = /[\\/]src[\\/](components[\\/](ui|brand|errors)[\\/](?!tab
  * first queries can start. Earlier groups take a module first (with what it imports).
  */
 const DATA_AREAS: [string, RegExp][] = [
-  ["data", /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility|bookings|instruments)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$/],
+  // With the screens' heads (shared/screens.ts): every signed-in screen loads this chunk.
+  ["data", /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility|bookings|instruments)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$|[\\/]shared[\\/]screens\.ts$/],
   ["data-schedule", /[\\/]shared[\\/]schemas[\\/](setups|training|reports)\.ts$|[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
   ["data-stock", /[\\/]shared[\\/]schemas[\\/](stock|storage|safety|labels|ion-table|run-plans|run-plan-records)\.ts$|[\\/]features[\\/](stockroom|safety|labels|run-plans)[\\/]api[\\/]|[\\/]loaders[\\/](stockroom|safety)-data\.ts$/],
   ["data-office", DATA_MODULES],

@@ -1,19 +1,9 @@
 /**
- * What the client and the server both know about the screens: who may open each area, and the
- * words at the head of the screens that say the same to everyone. The screens show these words
+ * The words at the head of the screens that say the same to everyone. The screens show them
  * (PageHeader); the server writes them into a signed-in page load (server/http/page-boot.ts), so
- * the page says what it is at its first paint, before its code has arrived.
+ * the page says what it is at its first paint, before its code has arrived. (Who may open each
+ * area is shared/areas.ts: the client's first chunk needs that, not these words.)
  */
-import type { Role } from "./schemas/auth";
-
-/** The route guard for each area uses the same roles as its menu entry (src/layouts/nav-items.ts). */
-export const AREA_ROLES = {
-  training: ["manager"],
-  recharge: ["manager", "group_lead"],
-  safety: ["manager", "safety_officer"],
-  admin: ["admin"],
-} as const satisfies Record<string, readonly Role[]>;
-export type Area = keyof typeof AREA_ROLES;
 
 export interface ScreenHead {
   title: string;

@@ -27,7 +27,8 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { sessionDto } from "@shared/schemas/auth";
-import { AREA_ROLES, SCREEN_HEADS, type Area, type ScreenHead, type ScreenHeadName } from "@shared/screens";
+import { AREA_ROLES, type Area } from "@shared/areas";
+import { SCREEN_HEADS, type ScreenHead, type ScreenHeadName } from "@shared/screens";
 import type { FacilityDto } from "@shared/schemas/facility";
 
 const FRAME = "src/app/routes/signed-in-frame.tsx";

@@ -3,7 +3,7 @@
  * roles add their areas. This only shapes the menu: the server checks every request itself.
  */
 import type { Role } from "@shared/schemas/auth";
-import { AREA_ROLES } from "@shared/screens";
+import { AREA_ROLES } from "@shared/areas";
 import { paths } from "@/config/paths";
 import { hasRole } from "@/lib/auth";
 import type { NavIconName } from "./nav-icons";

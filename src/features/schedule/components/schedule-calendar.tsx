@@ -32,7 +32,6 @@ import { useBookings } from "../api/get-bookings";
 import { useMoveBooking } from "../api/booking-actions";
 import { useSetups } from "../api/get-schedule-data";
 import { openingWeek, scheduleQuery, windowOfView, type ScheduleWindow } from "../api/schedule-window";
-import { BookingForm } from "./booking-form";
 import { StatusBadge, StatusLegend } from "./booking-status";
 import { ScheduleToolbar, type ScheduleView } from "./schedule-toolbar";
 import "./schedule-calendar.css";
@@ -41,6 +40,11 @@ import "./schedule-calendar.css";
 const PHONE_WIDTH = "(max-width: 39.99rem)";
 
 const ScheduleGrid = lazy(() => import("./schedule-grid").then((m) => ({ default: m.ScheduleGrid })));
+// The booking form (and its form library) comes when booking is near: with the grid at a desk,
+// when "Book a slot" is pointed at or focused, or at the latest when a slot is chosen. The dialog
+// opens once the form is there, so it opens with the form's first field focused.
+const loadBookingForm = () => import("./booking-form");
+type BookingFormComponent = Awaited<ReturnType<typeof loadBookingForm>>["BookingForm"];
 
 const HALF_HOUR = 30 * 60_000;
 
@@ -156,6 +160,12 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   const [kind, setKind] = useState<"" | InstrumentKind>("");
   const [setupId, setSetupId] = useState("");
   const [selection, setSelection] = useState<{ start: Date; end: Date } | null>(null);
+  const [BookingForm, setBookingForm] = useState<BookingFormComponent | null>(null);
+  const book = (range: { start: Date; end: Date }) =>
+    void loadBookingForm().then((m) => {
+      setBookingForm(() => m.BookingForm);
+      setSelection(range);
+    });
   const [notice, setNotice] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
 
   const names = useMemo(() => new Map(all.map((i) => [i.id, i.name])), [all]);
@@ -181,7 +191,13 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
   useEffect(() => {
     if (phone) return;
     let timer: ReturnType<typeof setTimeout> | undefined;
-    const frame = requestAnimationFrame(() => (timer = setTimeout(() => setGridWanted(true))));
+    const frame = requestAnimationFrame(
+      () =>
+        (timer = setTimeout(() => {
+          setGridWanted(true);
+          void loadBookingForm();
+        })),
+    );
     return () => {
       cancelAnimationFrame(frame);
       clearTimeout(timer);
@@ -208,7 +224,7 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
 
   const onSelect = (range: { start: Date; end: Date }) => {
     setNotice(null);
-    setSelection(range);
+    book(range);
   };
 
   const onChange = async (arg: EventChangeArg) => {
@@ -259,9 +275,11 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
         <Button
           variant="primary"
           data-testid="book-slot"
+          onPointerEnter={() => void loadBookingForm()}
+          onFocus={() => void loadBookingForm()}
           onClick={() => {
             setNotice(null);
-            setSelection(nextSlot());
+            book(nextSlot());
           }}
         >
           Book a slot
@@ -305,8 +323,8 @@ export function ScheduleCalendar({ instruments: all, zone }: { instruments: Inst
           </>
         )}
       </Dialog>
-      <Dialog open={selection !== null} onClose={() => setSelection(null)} title="Book this slot" className="w-[min(40rem,calc(100vw-2rem))]">
-        {selection && (
+      <Dialog open={selection !== null && BookingForm !== null} onClose={() => setSelection(null)} title="Book this slot" className="w-[min(40rem,calc(100vw-2rem))]">
+        {selection && BookingForm && (
           <BookingForm
             start={selection.start}
             end={selection.end}
