@@ -126,9 +126,9 @@ const escapeHtml = (text: string) => text.replace(/[&<>"]/g, (c) => `&${{ "&": "
 function frameWithHead(head: ScreenHead, waiting: string): string {
   return (
     '<div class="flex min-h-screen flex-col">' +
-    '<div class="sticky top-0 z-30 flex h-12 items-center gap-2 border-b border-grey-200 bg-white/95 px-3 md:px-4"></div>' +
+    '<div class="sticky top-0 z-30 flex h-12 items-center gap-2 border-b border-grey-200 bg-white/95 px-3 backdrop-blur md:px-4"></div>' +
     '<div class="flex flex-1"><div class="hidden border-grey-200 bg-white md:block md:w-52 md:shrink-0 md:border-r"></div>' +
-    '<div class="min-w-0 flex-1 px-4 py-4 md:px-6 md:py-5"><div class="mx-auto max-w-6xl">' +
+    '<div class="min-w-0 flex-1 px-4 py-4 focus:outline-none md:px-6 md:py-5"><div class="mx-auto max-w-6xl">' +
     '<div class="mb-4 flex flex-wrap items-end justify-between gap-3 border-b border-grey-200 pb-3"><div class="min-w-0">' +
     `<h1 class="text-lg font-semibold tracking-tight text-grey-900">${escapeHtml(head.title)}</h1>` +
     `<p class="mt-0.5 max-w-3xl text-grey-600">${escapeHtml(head.description)}</p>` +

@@ -104,6 +104,16 @@ describe("the page a load gets", () => {
     expect(html).toContain(`<script>${INTL_WARM_UP}</script><title>`);
   });
 
+  it("draws the outline with the frame's and the page header's own classes, so the screen replaces it in place", () => {
+    const root = rootOf(boot.html("/stockroom", { user: member, facility }));
+    const shell = fs.readFileSync("src/layouts/app-shell.tsx", "utf8");
+    const header = fs.readFileSync("src/components/ui/page-header.tsx", "utf8");
+    const classes = [...root.matchAll(/class="([^"]+)"/g)].map((m) => m[1]!);
+    // The top bar, the main area and its width; the page header's box, title and description.
+    for (const c of [classes[1], classes[4], classes[5]]) expect(shell, c).toContain(`className="${c}"`);
+    for (const c of [classes[6], classes[7], classes[8], classes[9]]) expect(header, c).toContain(`className="${c}"`);
+  });
+
   it("writes no head the person may not open, none for a record's page, and nothing but the waiting line when signed out", () => {
     for (const address of ["/safety", "/admin/people", "/stockroom/chemicals/12"]) {
       const html = boot.html(address, { user: member, facility });
