@@ -158,6 +158,23 @@ export function createPageBoot(staticDir: string): PageBoot {
     const files = modules.flatMap((m) => filesOf(manifest, m, seen)).filter((file) => !inTemplate.has(file));
     return files.map((file) => `<link rel="modulepreload" crossorigin href="/${file}">`).join("");
   };
+  // The signed-in page's template (with the locale line), and the same with each screen's head,
+  // made once; a page load only adds its preloads and session block.
+  const signedInTemplate = template.replace("<title>", `<script>${INTL_WARM_UP}</script><title>`);
+  const headed = new Map<ScreenHeadName, string>();
+  const templateWithHead = (name: ScreenHeadName) => {
+    let html = headed.get(name);
+    if (html === undefined) {
+      const words = SCREEN_HEADS[name];
+      html = root
+        ? signedInTemplate
+            .replace(/<title>[^<]*<\/title>/, `<title>${escapeHtml(words.title)} · Phasebook</title>`)
+            .replace(root.whole, `<div id="root">${frameWithHead(words, root.waiting)}</div>${root.after}`)
+        : signedInTemplate;
+      headed.set(name, html);
+    }
+    return html;
+  };
   const cache = new Map<string, string>();
   const linksFor = (modules: string[]) => {
     const key = modules.join(",");
@@ -177,14 +194,9 @@ export function createPageBoot(staticDir: string): PageBoot {
       const session = signedIn ? sessionDto.safeParse({ user: facts.user }) : null;
       const boot = { facility: facts.facility, ...(session === null ? { user: null } : session.success ? { user: session.data.user } : {}) };
       const head = `${linksFor(modules)}<script type="application/json" id="phasebook-boot">${jsonForScript(boot)}</script>`;
-      let html = template.replace("</head>", `${head}</head>`);
-      if (!signedIn) return html;
-      html = html.replace("<title>", `<script>${INTL_WARM_UP}</script><title>`);
-      const words = page?.head && (!page.area || AREA_ROLES[page.area].some((r) => facts.user!.roles.includes(r))) ? SCREEN_HEADS[page.head] : null;
-      if (!words || !root) return html;
-      return html
-        .replace(/<title>[^<]*<\/title>/, `<title>${escapeHtml(words.title)} · Phasebook</title>`)
-        .replace(root.whole, `<div id="root">${frameWithHead(words, root.waiting)}</div>${root.after}`);
+      const shownHead = facts.user && page?.head && (!page.area || AREA_ROLES[page.area].some((r) => facts.user!.roles.includes(r))) ? page.head : undefined;
+      const base = !signedIn ? template : shownHead ? templateWithHead(shownHead) : signedInTemplate;
+      return base.replace("</head>", `${head}</head>`);
     },
   };
 }

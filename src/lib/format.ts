@@ -46,3 +46,9 @@ export function humanize(code: string): string {
   const words = code.replace(/_/g, " ");
   return words.charAt(0).toUpperCase() + words.slice(1);
 }
+
+let counts: Intl.NumberFormat | undefined;
+/** "1,000": a count with thousands separators, from one formatter made on first use (`toLocaleString` with a locale makes one per call). */
+export function formatCount(value: number): string {
+  return (counts ??= new Intl.NumberFormat("en")).format(value);
+}

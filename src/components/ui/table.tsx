@@ -5,6 +5,7 @@
 import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
 import { flexRender, type Row, type Table as DataTable } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
+import { formatCount } from "@/lib/format";
 import { Button } from "./button";
 
 export function Table({ className, children, caption }: { className?: string; children: ReactNode; caption?: ReactNode }) {
@@ -134,9 +135,6 @@ export function BodyRows<T>({ table, rowClassName, rowTestId }: { table: DataTab
   );
 }
 
-/** "1,000": one formatter, made on first use (`toLocaleString` with a locale makes one per call). */
-let counts: Intl.NumberFormat | undefined;
-
 /**
  * "51–100 of 420" with Previous and Next, for a table paged on the server. A list that stopped
  * counting (`totalIsExact` false) reads "51–100 of more than 1,000" and always offers Next.
@@ -157,7 +155,7 @@ export function Pager({
   nothing: string;
 }) {
   const first = page * pageSize + 1;
-  const n = (value: number) => (counts ??= new Intl.NumberFormat("en")).format(value);
+  const n = formatCount;
   const label =
     total === 0 ? nothing : totalIsExact ? `${n(first)}–${n(Math.min(total, (page + 1) * pageSize))} of ${n(total)}` : `${n(first)}–${n((page + 1) * pageSize)} of more than ${n(total)}`;
   return (

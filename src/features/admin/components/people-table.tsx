@@ -14,7 +14,7 @@ import {
 import { ROLE_LABELS } from "@shared/schemas/auth";
 import type { UserAdminDto } from "@shared/schemas/users";
 import { describeError } from "@/lib/forms";
-import { formatDate } from "@/lib/format";
+import { formatCount, formatDate } from "@/lib/format";
 import { useDebouncedValue } from "@/hooks/use-debounced-value";
 import { useUsers } from "../api/get-users";
 import { useDepartments } from "../api/get-departments";
@@ -153,7 +153,7 @@ export function PeopleTable({ addOpen, onAddOpenChange }: { addOpen: boolean; on
           {users.isFetching && <Spinner size="sm" className="text-aqueous-600" />}
           {users.data &&
             (!users.data.totalIsExact
-              ? `Showing ${users.data.items.length} of more than ${users.data.total.toLocaleString("en")}; narrow the filter to see the rest.`
+              ? `Showing ${users.data.items.length} of more than ${formatCount(users.data.total)}; narrow the filter to see the rest.`
               : users.data.total > users.data.items.length
                 ? `Showing ${users.data.items.length} of ${users.data.total}; narrow the filter to see the rest.`
                 : `${users.data.total} ${users.data.total === 1 ? "person" : "people"}`)}
