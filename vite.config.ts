@@ -77,9 +77,12 @@ const SHELL_MODULES = /[\\/]src[\\/](components[\\/](ui|brand|errors)[\\/](?!tab
  */
 const DATA_AREAS: [string, RegExp][] = [
   // With the screens' heads (shared/screens.ts): every signed-in screen loads this chunk.
-  ["data", /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility|bookings|instruments)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$|[\\/]shared[\\/]screens\.ts$/],
-  ["data-schedule", /[\\/]shared[\\/]schemas[\\/](setups|training|reports)\.ts$|[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
-  ["data-stock", /[\\/]shared[\\/]schemas[\\/](stock|storage|safety|labels|ion-table|run-plans|run-plan-records)\.ts$|[\\/]features[\\/](stockroom|safety|labels|run-plans)[\\/]api[\\/]|[\\/]loaders[\\/](stockroom|safety)-data\.ts$/],
+  ["data", /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$|[\\/]shared[\\/]screens\.ts$/],
+  ["data-schedule", /[\\/]shared[\\/]schemas[\\/](bookings|instruments|setups|training|reports)\.ts$|[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
+  ["data-stock", /[\\/]shared[\\/]schemas[\\/](stock|storage|safety|ions|labels)\.ts$|[\\/]features[\\/](stockroom|safety)[\\/]api[\\/]|[\\/]features[\\/]labels[\\/]api[\\/](get-label-stocks|keys)\.ts$|[\\/]loaders[\\/](stockroom|safety)-data\.ts$/],
+  // The scan's and the run plans' schemas (the ion table among them): large, and no first screen
+  // needs them. Printing labels is a Stockroom action: its schemas and query are in data-stock.
+  ["data-plans", /[\\/]shared[\\/]schemas[\\/](scan|ion-table|run-plans|run-plan-records)\.ts$|[\\/]features[\\/](labels|run-plans)[\\/]api[\\/]|[\\/]loaders[\\/]labels-data\.ts$/],
   ["data-office", DATA_MODULES],
 ];
 

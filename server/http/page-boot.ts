@@ -112,7 +112,7 @@ export interface PageBoot {
  * number. A signed-in page loads this one line while its scripts are still on the way and the
  * main thread is idle, before the style sheet, so the first screen renders without that pause.
  */
-export const INTL_WARM_UP = "try{new Intl.DateTimeFormat().format(0)}catch{}";
+export const INTL_WARM_UP = "setTimeout(function(){try{new Intl.DateTimeFormat().format(0)}catch(e){}})";
 /** The Content-Security-Policy source that allows `INTL_WARM_UP` and no other inline script. */
 export const INTL_WARM_UP_SOURCE = `'sha256-${crypto.createHash("sha256").update(INTL_WARM_UP).digest("base64")}'`;
 

@@ -4,21 +4,13 @@
  * Also the ions a Stockroom chemical gives when it dissolves (LiCl → Li+ + Cl−), kept on the chemical.
  */
 import { z } from "zod";
-import { ionCharge } from "./run-plans";
+import { ionCharge, ionSymbol } from "./ions";
 
 const source = z
   .string({ message: "Name the published source of the value" })
   .trim()
   .min(10, "Name the published source (authors, journal, volume, year, page), at least 10 characters")
   .max(1000);
-
-/** An ion name as the trade writes it, ending in its sign: Li+, TB(C6F5)4-, SO4 2-. */
-export const ionSymbol = z
-  .string({ message: "Name the ion, e.g. Li+ or TB(C6F5)4-" })
-  .trim()
-  .min(2, "Name the ion with its sign, e.g. Li+ or Cl-")
-  .max(40, "An ion's name is at most 40 characters")
-  .regex(/^[^\s].*[+\-−]$/u, "Write the ion with its sign at the end, e.g. Li+ or Cl-");
 
 export const sourcedNumberDto = z.object({ value: z.number(), source: z.string() });
 
@@ -82,20 +74,3 @@ export const addIonInput = z.object({
   diffusionOrganicCm2PerS: z.number().gt(0, "A diffusion coefficient must be above zero").max(1e-2).nullable().default(null),
 });
 export type AddIonInput = z.input<typeof addIonInput>;
-
-// ---------------------------------------------------------------- a chemical's ions
-
-/** One kind of ion a chemical gives, and how many per formula unit. */
-export const chemicalIon = z.object({
-  ion: ionSymbol,
-  charge: ionCharge,
-  count: z.number({ message: "Give how many per formula unit" }).int("A whole number per formula unit").min(1).max(6),
-});
-export type ChemicalIon = z.infer<typeof chemicalIon>;
-
-/** The ions of an electrolyte, e.g. LiCl → [{ Li+, +1, 1 }, { Cl-, −1, 1 }]; null for a chemical that is not one. */
-export const chemicalIons = z
-  .array(chemicalIon)
-  .min(2, "An electrolyte gives at least a cation and an anion")
-  .max(6, "At most 6 kinds of ion")
-  .nullable();

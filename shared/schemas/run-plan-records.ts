@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import { id, pageQuery } from "./common";
+import { reservationDto } from "./stock";
 import { phase, planAnalyteInput, planReferenceInput, runPlanPreviewDto } from "./run-plans";
 
 const finite = (what: string) => z.number({ message: `Enter the ${what} as a number` }).refine(Number.isFinite, `The ${what} must be a finite number`);
@@ -59,25 +60,6 @@ export const RUN_PLAN_ACTIONS = ["see", "edit", "attach", "release"] as const;
 export const runPlanAbilities = z.object(Object.fromEntries(RUN_PLAN_ACTIONS.map((a) => [a, z.boolean()])) as Record<(typeof RUN_PLAN_ACTIONS)[number], z.ZodBoolean>);
 export type RunPlanAbilities = z.infer<typeof runPlanAbilities>;
 
-export const RESERVATION_STATES = ["held", "released", "used"] as const;
-export const reservationState = z.enum(RESERVATION_STATES);
-
-export const reservationDto = z.object({
-  id: z.number(),
-  containerId: z.number(),
-  chemicalName: z.string(),
-  bookingId: z.number(),
-  runPlanId: z.number().nullable(),
-  /** In the container's unit. */
-  amount: z.number(),
-  /** Already drawn on the booking. */
-  drawn: z.number(),
-  unit: z.string(),
-  state: reservationState,
-  note: z.string(),
-  createdAt: z.string(),
-});
-export type ReservationDto = z.infer<typeof reservationDto>;
 
 export const weighLineDto = z.object({
   phase,

@@ -8,6 +8,7 @@
  * standard transfer potential: { ion: "X+", charge: 1, standardPotentialV: -0.30, … }.
  */
 import { z } from "zod";
+import { ionCharge } from "./ions";
 import type {
   DistributionAnswer,
   DistributionRequest,
@@ -31,13 +32,6 @@ const ionName = z
   .trim()
   .min(1, "Name the ion, e.g. Li+ or TB(C6F5)4-")
   .max(40, "An ion's name is at most 40 characters");
-
-export const ionCharge = z
-  .number({ message: "Enter the charge as a whole number" })
-  .int("The charge must be a whole number")
-  .min(-6, "The charge must be between −6 and +6")
-  .max(6, "The charge must be between −6 and +6")
-  .refine((value) => value !== 0, "The charge cannot be 0: a neutral species does not carry current across the interface");
 
 /** The fields that name an ion or define a custom one. */
 const ionRefShape = {

@@ -7,8 +7,7 @@
 import { z } from "zod";
 import { id, isoDate, pageQuery, searchText } from "./common";
 import { locationClassTotals, nfpaClassSchema, storageLimitResultDto } from "./storage";
-import { chemicalIon, chemicalIons } from "./ion-table";
-import { reservationDto } from "./run-plan-records";
+import { chemicalIon, chemicalIons } from "./ions";
 
 export const CONTAINER_STATUSES = ["sealed", "in_use", "on_hold", "empty", "disposed"] as const;
 export const containerStatus = z.enum(CONTAINER_STATUSES);
@@ -124,6 +123,29 @@ export const holdInput = z.object({
   reason: z.string({ message: "Say why it is on hold" }).trim().min(3, "Say why it is on hold (at least 3 characters)").max(1000),
 });
 export type HoldInput = z.infer<typeof holdInput>;
+
+// ---------------------------------------------------------------- reservations
+
+/** An amount of a container held for a booking's run plan (made by the run plans, shown on the container). */
+export const RESERVATION_STATES = ["held", "released", "used"] as const;
+export const reservationState = z.enum(RESERVATION_STATES);
+
+export const reservationDto = z.object({
+  id: z.number(),
+  containerId: z.number(),
+  chemicalName: z.string(),
+  bookingId: z.number(),
+  runPlanId: z.number().nullable(),
+  /** In the container's unit. */
+  amount: z.number(),
+  /** Already drawn on the booking. */
+  drawn: z.number(),
+  unit: z.string(),
+  state: reservationState,
+  note: z.string(),
+  createdAt: z.string(),
+});
+export type ReservationDto = z.infer<typeof reservationDto>;
 
 // ---------------------------------------------------------------- containers
 

@@ -28,6 +28,7 @@ const schedule = () => import("./loaders/schedule-data");
 const stockroom = () => import("./loaders/stockroom-data");
 const areas = () => import("./loaders/areas-data");
 const safety = () => import("./loaders/safety-data");
+const labels = () => import("./loaders/labels-data");
 
 export function createAppRouter(qc: QueryClient) {
   // Until the router has shown its first screen, loaders do not wait for data (loaders/load.ts).
@@ -94,7 +95,7 @@ export function createAppRouter(qc: QueryClient) {
         screen(paths.runPlanNew.path, () => import("./routes/run-plan-new").then((m) => m.NewRunPlanRoute)),
         screen(paths.runPlan.path, () => import("./routes/run-plan").then((m) => m.RunPlanRoute)),
         screen(paths.scan.path, () => import("./routes/scan").then((m) => m.ScanRoute)),
-        screen(paths.scanToken.path, () => import("./routes/scan-token").then((m) => m.ScanTokenRoute), () => stockroom().then((m) => m.scanToken)),
+        screen(paths.scanToken.path, () => import("./routes/scan-token").then((m) => m.ScanTokenRoute), () => labels().then((m) => m.scanToken)),
         screen(paths.myCharges.path, () => import("./routes/my-charges").then((m) => m.MyChargesRoute)),
         screen(paths.profile.path, () => import("./routes/profile").then((m) => m.ProfileRoute)),
         restricted(AREA_ROLES.training, [

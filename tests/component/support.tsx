@@ -26,9 +26,8 @@ export async function signInAs(email: string): Promise<{ id: number; roles: stri
 
 export const get = <T,>(path: string) => api.get<T>(path);
 
-/** Renders `ui` as one screen of the app: the app's QueryClient and a memory router around it. */
-export function renderScreen(ui: ReactNode) {
-  const queryClient = createQueryClient();
+/** Renders `ui` as one screen of the app: the app's QueryClient (or one a test filled first) and a memory router around it. */
+export function renderScreen(ui: ReactNode, queryClient = createQueryClient()) {
   const router = createMemoryRouter([{ path: "*", element: ui }], { initialEntries: ["/"] });
   return { queryClient, ...render(<QueryClientProvider client={queryClient}><RouterProvider router={router} /></QueryClientProvider>) };
 }

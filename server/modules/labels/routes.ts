@@ -7,22 +7,8 @@
  */
 import { z } from "zod";
 import { idParam, pageOf } from "@shared/schemas/common";
-import {
-  cleanedInput,
-  disposeInput,
-  labelHistoryEntryDto,
-  labelStockDto,
-  labelStockInput,
-  labelsPdfQuery,
-  locationChoiceDto,
-  markEmptyInput,
-  moveContainerInput,
-  reissueInput,
-  reissueParams,
-  reportFaultInput,
-  reportProblemInput,
-  scanResultDto,
-} from "@shared/schemas/labels";
+import { labelHistoryEntryDto, labelStockDto, labelStockInput, labelsPdfQuery, reissueInput, reissueParams } from "@shared/schemas/labels";
+import { cleanedInput, disposeInput, locationChoiceDto, markEmptyInput, moveContainerInput, reportFaultInput, reportProblemInput, scanResultDto } from "@shared/schemas/scan";
 import { route, WRITTEN, type RouteTable } from "../../http/route-table";
 import { disposeContainer, markContainerEmpty, moveContainer, reportContainerProblem } from "../stockroom";
 import { recordCleaned, reportInstrumentFault } from "../schedule";

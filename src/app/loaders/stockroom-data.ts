@@ -1,10 +1,9 @@
-/** Loaders of the Stockroom's and the Scan pages (see load.ts). */
+/** Loaders of the Stockroom's pages (see load.ts). */
 import { containersQueryOptions, containerTableQuery, IN_STOCK, statusFromLink } from "@/features/stockroom/api/get-containers";
 import { chemicalsQueryOptions, firstChemicalsPage } from "@/features/stockroom/api/get-chemicals";
 import { chemicalQueryOptions, sheetsQueryOptions } from "@/features/stockroom/api/get-chemical";
 import { containerQueryOptions } from "@/features/stockroom/api/get-container";
 import { locationsQueryOptions } from "@/features/stockroom/api/get-locations";
-import { scanQueryOptions } from "@/features/labels/api/get-scan";
 import { idParam, type ScreenLoader } from "./load";
 
 /** The containers table as the link opened it (routes/stockroom.tsx reads the same parameters). */
@@ -41,9 +40,3 @@ export const receive: ScreenLoader = (qc) => [
   qc.prefetchQuery(chemicalsQueryOptions({ limit: 500, sort: "name", dir: "asc" })),
   qc.prefetchQuery(locationsQueryOptions()),
 ];
-
-export const scanToken: ScreenLoader = (qc, args) => {
-  const token = args.params.token;
-  if (!token) return;
-  return [qc.prefetchQuery(scanQueryOptions(token))];
-};

@@ -4,10 +4,11 @@ import { paths } from "@/config/paths";
 import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { SCREEN_HEADS } from "@shared/screens";
-import { LocationTotals } from "@/features/safety/components/location-totals";
+import { LocationTotals, useShownTotals } from "@/features/safety/components/location-totals";
 import { ReviewLists } from "@/features/safety/components/review-lists";
 
 export function SafetyRoute() {
+  const totals = useShownTotals();
   return (
     <>
       <PageHeader
@@ -21,9 +22,9 @@ export function SafetyRoute() {
       />
       <section className="mb-6" aria-labelledby="totals-heading">
         <h2 id="totals-heading" className="mb-2 text-sm font-semibold">Flammable liquids per location</h2>
-        <LocationTotals />
+        <LocationTotals shown={totals} />
       </section>
-      <ReviewLists />
+      <ReviewLists afterTotals={totals.data !== undefined || totals.error !== null} />
     </>
   );
 }

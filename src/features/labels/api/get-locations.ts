@@ -1,7 +1,7 @@
 /** GET /api/scan-actions/locations: every place a container can go, by its full path. */
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { z } from "zod";
-import { locationChoiceDto } from "@shared/schemas/labels";
+import { locationChoiceDto } from "@shared/schemas/scan";
 import { api, parseResponse } from "@/lib/api-client";
 import { labelKeys } from "./keys";
 

@@ -1,6 +1,6 @@
 /** GET /api/scan/:labelToken: the record a label stands for, with what the bench needs to act on it. */
 import { queryOptions, useQuery } from "@tanstack/react-query";
-import { scanResultDto, type ScanResultDto } from "@shared/schemas/labels";
+import { scanResultDto, type ScanResultDto } from "@shared/schemas/scan";
 import { api, isApiError, parseResponse } from "@/lib/api-client";
 import { labelKeys } from "./keys";
 

@@ -1,7 +1,7 @@
 /** The label part of a scanned record: print this label, or issue a new one (the old one stops working). */
 import { useState } from "react";
 import { useNavigate } from "react-router-dom";
-import type { ScanResultDto } from "@shared/schemas/labels";
+import type { ScanResultDto } from "@shared/schemas/scan";
 import { paths } from "@/config/paths";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";

@@ -14,15 +14,7 @@ import { hazardStatementText } from "@shared/domain/ghs-statements";
 import { PRECEDENCE_CAUTION } from "@shared/domain/cautions";
 import { PICTOGRAM_NAMES, type GhsPictogram } from "@shared/domain/hazards";
 import { INSTRUMENT_KIND_LABELS, type InstrumentKind } from "@shared/schemas/instruments";
-import {
-  cleanedInput,
-  disposeInput,
-  markEmptyInput,
-  reportFaultInput,
-  reportProblemInput,
-  type ScanBookingDto,
-  type ScanResultDto,
-} from "@shared/schemas/labels";
+import { cleanedInput, disposeInput, markEmptyInput, reportFaultInput, reportProblemInput, type ScanBookingDto, type ScanResultDto } from "@shared/schemas/scan";
 import type { UserDto } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
 import { hasRole, useUser } from "@/lib/auth";

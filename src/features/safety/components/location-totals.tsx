@@ -10,7 +10,8 @@ import type { LocationTotalsDto } from "@shared/schemas/stock";
 import { describeError } from "@/lib/forms";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
-import { TBody, THead, Table, TableMessage, Td, Th, Tr } from "@/components/ui/table";
+import { LoadingLine } from "@/components/ui/spinner";
+import { TBody, THead, Table, Td, Th, Tr } from "@/components/ui/table";
 import { useLocationTotals } from "../api/get-location-totals";
 
 const L = (n: number) => `${n.toFixed(2)} L`;
@@ -38,12 +39,22 @@ function Findings({ t }: { t: LocationTotalsDto }) {
   );
 }
 
-export function LocationTotals() {
+/**
+ * The totals as the page shows them: the answer through useDeferredValue, so an arriving answer
+ * renders as a transition, in slices, not in one long task. The Safety review gives the same value
+ * to the lists below (ReviewLists), so they never show before the totals above them and the totals
+ * arriving never push them down the page.
+ */
+export function useShownTotals(): { data: LocationTotalsDto[] | undefined; error: unknown } {
   const totals = useLocationTotals();
-  // An arriving answer renders as a transition, in slices, not in one long task.
-  const data = useDeferredValue(totals.data);
-  if (totals.isError) return <Alert tone="danger">{describeError(totals.error)}</Alert>;
-  const rows = (data ?? []).filter((t) => t.containerCount > 0 || t.limits.length > 0);
+  return { data: useDeferredValue(totals.data), error: totals.isError ? totals.error : null };
+}
+
+/** The totals with their findings, drawn whole when they are there (findings above the table never move it). */
+export function LocationTotals({ shown: { data, error } }: { shown: ReturnType<typeof useShownTotals> }) {
+  if (error) return <Alert tone="danger">{describeError(error)}</Alert>;
+  if (data === undefined) return <LoadingLine label="Adding up the totals" />;
+  const rows = data.filter((t) => t.containerCount > 0 || t.limits.length > 0);
   const over = rows.filter((t) => t.overLimit);
   const unsure = rows.filter((t) => t.cannotConfirm);
   return (
@@ -53,7 +64,7 @@ export function LocationTotals() {
           {over.length} location{over.length > 1 ? "s are" : " is"} over a limit: {over.map((t) => t.path).join("; ")}.
         </Alert>
       ) : (
-        data && !unsure.length && <Alert tone="ok">No location is over its limits.</Alert>
+        !unsure.length && <Alert tone="ok">No location is over its limits.</Alert>
       )}
       {unsure.length > 0 && (
         <Alert tone="warning" srLabel="Finding">
@@ -75,7 +86,6 @@ export function LocationTotals() {
           </tr>
         </THead>
         <TBody>
-          {data === undefined && <TableMessage colSpan={NFPA_CLASSES.length + 3}>Adding up…</TableMessage>}
           {rows.map((t) => (
             <Tr key={t.id} data-testid={`location-total-${t.id}`} className={t.overLimit ? "bg-danger-50/60" : undefined}>
               <Td>

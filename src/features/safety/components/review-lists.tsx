@@ -8,7 +8,6 @@ import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Card } from "@/components/ui/card";
 import { LoadingLine } from "@/components/ui/spinner";
-import { useLocationTotals } from "../api/get-location-totals";
 import { useReview, type ReviewContainer } from "../api/get-review";
 import { useSdsDue } from "../api/get-sds-due";
 
@@ -49,12 +48,17 @@ function SheetsPastReview({ months }: { months: number }) {
   );
 }
 
-export function ReviewLists() {
+/**
+ * `afterTotals`: the totals above are drawn (useShownTotals). Until then the lists draw nothing, so
+ * the totals arriving never push them down the page; in the render that draws the totals,
+ * useDeferredValue gives the review at once (React does not defer again in a deferred render), so
+ * the lists come with the totals or after them, never before. A review arriving later renders as a
+ * transition, in slices, not in one long task.
+ */
+export function ReviewLists({ afterTotals }: { afterTotals: boolean }) {
   const r = useReview();
-  // The totals above come first: the lists wait for them, so totals arriving later never push the
-  // lists down the page. An arriving review renders as a transition, in slices, not in one long task.
-  const totalsPending = useLocationTotals().isPending;
-  const d = useDeferredValue(totalsPending ? undefined : r.data);
+  const d = useDeferredValue(afterTotals ? r.data : undefined);
+  if (!afterTotals) return null;
   if (r.isError) return <Alert tone="danger">{describeError(r.error)}</Alert>;
   if (d === undefined) return <LoadingLine label="Loading the review" />;
   return (
