@@ -78,8 +78,12 @@ const SHELL_MODULES = /[\\/]src[\\/](components[\\/](ui|brand|errors)[\\/](?!tab
 const DATA_AREAS: [string, RegExp][] = [
   // With the screens' heads (shared/screens.ts): every signed-in screen loads this chunk.
   ["data", /node_modules[\\/]zod[\\/]|[\\/]shared[\\/]schemas[\\/](common|auth|facility)\.ts$|[\\/]src[\\/]lib[\\/]format\.ts$|[\\/]shared[\\/]screens\.ts$/],
-  ["data-schedule", /[\\/]shared[\\/]schemas[\\/](bookings|instruments|setups|training|reports)\.ts$|[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
-  ["data-stock", /[\\/]shared[\\/]schemas[\\/](stock|storage|safety|ions|labels)\.ts$|[\\/]features[\\/](stockroom|safety)[\\/]api[\\/]|[\\/]features[\\/]labels[\\/]api[\\/](get-label-stocks|keys)\.ts$|[\\/]loaders[\\/](stockroom|safety)-data\.ts$/],
+  // Each area's schemas apart from its queries: they need only zod, so the page runs them as soon
+  // as they arrive, while the libraries are still on the way (server/http/page-boot.ts).
+  ["schemas-schedule", /[\\/]shared[\\/]schemas[\\/](bookings|instruments|setups|training|reports)\.ts$/],
+  ["data-schedule", /[\\/]features[\\/](schedule|instruments|training)[\\/]api[\\/]|[\\/]loaders[\\/]schedule-data\.ts$/],
+  ["schemas-stock", /[\\/]shared[\\/]schemas[\\/](stock|storage|safety|ions|labels)\.ts$/],
+  ["data-stock", /[\\/]features[\\/](stockroom|safety)[\\/]api[\\/]|[\\/]features[\\/]labels[\\/]api[\\/](get-label-stocks|keys)\.ts$|[\\/]loaders[\\/](stockroom|safety)-data\.ts$/],
   // The scan's and the run plans' schemas (the ion table among them): large, and no first screen
   // needs them. Printing labels is a Stockroom action: its schemas and query are in data-stock.
   ["data-plans", /[\\/]shared[\\/]schemas[\\/](scan|ion-table|run-plans|run-plan-records)\.ts$|[\\/]features[\\/](labels|run-plans)[\\/]api[\\/]|[\\/]loaders[\\/]labels-data\.ts$/],
@@ -90,7 +94,7 @@ export default defineConfig({
   plugins: [
     react(),
     tailwindcss(),
-    compileHints(/^(framework|data|data-schedule|data-stock|shell)$/),
+    compileHints(/^(framework|data|schemas-schedule|data-schedule|schemas-stock|data-stock|shell)$/),
     preloadFonts(/ibm-plex-sans-latin-400-normal-[\w-]+\.woff2$/),
     // Brotli and gzip copies of every script, style sheet and SVG beside it, served by
     // express-static-gzip with the matching Content-Encoding (server/app.ts).

@@ -23,7 +23,7 @@ import { apiDescriptionTable, docsAssets } from "./http/api-description";
 import type { RouteTable } from "./http/route-table";
 import { ROUTE_TABLES } from "./modules";
 import { facilitySettings } from "./modules/system";
-import { INTL_WARM_UP_SOURCE, createPageBoot } from "./http/page-boot";
+import { WARM_UP_SOURCE, createPageBoot } from "./http/page-boot";
 
 /**
  * The request line and headers a server takes, in bytes: 64 KiB instead of Node's 16 KiB, so a
@@ -113,7 +113,7 @@ export function createApp(deps: AppDeps): CreatedApp {
           // FullCalendar and React set inline styles at run time.
           "style-src": ["'self'", "'unsafe-inline'"],
           // The one inline line a signed-in page carries (page-boot.ts), by its hash.
-          "script-src": ["'self'", INTL_WARM_UP_SOURCE],
+          "script-src": ["'self'", WARM_UP_SOURCE],
           "connect-src": ["'self'"],
           // FullCalendar ships its arrow icons as an embedded (data:) font.
           "font-src": ["'self'", "data:"],

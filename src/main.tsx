@@ -3,7 +3,8 @@
  * first paint is the first screen itself (its code loaded, the session known from the page), not
  * a spinner in front of it; until then the page shows the waiting line index.html carries. The
  * first render runs as a transition: React renders it in slices and leaves the main thread free
- * between them, instead of one long block on a slow phone.
+ * between them, instead of one long block on a slow phone. For the same reason the app starts in
+ * the task after the one that evaluates the libraries, not in the same long task.
  */
 import { StrictMode, startTransition } from "react";
 import { createRoot } from "react-dom/client";
@@ -14,17 +15,18 @@ import "./styles/index.css";
 const root = document.getElementById("root");
 if (!root) throw new Error("index.html has no #root element");
 
-const queryClient = createAppQueryClient();
-const router = createAppRouter(queryClient);
-
-void routerReady(router).then(() =>
-  startTransition(() =>
-    createRoot(root).render(
-      <StrictMode>
-        <AppProvider client={queryClient}>
-          <AppRouter router={router} />
-        </AppProvider>
-      </StrictMode>,
+setTimeout(() => {
+  const queryClient = createAppQueryClient();
+  const router = createAppRouter(queryClient);
+  void routerReady(router).then(() =>
+    startTransition(() =>
+      createRoot(root).render(
+        <StrictMode>
+          <AppProvider client={queryClient}>
+            <AppRouter router={router} />
+          </AppProvider>
+        </StrictMode>,
+      ),
     ),
-  ),
-);
+  );
+});

@@ -10,8 +10,11 @@
  *   around it), read from Vite's build manifest, so that code comes with the first scripts
  *   instead of after them. A visitor who is not signed in gets the sign-in screen's code
  *   whatever the address: that is where the client sends them;
- * - for a signed-in page: a line that loads the browser's locale data while the scripts are on
- *   the way (INTL_WARM_UP), and, on a screen whose head says the same to everyone, the frame's
+ * - the chunks that need none of the libraries (zod and the shared schemas) as async module
+ *   scripts as well, so they run as soon as they arrive, not in the screen's task after the
+ *   libraries;
+ * - for a signed-in page: a line that loads the browser's locale data and opens its
+ *   sessionStorage while the scripts are on the way (WARM_UP), and, on a screen whose head says the same to everyone, the frame's
  *   outline with that title and description in place of the bare waiting line, so the page says
  *   what it is at its first paint (React replaces it whole when the screen is ready).
  *
@@ -87,12 +90,12 @@ interface ManifestChunk {
 }
 type Manifest = Record<string, ManifestChunk>;
 
-/** Every file a manifest entry needs (its own and its static imports', depth first), skipping entries in `seen`. */
-function filesOf(manifest: Manifest, key: string, seen = new Set<string>()): string[] {
+/** Every chunk a manifest entry needs (itself and its static imports, depth first), skipping entries in `seen`. */
+function chunksOf(manifest: Manifest, key: string, seen = new Set<string>()): string[] {
   const chunk = manifest[key];
   if (!chunk || seen.has(key)) return [];
   seen.add(key);
-  return [chunk.file, ...(chunk.imports ?? []).flatMap((k) => filesOf(manifest, k, seen))];
+  return [key, ...(chunk.imports ?? []).flatMap((k) => chunksOf(manifest, k, seen))];
 }
 
 /** What the page load tells the client about itself (src/lib/session/page-boot.ts reads it). */
@@ -107,14 +110,17 @@ export interface PageBoot {
 }
 
 /**
- * The browser's first use of Intl loads its locale data: about 50 ms of main-thread time on a
- * desk computer, four times that on a phone, taken from the first render that shows a date or a
- * number. A signed-in page loads this one line while its scripts are still on the way and the
- * main thread is idle, before the style sheet, so the first screen renders without that pause.
+ * Two first uses that make the page wait: the browser's first use of Intl loads its locale data
+ * (about 50 ms of main-thread time on a desk computer, four times that on a phone, taken from the
+ * first render that shows a date or a number), and its first use of sessionStorage asks the
+ * browser process for it (3–13 ms measured here; the router reads it when it starts). A signed-in
+ * page runs this one line while its scripts are still on the way and the main thread is idle (in
+ * a task of its own, after the page is parsed), so the app starts and the first screen renders
+ * without either pause.
  */
-export const INTL_WARM_UP = "setTimeout(function(){try{new Intl.DateTimeFormat().format(0)}catch(e){}})";
-/** The Content-Security-Policy source that allows `INTL_WARM_UP` and no other inline script. */
-export const INTL_WARM_UP_SOURCE = `'sha256-${crypto.createHash("sha256").update(INTL_WARM_UP).digest("base64")}'`;
+export const WARM_UP = "setTimeout(function(){try{new Intl.DateTimeFormat().format(0);sessionStorage.length}catch(e){}})";
+/** The Content-Security-Policy source that allows `WARM_UP` and no other inline script. */
+export const WARM_UP_SOURCE = `'sha256-${crypto.createHash("sha256").update(WARM_UP).digest("base64")}'`;
 
 const escapeHtml = (text: string) => text.replace(/[&<>"]/g, (c) => `&${{ "&": "amp", "<": "lt", ">": "gt", '"': "quot" }[c]};`);
 
@@ -152,15 +158,24 @@ export function createPageBoot(staticDir: string): PageBoot {
   const manifest: Manifest = fs.existsSync(manifestFile) ? (JSON.parse(fs.readFileSync(manifestFile, "utf8")) as Manifest) : {};
   const entryKey = Object.keys(manifest).find((key) => manifest[key]!.isEntry);
   // The entry and what it imports are in the template already.
-  const inTemplate = new Set(entryKey ? filesOf(manifest, entryKey) : []);
+  const inTemplate = new Set(entryKey ? chunksOf(manifest, entryKey) : []);
+  // A chunk that needs nothing the entry loads but the bundler's runtime (a chunk that imports
+  // nothing) waits for no library: the page runs it as soon as it arrives (an async module
+  // script), in a task of its own while the libraries are still on the way, instead of in the
+  // screen's one long task after them. zod and the shared schemas are such chunks: building the
+  // schemas is most of that task.
+  const importsNothing = (key: string) => !manifest[key]?.imports?.length;
+  const runsAlone = (key: string) => chunksOf(manifest, key).every((k) => k === key || !inTemplate.has(k) || importsNothing(k));
   const preloadsFor = (modules: string[]) => {
     const seen = new Set<string>();
-    const files = modules.flatMap((m) => filesOf(manifest, m, seen)).filter((file) => !inTemplate.has(file));
-    return files.map((file) => `<link rel="modulepreload" crossorigin href="/${file}">`).join("");
+    const chunks = modules.flatMap((m) => chunksOf(manifest, m, seen)).filter((key) => !inTemplate.has(key));
+    const link = (key: string) => `<link rel="modulepreload" crossorigin href="/${manifest[key]!.file}">`;
+    const early = (key: string) => `<script type="module" async crossorigin src="/${manifest[key]!.file}"></script>`;
+    return chunks.map(link).join("") + chunks.filter(runsAlone).map(early).join("");
   };
-  // The signed-in page's template (with the locale line), and the same with each screen's head,
+  // The signed-in page's template (with the warm-up line), and the same with each screen's head,
   // made once; a page load only adds its preloads and session block.
-  const signedInTemplate = template.replace("<title>", `<script>${INTL_WARM_UP}</script><title>`);
+  const signedInTemplate = template.replace("<title>", `<script>${WARM_UP}</script><title>`);
   const headed = new Map<ScreenHeadName, string>();
   const templateWithHead = (name: ScreenHeadName) => {
     let html = headed.get(name);

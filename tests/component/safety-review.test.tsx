@@ -39,13 +39,17 @@ describe("the Safety review while its answers arrive", () => {
   afterEach(cleanup);
 
   it("draws the lists with the totals or after them when the review's answer is there first", async () => {
-    const seen = await watchArrival(async (qc) => qc.setQueryData(reviewQueryOptions().queryKey, await getReview()));
+    const seen = await watchArrival(async (qc) => {
+      qc.setQueryData(reviewQueryOptions().queryKey, await getReview());
+    });
     expect(seen).not.toContain("lists without totals");
     expect(seen).toContain("both");
   });
 
   it("draws the lists after the totals when the totals' answer is there first", async () => {
-    const seen = await watchArrival(async (qc) => qc.setQueryData(locationTotalsQueryOptions().queryKey, await getLocationTotals()));
+    const seen = await watchArrival(async (qc) => {
+      qc.setQueryData(locationTotalsQueryOptions().queryKey, await getLocationTotals());
+    });
     expect(seen).not.toContain("lists without totals");
     expect(seen[0]).not.toBe("neither");
   });

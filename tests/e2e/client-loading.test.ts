@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page, Route } from "playwright-core";
 import fs from "node:fs";
 import { DEMO_PASSWORD, launchBrowser, signIn, startServer, type RunningServer } from "../support/e2e";
-import { INTL_WARM_UP, PAGE_MODULES } from "../../server/http/page-boot";
+import { WARM_UP, PAGE_MODULES } from "../../server/http/page-boot";
 import { SCREEN_HEADS } from "../../shared/screens";
 
 let server: RunningServer;
@@ -99,12 +99,17 @@ describe("the client's delivery", () => {
     // The page says what it is before its code arrives: the Stockroom's head, as the screen draws it.
     const { title, description } = SCREEN_HEADS.stockroom;
     expect(html).toContain(`>${title}</h1><p class="mt-0.5 max-w-3xl text-grey-600">${description}</p>`);
-    expect(html).toContain(`<script>${INTL_WARM_UP}</script>`);
+    expect(html).toContain(`<script>${WARM_UP}</script>`);
+    // zod and the Stockroom's schemas run as soon as they arrive, apart from the libraries: the
+    // page runs them as async module scripts, and the build left them free of React and the router.
+    const early = [...html.matchAll(/<script type="module" async crossorigin src="\/(assets\/[^"]+)"><\/script>/g)].map((m) => m[1]!);
+    expect(early.map((f) => f.replace(/-[A-Za-z0-9_-]{8}\.js$/, "")).sort()).toEqual(["assets/data", "assets/schemas-stock"]);
+    for (const file of early) expect(fs.readFileSync(`dist/${file}`, "utf8")).not.toMatch(/from"\.\/(framework|shell|index)-/);
     await page.locator('[data-testid="nav-stockroom"]').waitFor();
     await expect.poll(() => page.locator("h1").allTextContents()).toEqual([title]);
     expect(await page.locator("h1 + p").first().textContent()).toBe(description);
     await page.waitForLoadState("networkidle");
-    // The locale line runs under the page's Content-Security-Policy (its hash is allowed).
+    // The warm-up line runs under the page's Content-Security-Policy (its hash is allowed).
     expect(refused).toEqual([]);
     // Nobody asked who is signed in or where the facility is: the page said so.
     expect(asked.filter((p) => p === "/api/auth/me" || p === "/api/facility")).toEqual([]);

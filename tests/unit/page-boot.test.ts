@@ -7,7 +7,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { createPageBoot, INTL_WARM_UP, PAGE_MODULES } from "../../server/http/page-boot";
+import { createPageBoot, WARM_UP, PAGE_MODULES } from "../../server/http/page-boot";
 import { paths } from "../../src/config/paths";
 import { SCREEN_HEADS } from "../../shared/screens";
 import { searchText, SEARCH_MAX } from "../../shared/schemas/common";
@@ -61,22 +61,31 @@ describe("the page a load gets", () => {
   fs.writeFileSync(
     path.join(dir, ".vite", "manifest.json"),
     JSON.stringify({
-      "index.html": { file: "assets/index-A.js", isEntry: true, imports: ["_framework-F.js"] },
-      "_framework-F.js": { file: "assets/framework-F.js" },
-      "_data-D.js": { file: "assets/data-D.js", imports: ["_framework-F.js"] },
+      "index.html": { file: "assets/index-A.js", isEntry: true, imports: ["_runtime-T.js", "_framework-F.js"] },
+      "_runtime-T.js": { file: "assets/runtime-T.js" },
+      "_framework-F.js": { file: "assets/framework-F.js", imports: ["_runtime-T.js"] },
+      // The schemas: they need nothing but the bundler's runtime.
+      "_data-D.js": { file: "assets/data-D.js", imports: ["_runtime-T.js"] },
+      "_table-B.js": { file: "assets/table-B.js", imports: ["_runtime-T.js", "_framework-F.js"] },
       "src/app/routes/signed-in-frame.tsx": { file: "assets/signed-in-frame-S.js", imports: ["_framework-F.js"] },
-      "src/app/routes/stockroom.tsx": { file: "assets/stockroom-R.js", imports: ["_data-D.js", "_framework-F.js"] },
+      "src/app/routes/stockroom.tsx": { file: "assets/stockroom-R.js", imports: ["_data-D.js", "_framework-F.js", "_table-B.js"] },
       "src/app/routes/sign-in.tsx": { file: "assets/sign-in-I.js", imports: ["_framework-F.js"] },
     }),
   );
   const boot = createPageBoot(dir);
   const block = (html: string) => JSON.parse(/<script type="application\/json" id="phasebook-boot">(.*?)<\/script>/.exec(html)![1]!) as unknown;
   const preloads = (html: string) => [...html.matchAll(/rel="modulepreload" crossorigin href="\/([^"]+)"/g)].map((m) => m[1]);
+  const runEarly = (html: string) => [...html.matchAll(/<script type="module" async crossorigin src="\/([^"]+)"><\/script>/g)].map((m) => m[1]);
 
   it("preloads the signed-in person's screen, what it imports and the frame, not what the entry loads already", () => {
     const html = boot.html("/stockroom", { user: member, facility });
-    expect(preloads(html)).toEqual(["assets/signed-in-frame-S.js", "assets/stockroom-R.js", "assets/data-D.js"]);
+    expect(preloads(html)).toEqual(["assets/signed-in-frame-S.js", "assets/stockroom-R.js", "assets/data-D.js", "assets/table-B.js"]);
     expect(block(html)).toEqual({ facility, user: member });
+  });
+
+  it("runs a chunk that needs only the bundler's runtime as soon as it arrives, and no chunk that needs a library", () => {
+    expect(runEarly(boot.html("/stockroom", { user: member, facility }))).toEqual(["assets/data-D.js"]);
+    expect(runEarly(boot.html("/sign-in", { user: null, facility }))).toEqual([]);
   });
 
   it("sends a visitor who is not signed in the sign-in screen's code, whatever the address", () => {
@@ -87,13 +96,13 @@ describe("the page a load gets", () => {
 
   it("writes the person's data so that no text in it can end the script element", () => {
     const html = boot.html("/", { user: { ...member, name: "</script><script>alert(1)</script>" }, facility });
-    expect(html.match(/<\/script>/g)).toHaveLength(3); // the entry's, the locale line's and the block's own
+    expect(html.match(/<\/script>/g)).toHaveLength(3); // the entry's, the warm-up line's and the block's own
     expect((block(html) as { user: { name: string } }).user.name).toBe("</script><script>alert(1)</script>");
   });
 
   const rootOf = (html: string) => /<div id="root">([\s\S]*)<\/div>\n<noscript>/.exec(html)![1]!;
 
-  it("writes a signed-in screen's title and description into its page, above the waiting line, with the locale line", () => {
+  it("writes a signed-in screen's title and description into its page, above the waiting line, with the warm-up line", () => {
     const html = boot.html("/stockroom", { user: member, facility });
     expect(html).toContain("<title>Stockroom · Phasebook</title>");
     const root = rootOf(html);
@@ -101,7 +110,7 @@ describe("the page a load gets", () => {
     // "container's": words are written as they are, with only &, <, > and " escaped.
     expect(root).toContain(`<p class="mt-0.5 max-w-3xl text-grey-600">${SCREEN_HEADS.stockroom.description}</p>`);
     expect(root).toMatch(/<\/p><\/div><\/div><div role="status">Loading Phasebook…<\/div>/);
-    expect(html).toContain(`<script>${INTL_WARM_UP}</script><title>`);
+    expect(html).toContain(`<script>${WARM_UP}</script><title>`);
   });
 
   it("draws the outline with the frame's and the page header's own classes, so the screen replaces it in place", () => {
@@ -124,7 +133,7 @@ describe("the page a load gets", () => {
     expect(rootOf(boot.html("/safety", { user: officer, facility }))).toContain(">Safety review</h1>");
     const signedOut = boot.html("/stockroom", { user: null, facility });
     expect(rootOf(signedOut)).toBe('<div role="status">Loading Phasebook…</div>');
-    expect(signedOut).not.toContain(INTL_WARM_UP);
+    expect(signedOut).not.toContain(WARM_UP);
   });
 
   it("leaves the session to GET /api/auth/me when the person does not fit the session schema", () => {
