@@ -14,9 +14,10 @@
  *   scripts as well, so they run as soon as they arrive, not in the screen's task after the
  *   libraries;
  * - for a signed-in page: a line that loads the browser's locale data and opens its
- *   sessionStorage while the scripts are on the way (WARM_UP), and, on a screen whose head says the same to everyone, the frame's
- *   outline with that title and description in place of the bare waiting line, so the page says
- *   what it is at its first paint (React replaces it whole when the screen is ready).
+ *   sessionStorage while the scripts are on the way (WARM_UP), and, on a screen whose head says
+ *   the same to everyone, the frame's outline with that title and description in place of the
+ *   bare waiting line, so the page says what it is at its first paint (React replaces it whole
+ *   when the screen is ready).
  *
  * PAGE_MODULES follows the client's route table (src/app/router.tsx): each address's screen
  * module. The route loaders need no line: the build puts them in their area's data chunk

@@ -24,7 +24,7 @@ export function SafetyRoute() {
         <h2 id="totals-heading" className="mb-2 text-sm font-semibold">Flammable liquids per location</h2>
         <LocationTotals shown={totals} />
       </section>
-      <ReviewLists afterTotals={totals.data !== undefined || totals.error !== null} />
+      <ReviewLists afterTotals={totals.drawn} />
     </>
   );
 }

@@ -45,9 +45,12 @@ function Findings({ t }: { t: LocationTotalsDto }) {
  * to the lists below (ReviewLists), so they never show before the totals above them and the totals
  * arriving never push them down the page.
  */
-export function useShownTotals(): { data: LocationTotalsDto[] | undefined; error: unknown } {
+export function useShownTotals(): { data: LocationTotalsDto[] | undefined; error: unknown; drawn: boolean } {
   const totals = useLocationTotals();
-  return { data: useDeferredValue(totals.data), error: totals.isError ? totals.error : null };
+  const data = useDeferredValue(totals.data);
+  const error = totals.isError ? totals.error : null;
+  // What LocationTotals draws in place of its loading line: the totals, or the error.
+  return { data, error, drawn: data !== undefined || error !== null };
 }
 
 /** The totals with their findings, drawn whole when they are there (findings above the table never move it). */
