@@ -1,3 +1,5 @@
+import { createRequire } from "node:module";
+import path from "node:path";
 import { fileURLToPath, URL } from "node:url";
 import { defineConfig } from "vitest/config";
 import react from "@vitejs/plugin-react";
@@ -11,6 +13,23 @@ const alias = {
   "@shared": fileURLToPath(new URL("./shared", import.meta.url)),
   "@": fileURLToPath(new URL("./src", import.meta.url)),
 };
+
+/**
+ * The router's production build for the client build. react-router ships it beside its
+ * development build (dist/production, the same code with its development warnings and checks
+ * off) but its package exports name only the development files, which would otherwise go to
+ * every visitor: checks that run on each navigation and their messages.
+ */
+function reactRouterProduction(): Plugin {
+  const dir = path.join(path.dirname(createRequire(import.meta.url).resolve("react-router/package.json")), "dist", "production");
+  const files: Record<string, string> = { "react-router": "index.mjs", "react-router/dom": "dom-export.mjs" };
+  return {
+    name: "phasebook-react-router-production",
+    apply: "build",
+    enforce: "pre",
+    resolveId: (id) => (files[id] ? path.join(dir, files[id]) : null),
+  };
+}
 
 /**
  * Preloads fonts by their hashed names in the build. Only IBM Plex Sans 400, the face of almost
@@ -92,6 +111,7 @@ const DATA_AREAS: [string, RegExp][] = [
 
 export default defineConfig({
   plugins: [
+    reactRouterProduction(),
     react(),
     tailwindcss(),
     compileHints(/^(framework|data|schemas-schedule|data-schedule|schemas-stock|data-stock|shell)$/),
