@@ -2,7 +2,7 @@
  * The shared UI pieces (src/components/ui) as a person and a screen reader meet them: names,
  * states in words, errors tied to their fields, dialogs that open, name themselves and close.
  */
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { describe, expect, it, vi } from "vitest";
 import { render, screen, within } from "@testing-library/react";
 import userEvent from "@testing-library/user-event";
@@ -17,7 +17,8 @@ import { FieldSet } from "@/components/ui/field";
 import { Checkbox, Input, Select } from "@/components/ui/input";
 import { PageHeader } from "@/components/ui/page-header";
 import { FullPageSpinner, Spinner } from "@/components/ui/spinner";
-import { Pager, SortableTh, Table, TBody, THead, Td, Tr } from "@/components/ui/table";
+import { createColumnHelper, getCoreRowModel, useReactTable } from "@tanstack/react-table";
+import { BodyRows, Pager, SortableTh, Table, TBody, THead, Td, Tr } from "@/components/ui/table";
 
 describe("Button", () => {
   it("is a plain button by default and runs its action on Enter or a click", async () => {
@@ -236,5 +237,42 @@ describe("Table", () => {
     expect((screen.getByRole("button", { name: "Previous" }) as HTMLButtonElement).disabled).toBe(true);
     await userEvent.click(screen.getByRole("button", { name: "Next" }));
     expect(onPage).toHaveBeenCalledWith(1);
+  });
+
+  it("draws a table's unchanged rows once when its screen draws again, and again when their columns change", async () => {
+    interface Bottle { id: number; name: string }
+    const drawn: string[] = [];
+    const col = createColumnHelper<Bottle>();
+    const nameColumn = col.accessor("name", { header: "Chemical", cell: (c) => (drawn.push(c.getValue()), c.getValue()) });
+    const data: Bottle[] = [{ id: 1, name: "Dichloromethane" }, { id: 2, name: "Nitrobenzene" }];
+    function Screen() {
+      const [filter, setFilter] = useState("");
+      const [marked, setMarked] = useState(false);
+      const columns = useMemo(
+        () => [nameColumn, col.display({ id: "mark", header: "Mark", cell: (c) => (marked ? `marked ${c.row.original.id}` : "–") })],
+        [marked],
+      );
+      const table = useReactTable({ data, columns, getCoreRowModel: getCoreRowModel() });
+      return (
+        <>
+          <input aria-label="Filter" value={filter} onChange={(e) => setFilter(e.target.value)} />
+          <button type="button" onClick={() => setMarked(true)}>Mark all</button>
+          <Table caption="Bottles">
+            <TBody>
+              <BodyRows table={table} />
+            </TBody>
+          </Table>
+        </>
+      );
+    }
+    render(<Screen />);
+    expect(drawn).toEqual(["Dichloromethane", "Nitrobenzene"]);
+    // The screen draws again (a key in the filter) with the same rows and columns: no row draws.
+    await userEvent.type(screen.getByRole("textbox", { name: "Filter" }), "n");
+    expect(drawn).toHaveLength(2);
+    // New columns (a column that reads the screen's state) draw every row again, with that state.
+    await userEvent.click(screen.getByRole("button", { name: "Mark all" }));
+    expect(drawn).toHaveLength(4);
+    expect(screen.getByText("marked 2")).toBeTruthy();
   });
 });

@@ -2,8 +2,8 @@
  * Table helpers for dense lists: a scroll wrapper so wide tables never break a phone layout,
  * compact cells, and a sortable header that tells screen readers its order (aria-sort).
  */
-import type { HTMLAttributes, ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
-import { flexRender, type Row, type Table as DataTable } from "@tanstack/react-table";
+import { memo, type HTMLAttributes, type ReactNode, type TdHTMLAttributes, type ThHTMLAttributes } from "react";
+import { flexRender, type Cell, type Table as DataTable } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
 import { formatCount } from "@/lib/format";
 import { Button } from "./button";
@@ -110,16 +110,29 @@ export function HeaderRows<T>({ table, isSortable }: { table: DataTable<T>; isSo
   );
 }
 
-/** One body row: its own component, so React can pause between the rows of a long page. */
-function BodyRow<T>({ row, className, testId }: { row: Row<T>; className?: string; testId?: string }) {
+interface BodyRowProps<T> {
+  /** The row's visible cells: TanStack gives the same array until the row or the columns change. */
+  cells: Cell<T, unknown>[];
+  className?: string;
+  testId?: string;
+}
+
+/**
+ * One body row: its own component, so React can pause between the rows of a long page, and
+ * memoised on its cells, so the table's screen drawing again for another reason (a filter's list
+ * arriving, a selection) does not draw every unchanged row again in one block. A cell draws from
+ * its row and its column's definition only; columns that read other state are remade when it
+ * changes (useMemo with that state), which gives new cells.
+ */
+const BodyRow = memo(function BodyRow<T>({ cells, className, testId }: BodyRowProps<T>) {
   return (
     <Tr className={className} data-testid={testId}>
-      {row.getVisibleCells().map((cell) => (
+      {cells.map((cell) => (
         <Td key={cell.id}>{flexRender(cell.column.columnDef.cell, cell.getContext())}</Td>
       ))}
     </Tr>
   );
-}
+}) as <T>(props: BodyRowProps<T>) => ReactNode;
 
 /**
  * The body rows of a TanStack table, each row a component of its own: an arriving page renders
@@ -129,7 +142,7 @@ export function BodyRows<T>({ table, rowClassName, rowTestId }: { table: DataTab
   return (
     <>
       {table.getRowModel().rows.map((row) => (
-        <BodyRow key={row.id} row={row} className={rowClassName?.(row.original)} testId={rowTestId?.(row.original)} />
+        <BodyRow key={row.id} cells={row.getVisibleCells()} className={rowClassName?.(row.original)} testId={rowTestId?.(row.original)} />
       ))}
     </>
   );
