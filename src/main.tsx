@@ -4,7 +4,9 @@
  * a spinner in front of it; until then the page shows the waiting line index.html carries. The
  * first render runs as a transition: React renders it in slices and leaves the main thread free
  * between them, instead of one long block on a slow phone. For the same reason the app starts in
- * the task after the one that evaluates the libraries, not in the same long task.
+ * the task after the one that evaluates the libraries, and in three short tasks rather than one
+ * long one: the query client (with the answers the page carried), then the router (ranking the
+ * routes), then its start on the first address (matching it, starting the screen's code and data).
  */
 import { StrictMode, startTransition } from "react";
 import { createRoot } from "react-dom/client";
@@ -15,18 +17,26 @@ import "./styles/index.css";
 const root = document.getElementById("root");
 if (!root) throw new Error("index.html has no #root element");
 
-setTimeout(() => {
+/** Runs `step` in a task of its own, after what is queued now. */
+const nextTask = (step: () => void) => setTimeout(step);
+
+nextTask(() => {
   const queryClient = createAppQueryClient();
-  const router = createAppRouter(queryClient);
-  void routerReady(router).then(() =>
-    startTransition(() =>
-      createRoot(root).render(
-        <StrictMode>
-          <AppProvider client={queryClient}>
-            <AppRouter router={router} />
-          </AppProvider>
-        </StrictMode>,
-      ),
-    ),
-  );
+  nextTask(() => {
+    const router = createAppRouter(queryClient);
+    nextTask(() => {
+      router.initialize();
+      void routerReady(router).then(() =>
+        startTransition(() =>
+          createRoot(root).render(
+            <StrictMode>
+              <AppProvider client={queryClient}>
+                <AppRouter router={router} />
+              </AppProvider>
+            </StrictMode>,
+          ),
+        ),
+      );
+    });
+  });
 });

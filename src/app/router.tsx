@@ -8,7 +8,15 @@
  * Each section has its own errorElement so one broken screen leaves the navigation usable.
  */
 import { useEffect, useState, type ComponentType } from "react";
-import { createBrowserRouter, RouterProvider, type LoaderFunctionArgs, type RouteObject } from "react-router-dom";
+import {
+  RouterProvider,
+  UNSAFE_createBrowserHistory as createBrowserHistory,
+  UNSAFE_createRouter as createRouter,
+  UNSAFE_hydrationRouteProperties as hydrationRouteProperties,
+  UNSAFE_mapRouteProperties as mapRouteProperties,
+  type LoaderFunctionArgs,
+  type RouteObject,
+} from "react-router-dom";
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
 import type { Role } from "@shared/schemas/auth";
 import { paths } from "@/config/paths";
@@ -30,6 +38,12 @@ const areas = () => import("./loaders/areas-data");
 const safety = () => import("./loaders/safety-data");
 const labels = () => import("./loaders/labels-data");
 
+/**
+ * The app's router, not yet started: `router.initialize()` matches the first address and starts
+ * its loaders. This is what createBrowserRouter does in one step; main.tsx takes the two steps in
+ * tasks of their own, so neither holds a slow phone's main thread for long (building the router
+ * ranks every route, starting it matches them again and starts the screen's code and data).
+ */
 export function createAppRouter(qc: QueryClient) {
   // Until the router has shown its first screen, loaders do not wait for data (loaders/load.ts).
   let opened = false;
@@ -71,7 +85,7 @@ export function createAppRouter(qc: QueryClient) {
     hydrateFallbackElement: <FullPageSpinner />,
   });
 
-  const router = createBrowserRouter([
+  const routes: RouteObject[] = [
     signedOut(paths.signIn.path, () => import("./routes/sign-in").then((m) => m.SignInRoute)),
     signedOut(paths.forgot.path, () => import("./routes/forgot-password").then((m) => m.ForgotPasswordRoute)),
     signedOut(paths.reset.path, () => import("./routes/reset-password").then((m) => m.ResetPasswordRoute)),
@@ -118,7 +132,8 @@ export function createAppRouter(qc: QueryClient) {
         { path: "*", element: <NotFoundRoute />, errorElement: <SectionError /> },
       ],
     },
-  ]);
+  ];
+  const router = createRouter({ routes, history: createBrowserHistory(), mapRouteProperties, hydrationRouteProperties });
   void routerReady(router).then(() => (opened = true));
   return router;
 }
@@ -138,12 +153,13 @@ export function routerReady(router: AppRouterInstance): Promise<void> {
 }
 
 /**
- * The router, created once per mounted app (main.tsx makes it before the first render, so the
- * first screen is ready when React first paints; without one, as in tests, it is made here).
+ * The router, created once per mounted app (main.tsx makes and starts it before the first render,
+ * so the first screen is ready when React first paints; without one, as in tests, it is made and
+ * started here).
  */
 export function AppRouter({ router: given }: { router?: AppRouterInstance }) {
   const qc = useQueryClient();
-  const [router] = useState(() => given ?? createAppRouter(qc));
+  const [router] = useState(() => given ?? createAppRouter(qc).initialize());
   useEffect(() => warmLinksOnIntent(router.routes), [router]);
   return <RouterProvider router={router} />;
 }
