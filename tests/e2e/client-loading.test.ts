@@ -68,6 +68,13 @@ describe("the client's delivery", () => {
     expect(missing).toEqual([]);
   });
 
+  it("builds the router from react-router's production files, not its development ones", () => {
+    const framework = fs.readdirSync("dist/assets").find((f) => /^framework-[\w-]+\.js$/.test(f))!;
+    const sources = (JSON.parse(fs.readFileSync(`dist/assets/${framework}.map`, "utf8")) as { sources: string[] }).sources.filter((s) => s.includes("react-router/dist/"));
+    expect(sources.length).toBeGreaterThan(0);
+    expect(sources.filter((s) => !s.includes("react-router/dist/production/"))).toEqual([]);
+  });
+
   it("moves the source map of each chunk carrying the compile hint down by the hint's line", () => {
     const hinted = fs.readdirSync("dist/assets").filter((f) => f.endsWith(".js") && fs.readFileSync(`dist/assets/${f}`, "utf8").startsWith("//# allFunctionsCalledOnLoad\n"));
     expect(hinted.some((f) => f.startsWith("framework-"))).toBe(true);
