@@ -17,26 +17,26 @@ import "./styles/index.css";
 const root = document.getElementById("root");
 if (!root) throw new Error("index.html has no #root element");
 
-/** Runs `step` in a task of its own, after what is queued now. */
-const nextTask = (step: () => void) => setTimeout(step);
+/** Resolves in a task of its own, after what is queued now: what follows the `await` runs there. */
+const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve));
 
-nextTask(() => {
+async function start(container: HTMLElement) {
+  await nextTask();
   const queryClient = createAppQueryClient();
-  nextTask(() => {
-    const router = createAppRouter(queryClient);
-    nextTask(() => {
-      router.initialize();
-      void routerReady(router).then(() =>
-        startTransition(() =>
-          createRoot(root).render(
-            <StrictMode>
-              <AppProvider client={queryClient}>
-                <AppRouter router={router} />
-              </AppProvider>
-            </StrictMode>,
-          ),
-        ),
-      );
-    });
-  });
-});
+  await nextTask();
+  const router = createAppRouter(queryClient);
+  await nextTask();
+  router.initialize();
+  await routerReady(router);
+  startTransition(() =>
+    createRoot(container).render(
+      <StrictMode>
+        <AppProvider client={queryClient}>
+          <AppRouter router={router} />
+        </AppProvider>
+      </StrictMode>,
+    ),
+  );
+}
+
+void start(root);

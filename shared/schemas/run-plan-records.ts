@@ -60,7 +60,6 @@ export const RUN_PLAN_ACTIONS = ["see", "edit", "attach", "release"] as const;
 export const runPlanAbilities = z.object(Object.fromEntries(RUN_PLAN_ACTIONS.map((a) => [a, z.boolean()])) as Record<(typeof RUN_PLAN_ACTIONS)[number], z.ZodBoolean>);
 export type RunPlanAbilities = z.infer<typeof runPlanAbilities>;
 
-
 export const weighLineDto = z.object({
   phase,
   role: z.enum(["solute", "solvent"]),
